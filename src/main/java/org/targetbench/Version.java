@@ -1,0 +1,11 @@
+package org.targetbench;
+
+/** The tool's version, from the jar manifest ("dev" when run from classes). */
+public final class Version {
+    private Version() {}
+
+    public static String get() {
+        String v = Version.class.getPackage().getImplementationVersion();
+        return v == null ? "dev" : v;
+    }
+}

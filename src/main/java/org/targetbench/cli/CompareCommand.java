@@ -1,0 +1,53 @@
+package org.targetbench.cli;
+
+import org.targetbench.export.AtomicOutput;
+import org.targetbench.export.CompareWriter;
+import org.targetbench.pipeline.CompareResult;
+import org.targetbench.pipeline.CompareRun;
+import org.targetbench.report.OverlayWriter;
+import org.targetbench.source.ImageFolderSource;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+import picocli.CommandLine.Model.CommandSpec;
+
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+
+@Command(name = "compare", mixinStandardHelpOptions = true,
+        description = {"Runs detectors on a folder of frames and scores repeatability against the reference frame.",
+                "Frames are PNG/JPEG files sorted by name; truth.json in the folder (or --truth) gives the homography from the "
+                        + "reference frame to each frame. Writes detections.csv, repeatability.csv, summary.json and overlays/."})
+final class CompareCommand implements Callable<Integer> {
+    @Spec CommandSpec spec;
+
+    @Option(names = "--frames", required = true, paramLabel = "DIR", description = "Folder of PNG/JPEG frames.")
+    Path frames;
+
+    @Option(names = "--truth", paramLabel = "FILE", description = "Ground-truth file (default: truth.json in the frame folder, if present).")
+    Path truth;
+
+    @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output folder, written atomically.")
+    Path out;
+
+    @Mixin DetectorOptions detectorOptions;
+
+    @Override
+    public Integer call() throws Exception {
+        var configs = detectorOptions.configs();
+        try (ImageFolderSource source = ImageFolderSource.open(frames, truth);
+             AtomicOutput output = AtomicOutput.open(out)) {
+            CompareResult result = new CompareRun(configs, detectorOptions.epsilon).run(source, new ConsoleProgress("detecting"));
+            CompareWriter.write(result, output);
+            OverlayWriter.write(result, output);
+            output.commit();
+            var w = spec.commandLine().getOut();
+            ConsoleTable.print(result, w);
+            w.println();
+            w.println("Results written to " + output.target());
+            w.flush();
+        }
+        return 0;
+    }
+}

@@ -1,0 +1,72 @@
+package org.targetbench.cli;
+
+import org.targetbench.export.AtomicOutput;
+import org.targetbench.export.CompareWriter;
+import org.targetbench.export.FrameSetWriter;
+import org.targetbench.export.Safety;
+import org.targetbench.pipeline.CompareResult;
+import org.targetbench.pipeline.CompareRun;
+import org.targetbench.pipeline.DemoScenario;
+import org.targetbench.report.OverlayWriter;
+import org.targetbench.source.CameraFile;
+import org.targetbench.source.ImageFolderSource;
+import org.targetbench.source.PosesFile;
+import org.targetbench.source.TargetFile;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+
+@Command(name = "demo", mixinStandardHelpOptions = true,
+        description = {"Runs the bench on the built-in demo scenario: a checkerboard target on the fixture plate of a small "
+                + "machining cell, seen by the flange camera from twelve arm positions.",
+                "Renders the frames with ground truth, compares every detector on them, and writes the frames, the target, "
+                        + "camera and poses files, CSV and JSON results and overlay images."})
+final class DemoCommand implements Callable<Integer> {
+    @Spec CommandSpec spec;
+
+    @Option(names = "--out", paramLabel = "DIR", defaultValue = "results/demo", description = "Output folder (default: ${DEFAULT-VALUE}).")
+    Path out;
+
+    @Mixin DetectorOptions detectorOptions;
+
+    @Override
+    public Integer call() throws Exception {
+        var configs = detectorOptions.configs();
+        PrintWriter w = spec.commandLine().getOut();
+        try (AtomicOutput output = AtomicOutput.open(out)) {
+            w.println("Demo scenario: target " + DemoScenario.target().name() + " on the fixture plate, camera "
+                    + DemoScenario.camera().width() + "x" + DemoScenario.camera().height() + " at " + DemoScenario.STANDOFF_M + " m.");
+            w.flush();
+            TargetFile.write(DemoScenario.target(), output.file("target.json"));
+            CameraFile.write(DemoScenario.camera(), output.file("camera.json"));
+            PosesFile.write(DemoScenario.poses(), output.file("poses.json"));
+            FrameSetWriter.write(DemoScenario.source(), output, "frames", new ConsoleProgress("rendering"));
+            // compare on the written frames exactly as 'compare --frames' would
+            CompareResult result;
+            try (ImageFolderSource frames = ImageFolderSource.open(output.folder("frames"), null, out.resolve("frames").toString())) {
+                result = new CompareRun(configs, detectorOptions.epsilon).run(frames, new ConsoleProgress("detecting"));
+            }
+            CompareWriter.write(result, output);
+            var overlays = OverlayWriter.write(result, output);
+            output.commit();
+            Path target = output.target();
+            ConsoleTable.print(result, w);
+            w.println();
+            w.println("Written to " + target + ":");
+            w.println("  frames/              12 rendered frames with truth.json (try: targetbench compare --frames " + target.resolve("frames") + " --out results/mine)");
+            w.println("  detections.csv, repeatability.csv, summary.json");
+            w.println("  overlays/            " + overlays.size() + " PNG images of detections on the reference and sample frames");
+            w.println("  target.json, camera.json, poses.json (inputs for 'targetbench render')");
+            w.println();
+            w.println("Safety: " + Safety.NOTICE);
+            w.flush();
+        }
+        return 0;
+    }
+}

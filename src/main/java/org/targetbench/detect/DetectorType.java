@@ -1,0 +1,44 @@
+package org.targetbench.detect;
+
+import java.util.Arrays;
+import java.util.Locale;
+import java.util.stream.Collectors;
+
+/** The point detectors on the bench. */
+public enum DetectorType {
+    /** Harris &amp; Stephens 1988 corner response det(M) - k trace(M)². */
+    HARRIS("harris", "Harris"),
+    /** Shi &amp; Tomasi 1994 minimum-eigenvalue corner response. */
+    SHI_TOMASI("shi-tomasi", "Shi-Tomasi"),
+    /** Rosten &amp; Drummond 2006 FAST segment test, both polarities. */
+    FAST("fast", "FAST"),
+    /** Bay et al. 2008 Fast-Hessian blob detector (the detector stage of SURF). */
+    SURF("surf", "SURF-style"),
+    /** Lowe 2004 difference-of-Gaussian extrema (the detector stage of SIFT). */
+    SIFT("sift", "SIFT-style");
+
+    private final String cliName;
+    private final String label;
+
+    DetectorType(String cliName, String label) {
+        this.cliName = cliName;
+        this.label = label;
+    }
+
+    /** Name used on the command line and in CSV files. */
+    public String cliName() { return cliName; }
+
+    /** Name shown to people. */
+    public String label() { return label; }
+
+    /** Parses a command-line name, case-insensitive. */
+    public static DetectorType parse(String name) {
+        String n = name.trim().toLowerCase(Locale.ROOT);
+        for (DetectorType t : values()) if (t.cliName.equals(n)) return t;
+        throw new IllegalArgumentException("unknown detector \"" + name.trim() + "\"; choose from " + allNames());
+    }
+
+    public static String allNames() {
+        return Arrays.stream(values()).map(DetectorType::cliName).collect(Collectors.joining(", "));
+    }
+}

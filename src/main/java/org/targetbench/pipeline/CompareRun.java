@@ -1,0 +1,176 @@
+package org.targetbench.pipeline;
+
+import org.targetbench.camera.Homography;
+import org.targetbench.detect.Detection;
+import org.targetbench.detect.DetectorConfig;
+import org.targetbench.detect.DetectorType;
+import org.targetbench.detect.Detectors;
+import org.targetbench.detect.PointDetector;
+import org.targetbench.score.Localisation;
+import org.targetbench.score.LocalisationResult;
+import org.targetbench.score.Repeatability;
+import org.targetbench.score.RepeatabilityResult;
+import org.targetbench.score.Spread;
+import org.targetbench.source.FrameSource;
+import org.targetbench.source.SourceException;
+import org.targetbench.source.SourceFrame;
+
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.OptionalDouble;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
+import java.util.concurrent.atomic.AtomicInteger;
+
+/**
+ * The detector comparison shared by the CLI and the app: every configured detector on every frame of a source,
+ * scored for repeatability against the reference frame (where a homography is known), localisation (where true
+ * feature positions are known) and spread.
+ *
+ * <p>Frames are read one at a time; detection runs on a pool with one worker per core, each worker holding its own
+ * detector instances. Results do not depend on the number of workers.
+ */
+public final class CompareRun {
+    /** Ranking: mean repeatability (undefined last), then fraction of true features found, then mean count. */
+    public static final Comparator<DetectorSummary> RANKING = Comparator
+            .comparingDouble((DetectorSummary s) -> s.meanRepeatability().orElse(-1)).reversed()
+            .thenComparing(Comparator.comparingDouble((DetectorSummary s) -> Double.isNaN(s.localisation().foundFraction()) ? -1 : s.localisation().foundFraction()).reversed())
+            .thenComparing(Comparator.comparingDouble(DetectorSummary::meanCount).reversed());
+    /** Frames kept for overlays, the reference included. */
+    public static final int SAMPLE_FRAMES = 3;
+
+    private final List<DetectorConfig> configs;
+    private final double epsilon;
+    private final int threads;
+
+    public CompareRun(List<DetectorConfig> configs, double epsilon, int threads) {
+        if (configs.isEmpty()) throw new IllegalArgumentException("at least one detector is needed");
+        if (!(epsilon > 0) || !Double.isFinite(epsilon)) throw new IllegalArgumentException("epsilon must be > 0 px, got " + epsilon);
+        if (threads < 1) throw new IllegalArgumentException("threads must be >= 1, got " + threads);
+        for (DetectorConfig c : configs) c.checkValidity();
+        this.configs = configs.stream().map(DetectorConfig::copy).toList();
+        this.epsilon = epsilon;
+        this.threads = threads;
+    }
+
+    public CompareRun(List<DetectorConfig> configs, double epsilon) {
+        this(configs, epsilon, Runtime.getRuntime().availableProcessors());
+    }
+
+    /** A frame without its pixels: scoring needs only its identity and truth. */
+    private record FrameInfo(int index, String name, org.targetbench.source.FrameTruth truth) {}
+
+    private record Raw(FrameInfo frame, DetectorType type, List<Detection> detections, double millis) {}
+
+    public CompareResult run(FrameSource source, Progress progress) throws SourceException, InterruptedException {
+        int total = source.frameCount();
+        ExecutorService pool = Executors.newFixedThreadPool(threads, r -> {
+            Thread t = new Thread(r, "targetbench-detect");
+            t.setDaemon(true);
+            return t;
+        });
+        List<ThreadLocal<PointDetector>> detectors = configs.stream()
+                .map(c -> ThreadLocal.withInitial(() -> Detectors.create(c))).toList();
+        List<Future<Raw>> futures = new ArrayList<>();
+        List<FrameInfo> frames = new ArrayList<>();
+        List<SourceFrame> samples = new ArrayList<>();
+        String refName = source.referenceName();
+        AtomicInteger done = new AtomicInteger();
+        try {
+            Optional<SourceFrame> next;
+            while ((next = source.next()).isPresent()) {
+                SourceFrame f = next.get();
+                FrameInfo info = new FrameInfo(f.index(), f.name(), f.truth());
+                frames.add(info);
+                // keep pixels only of the reference and the first few frames, for overlays
+                boolean isRef = f.name().equals(refName);
+                if (isRef || samples.size() < SAMPLE_FRAMES - 1) samples.add(f);
+                for (int d = 0; d < configs.size(); d++) {
+                    ThreadLocal<PointDetector> det = detectors.get(d);
+                    futures.add(pool.submit(() -> {
+                        long t0 = System.nanoTime();
+                        PointDetector pd = det.get();
+                        List<Detection> found = pd.detect(f.image());
+                        Raw raw = new Raw(info, pd.type(), found, (System.nanoTime() - t0) / 1e6);
+                        int n = done.incrementAndGet();
+                        if (n % configs.size() == 0) progress.update(n / configs.size(), total, "frame " + f.name());
+                        return raw;
+                    }));
+                }
+            }
+            List<Raw> raws = new ArrayList<>();
+            for (Future<Raw> fu : futures) raws.add(fu.get());
+            return score(source, frames, samples, raws);
+        } catch (ExecutionException e) {
+            Throwable c = e.getCause();
+            if (c instanceof RuntimeException re) throw re;
+            if (c instanceof Error er) throw er;
+            throw new IllegalStateException(c);
+        } finally {
+            pool.shutdownNow();
+        }
+    }
+
+    private CompareResult score(FrameSource source, List<FrameInfo> frames, List<SourceFrame> samples, List<Raw> raws)
+            throws SourceException {
+        if (frames.isEmpty()) throw new SourceException("the source delivered no frames: " + source.description());
+        String refName = source.referenceName();
+        FrameInfo ref = frames.stream().filter(f -> f.name().equals(refName)).findFirst()
+                .orElseThrow(() -> new SourceException("reference frame " + refName + " was not delivered by " + source.description()));
+        Map<DetectorType, List<Raw>> byDetector = new LinkedHashMap<>();
+        for (Raw r : raws) byDetector.computeIfAbsent(r.type(), k -> new ArrayList<>()).add(r);
+        int w = source.width(), h = source.height();
+        List<FrameScore> scores = new ArrayList<>();
+        List<DetectorSummary> summaries = new ArrayList<>();
+        for (var e : byDetector.entrySet()) {
+            List<Raw> list = e.getValue();
+            List<Detection> refDet = list.stream().filter(r -> r.frame() == ref).findFirst().orElseThrow().detections();
+            List<Double> reps = new ArrayList<>();
+            List<double[]> dists = new ArrayList<>();
+            int nTrue = 0;
+            double countSum = 0, hullSum = 0, occSum = 0, msSum = 0;
+            for (Raw r : list) {
+                FrameInfo f = r.frame();
+                Optional<RepeatabilityResult> rep = Optional.empty();
+                Optional<Homography> hm = f.truth().fromReference();
+                if (f != ref && hm.isPresent()) {
+                    RepeatabilityResult rr = Repeatability.score(refDet, r.detections(), hm.get(), w, h, w, h, epsilon);
+                    rep = Optional.of(rr);
+                    rr.repeatability().ifPresent(reps::add);
+                }
+                Optional<LocalisationResult> loc = Optional.empty();
+                double[] d = new double[0];
+                if (!f.truth().features().isEmpty()) {
+                    d = Localisation.distances(f.truth().features(), r.detections(), Localisation.DEFAULT_RADIUS);
+                    loc = Optional.of(Localisation.summarise(d, f.truth().features().size()));
+                    dists.add(d);
+                    nTrue += f.truth().features().size();
+                }
+                var spread = Spread.score(r.detections(), w, h);
+                scores.add(new FrameScore(r.type(), f.index(), f.name(), r.detections(), rep, loc, d, spread));
+                countSum += r.detections().size();
+                hullSum += spread.hullAreaFraction();
+                occSum += spread.cellOccupancy();
+                msSum += r.millis();
+            }
+            double[] pooled = dists.stream().flatMapToDouble(java.util.Arrays::stream).toArray();
+            int n = list.size();
+            summaries.add(new DetectorSummary(e.getKey(),
+                    reps.isEmpty() ? OptionalDouble.empty() : reps.stream().mapToDouble(Double::doubleValue).average(),
+                    reps.isEmpty() ? OptionalDouble.empty() : reps.stream().mapToDouble(Double::doubleValue).min(),
+                    reps.size(), countSum / n, Localisation.summarise(pooled, nTrue), hullSum / n, occSum / n, msSum / n));
+        }
+        summaries.sort(RANKING);
+        samples.sort(Comparator.comparing((SourceFrame f) -> !f.name().equals(refName)).thenComparingInt(SourceFrame::index));
+        int withH = (int) frames.stream().filter(f -> f != ref && f.truth().fromReference().isPresent()).count();
+        int withPts = (int) frames.stream().filter(f -> !f.truth().features().isEmpty()).count();
+        return new CompareResult(source.description(), w, h, refName, epsilon, frames.size(), withH, withPts,
+                configs, summaries, scores, samples);
+    }
+}
