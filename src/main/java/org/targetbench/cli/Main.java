@@ -39,6 +39,7 @@ public final class Main implements Runnable {
             PrintWriter err = cmd.getErr();
             if (ex instanceof UserError || ex instanceof SourceException || ex instanceof OutputException) {
                 err.println("targetbench: error: " + ex.getMessage());
+                err.flush();
                 return EXIT_BAD_INPUT;
             }
             if (ex instanceof InterruptedException) {
@@ -53,8 +54,9 @@ public final class Main implements Runnable {
         });
         cl.setParameterExceptionHandler((ex, args) -> {
             PrintWriter err = ex.getCommandLine().getErr();
-            err.println("targetbench: error: " + ex.getMessage());
-            err.println("(run '" + ex.getCommandLine().getCommandSpec().qualifiedName() + " --help' for usage)");
+            err.println("targetbench: error: " + ex.getMessage().replaceAll("\\s+", " ").trim()
+                    + " (see '" + ex.getCommandLine().getCommandSpec().qualifiedName() + " --help')");
+            err.flush();
             return EXIT_BAD_INPUT;
         });
         return cl;

@@ -58,7 +58,8 @@ final class CornerDetector implements PointDetector {
         detector.process(image, dx, dy, null, null, null);
         GrayF32 r = detector.getIntensity();
         double strongest = ImageStatistics.max(r);
-        double cut = config.thresholdMode == ThresholdMode.RELATIVE ? config.threshold * strongest : config.threshold;
+        double cut = Math.max(config.minResponse,
+                config.thresholdMode == ThresholdMode.RELATIVE ? config.threshold * strongest : config.threshold);
         QueueCorner peaks = detector.getMaximums();
         List<Detection> candidates = new ArrayList<>(peaks.size);
         for (int i = 0; i < peaks.size; i++) {

@@ -12,6 +12,11 @@ public abstract class DetectorConfig {
     public double threshold = 0.01;
     /** How {@link #threshold} is read; relative by default. */
     public ThresholdMode thresholdMode = ThresholdMode.RELATIVE;
+    /**
+     * Absolute floor on the response, in the detector's units, applied on top of a relative threshold: below it a
+     * response is numerical noise (a flat frame must give no points). 0 for none.
+     */
+    public double minResponse = 0;
 
     public abstract DetectorType type();
 
@@ -24,6 +29,8 @@ public abstract class DetectorConfig {
         if (nmsRadius < 1) throw new IllegalArgumentException(type().cliName() + ": nmsRadius must be >= 1 px, got " + nmsRadius);
         if (!Double.isFinite(threshold) || threshold < 0)
             throw new IllegalArgumentException(type().cliName() + ": threshold must be finite and >= 0, got " + threshold);
+        if (!Double.isFinite(minResponse) || minResponse < 0)
+            throw new IllegalArgumentException(type().cliName() + ": minResponse must be finite and >= 0, got " + minResponse);
         if (thresholdMode == ThresholdMode.RELATIVE && threshold > 1)
             throw new IllegalArgumentException(type().cliName() + ": a relative threshold must be within 0..1, got " + threshold);
     }
@@ -33,6 +40,7 @@ public abstract class DetectorConfig {
         other.nmsRadius = nmsRadius;
         other.threshold = threshold;
         other.thresholdMode = thresholdMode;
+        other.minResponse = minResponse;
         return other;
     }
 

@@ -29,13 +29,14 @@ public final class Detectors {
 
     /**
      * Applies the threshold and the feature limit to raw candidates: drops responses below the threshold (relative
-     * to the strongest candidate's response, or absolute), sorts strongest first and keeps at most maxFeatures.
+     * to the strongest candidate's response, or absolute) or below {@code minResponse}, sorts strongest first and keeps at most maxFeatures.
      * Ties are broken by row, then column, so the result is deterministic.
      *
      * @param strongest the frame's strongest response, the base of a relative threshold
      */
     static List<Detection> select(List<Detection> candidates, DetectorConfig config, double strongest) {
-        double cut = config.thresholdMode == ThresholdMode.RELATIVE ? config.threshold * strongest : config.threshold;
+        double cut = Math.max(config.minResponse,
+                config.thresholdMode == ThresholdMode.RELATIVE ? config.threshold * strongest : config.threshold);
         List<Detection> kept = new ArrayList<>();
         for (Detection d : candidates) if (d.response() > 0 && d.response() >= cut) kept.add(d);
         kept.sort(Comparator.comparingDouble(Detection::response).reversed()

@@ -16,6 +16,8 @@ public final class SiftConfig extends DetectorConfig {
     public SiftConfig() {
         threshold = 0.02;
         nmsRadius = 1;
+        // half a grey level of DoG contrast: below that an extremum is quantisation noise (common practice, no source)
+        minResponse = 0.5;
     }
 
     @Override public DetectorType type() { return DetectorType.SIFT; }
