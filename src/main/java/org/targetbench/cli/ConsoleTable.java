@@ -15,19 +15,18 @@ final class ConsoleTable {
                 r.frameCount(), r.width(), r.height(), r.sourceDescription(), r.referenceName(), r.epsilon(),
                 r.framesWithHomography(), r.framesWithPoints());
         out.println();
-        out.printf(Locale.ROOT, "%-4s %-12s %8s %8s %7s %8s %9s %7s %8s %8s%n",
-                "rank", "detector", "repeat.", "worst", "frames", "pts/frm", "loc RMS", "found", "cover", "ms/frm");
+        out.printf(Locale.ROOT, "%-4s %-12s %8s %8s %7s %8s %9s %7s %8s%n",
+                "rank", "detector", "repeat.", "worst", "frames", "pts/frm", "loc RMS", "found", "cover");
         int rank = 1;
         for (DetectorSummary s : r.ranked()) {
-            out.printf(Locale.ROOT, "%-4d %-12s %8s %8s %7d %8.1f %9s %7s %8s %8.1f%n",
+            out.printf(Locale.ROOT, "%-4d %-12s %8s %8s %7d %8.1f %9s %7s %8s%n",
                     rank++, s.detector().label(),
                     s.meanRepeatability().isPresent() ? String.format(Locale.ROOT, "%.3f", s.meanRepeatability().getAsDouble()) : "-",
                     s.minRepeatability().isPresent() ? String.format(Locale.ROOT, "%.3f", s.minRepeatability().getAsDouble()) : "-",
                     s.framesScored(), s.meanCount(),
                     Double.isNaN(s.localisation().rmsPx()) ? "-" : String.format(Locale.ROOT, "%.3f px", s.localisation().rmsPx()),
                     Double.isNaN(s.localisation().foundFraction()) ? "-" : String.format(Locale.ROOT, "%.0f%%", 100 * s.localisation().foundFraction()),
-                    String.format(Locale.ROOT, "%.0f%%", 100 * s.meanOccupancy()),
-                    s.meanMillisPerFrame());
+                    String.format(Locale.ROOT, "%.0f%%", 100 * s.meanOccupancy()));
         }
         out.println();
         out.println("repeat. = mean repeatability over frames with a homography (Schmid et al. 2000); worst = lowest frame;");

@@ -93,7 +93,7 @@ public final class CompareWriter {
             putNum(lo, "median_px", l.medianPx());
             putNum(lo, "p95_px", l.p95Px());
             o.putObject("spread").put("mean_hull_fraction", s.meanHullFraction()).put("mean_cell_occupancy", s.meanOccupancy());
-            o.put("mean_ms_per_frame", s.meanMillisPerFrame());
+            o.put("mean_ms_per_frame_in_run", s.meanMillisPerFrame());
         }
         ObjectNode cfg = root.putObject("detectors");
         for (DetectorConfig c : r.configs()) cfg.set(c.type().cliName(), MAPPER.valueToTree(c));

@@ -12,13 +12,13 @@ import java.util.List;
 
 /**
  * The built-in demo scenario, invented for this tool: a checkerboard target clamped to the fixture plate of a small
- * machining cell, watched by a VGA camera on the arm's flange from about 0.35 m while the arm moves through the views
+ * machining cell, watched by a VGA camera on the arm's flange from about 0.25 m while the arm moves through the views
  * a commissioning engineer would try (square on, tilted towards the spindle, rolled, nearer and further).
  * The plate behind the target is mid-grey machined steel; the cell light is fairly flat with mild sensor noise.
  */
 public final class DemoScenario {
     /** Stand-off of the reference view, metres. */
-    public static final double STANDOFF_M = 0.35;
+    public static final double STANDOFF_M = 0.25;
 
     private DemoScenario() {}
 
@@ -52,17 +52,17 @@ public final class DemoScenario {
         double w = t.widthMm(), h = t.heightMm();
         List<Pose> p = new ArrayList<>();
         p.add(Pose.facing(w, h, STANDOFF_M, 0, 0, 0, 0, 0));
-        p.add(Pose.facing(w, h, STANDOFF_M, 0, 0, 0, 0.012, -0.008));
+        p.add(Pose.facing(w, h, STANDOFF_M, 0, 0, 0, 0.009, -0.006));
         p.add(Pose.facing(w, h, STANDOFF_M, 10, 0, 0, 0, 0));
         p.add(Pose.facing(w, h, STANDOFF_M, 0, 20, 0, 0, 0));
-        p.add(Pose.facing(w, h, STANDOFF_M, -15, 15, 0, 0.01, 0.01));
-        p.add(Pose.facing(w, h, STANDOFF_M, 0, -30, 0, -0.01, 0));
-        p.add(Pose.facing(w, h, STANDOFF_M, 40, 0, 0, 0, 0.005));
+        p.add(Pose.facing(w, h, STANDOFF_M, -15, 15, 0, 0.007, 0.007));
+        p.add(Pose.facing(w, h, STANDOFF_M, 0, -30, 0, -0.007, 0));
+        p.add(Pose.facing(w, h, STANDOFF_M, 40, 0, 0, 0, 0.004));
         p.add(Pose.facing(w, h, STANDOFF_M, 0, 0, 15, 0, 0));
         p.add(Pose.facing(w, h, STANDOFF_M, 0, 0, -45, 0, 0));
         p.add(Pose.facing(w, h, STANDOFF_M, 5, 5, 90, 0, 0));
-        p.add(Pose.facing(w, h, 0.28, 0, 0, 0, 0, 0));
-        p.add(Pose.facing(w, h, 0.45, 0, 10, 0, 0, 0));
+        p.add(Pose.facing(w, h, 0.21, 0, 0, 0, 0, 0));
+        p.add(Pose.facing(w, h, 0.33, 0, 10, 0, 0, 0));
         return p;
     }
 
