@@ -35,7 +35,7 @@ final class FastHessianDetector implements PointDetector {
         ConfigFastHessian c = new ConfigFastHessian();
         c.extract.threshold = 0;
         c.extract.radius = config.nmsRadius;
-        c.maxFeaturesPerScale = -1;
+        c.maxFeaturesPerScale = config.maxPerScale > 0 ? config.maxPerScale : -1;
         c.maxFeaturesAll = -1;
         c.numberOfOctaves = config.octaves;
         c.numberScalesPerOctave = config.scalesPerOctave;
