@@ -1,0 +1,188 @@
+package org.targetbench.pipeline;
+
+import boofcv.struct.image.GrayF32;
+import org.targetbench.camera.Homography;
+import org.targetbench.camera.Pose;
+import org.targetbench.camera.Projection;
+import org.targetbench.camera.Projection.ProjectedFeature;
+import org.targetbench.detect.Detection;
+import org.targetbench.detect.DetectorConfig;
+import org.targetbench.detect.DetectorType;
+import org.targetbench.detect.Detectors;
+import org.targetbench.detect.PointDetector;
+import org.targetbench.perturb.Perturbation;
+import org.targetbench.perturb.Perturbed;
+import org.targetbench.perturb.Perturber;
+import org.targetbench.score.Localisation;
+import org.targetbench.score.Repeatability;
+import org.targetbench.score.RepeatabilityResult;
+import org.targetbench.score.Spread;
+
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.OptionalDouble;
+import java.util.concurrent.ConcurrentLinkedQueue;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
+import java.util.concurrent.atomic.AtomicInteger;
+import java.util.function.BooleanSupplier;
+
+/**
+ * The stress sweep shared by the CLI and the app: detectors x parameters x levels x base frames. Each cell degrades
+ * one base frame by one parameter at one level and scores every detector on it against the same detector on the
+ * unperturbed frame: repeatability (with the perturbation's homography as truth), localisation against the moved
+ * true features, count and coverage.
+ *
+ * <p>Cells are independent and run on a pool of worker threads; every random choice is seeded from the sweep seed
+ * and the cell's coordinates, so the result does not depend on thread count or timing. A tilt of a rendered base
+ * frame is re-rendered at the tilted pose (exact, with new perspective and sampling); without a design, or with a
+ * distorted camera, tilt is a homography warp ({@link Perturber}).
+ */
+public final class SweepRun {
+    private final SweepConfig config;
+
+    public SweepRun(SweepConfig config) {
+        config.checkValidity();
+        this.config = config;
+    }
+
+    /** Cells in a sweep of {@code base}. */
+    public int cellCount(SweepBase base) {
+        int n = 0;
+        for (Perturbation p : config.parameters) n += config.valuesOf(p).length;
+        return n * base.frames().size();
+    }
+
+    private record Cell(Perturbation p, int level, double value, int frame) {}
+
+    public SweepResult run(SweepBase base, Progress progress, BooleanSupplier cancelled) throws InterruptedException {
+        long t0 = System.nanoTime();
+        List<DetectorConfig> dets = config.detectors;
+        List<ThreadLocal<PointDetector>> detectors = dets.stream().map(c -> ThreadLocal.withInitial(() -> Detectors.create(c))).toList();
+        Perturber perturber = new Perturber(config.perturb);
+        ExecutorService pool = Executors.newFixedThreadPool(config.threads, r -> {
+            Thread t = new Thread(r, "targetbench-sweep");
+            t.setDaemon(true);
+            return t;
+        });
+        try {
+            // phase 1: every detector on every unperturbed frame
+            int nf = base.frames().size();
+            @SuppressWarnings("unchecked") List<Detection>[][] ref = new List[dets.size()][nf];
+            List<Future<?>> fs = new ArrayList<>();
+            for (int f = 0; f < nf; f++)
+                for (int d = 0; d < dets.size(); d++) {
+                    int ff = f, dd = d;
+                    fs.add(pool.submit(() -> ref[dd][ff] = detectors.get(dd).get().detect(base.frames().get(ff).image())));
+                }
+            waitAll(fs);
+            // phase 2: the cells
+            List<Cell> cells = new ArrayList<>();
+            Map<Perturbation, double[]> values = new LinkedHashMap<>();
+            for (Perturbation p : config.parameters) {
+                double[] v = config.valuesOf(p);
+                values.put(p, v);
+                for (int l = 0; l < v.length; l++)
+                    for (int f = 0; f < nf; f++) cells.add(new Cell(p, l, v[l], f));
+            }
+            ConcurrentLinkedQueue<SweepRow> rows = new ConcurrentLinkedQueue<>();
+            AtomicInteger done = new AtomicInteger();
+            fs.clear();
+            for (Cell c : cells)
+                fs.add(pool.submit(() -> {
+                    if (cancelled.getAsBoolean()) return;
+                    rows.addAll(runCell(c, base, perturber, detectors, ref));
+                    progress.update(done.incrementAndGet(), cells.size(), c.p().id() + " level " + c.level());
+                }));
+            waitAll(fs);
+            List<SweepRow> sorted = new ArrayList<>(rows);
+            List<DetectorType> order = dets.stream().map(DetectorConfig::type).toList();
+            sorted.sort(Comparator.comparingInt((SweepRow r) -> order.indexOf(r.detector()))
+                    .thenComparingInt(r -> config.parameters.indexOf(r.parameter()))
+                    .thenComparingInt(SweepRow::level).thenComparingInt(SweepRow::frame));
+            Map<DetectorType, List<Detection>> sample = new LinkedHashMap<>();
+            for (int d = 0; d < dets.size(); d++) sample.put(dets.get(d).type(), ref[d][0]);
+            var first = base.frames().get(0);
+            return new SweepResult(base.description(), dets, config.parameters, values, nf, config.seed, config.epsilon,
+                    sorted, cancelled.getAsBoolean() && done.get() < cells.size(), done.get(), cells.size(),
+                    (System.nanoTime() - t0) / 1e9, first.image(), first.truth(), sample);
+        } finally {
+            pool.shutdownNow();
+        }
+    }
+
+    private List<SweepRow> runCell(Cell c, SweepBase base, Perturber perturber, List<ThreadLocal<PointDetector>> detectors,
+                                   List<Detection>[][] ref) {
+        SweepBase.BaseFrame bf = base.frames().get(c.frame());
+        long seed = mix(config.seed, c.p().ordinal(), c.level(), c.frame());
+        GrayF32 image;
+        Homography warp;
+        List<ProjectedFeature> truth;
+        if (c.p() == Perturbation.TILT && base.scene().isPresent() && bf.facing().isPresent()
+                && !base.scene().get().camera().isDistorted()) {
+            SweepBase.Scene s = base.scene().get();
+            Pose from = bf.facing().get().pose(s.design(), 0), to = bf.facing().get().pose(s.design(), c.value());
+            var r = s.renderer().render(s.design(), to, seed);
+            image = r.image();
+            truth = r.features();
+            warp = Projection.referenceToFrame(s.camera(), from, to);
+        } else {
+            Perturbed p = perturber.apply(c.p(), c.value(), bf.image(), seed);
+            image = p.image();
+            warp = p.warp();
+            truth = moveTruth(bf.truth(), warp, image.width, image.height);
+        }
+        List<SweepRow> out = new ArrayList<>();
+        for (int d = 0; d < detectors.size(); d++) {
+            PointDetector det = detectors.get(d).get();
+            List<Detection> found = det.detect(image);
+            RepeatabilityResult rr = Repeatability.score(ref[d][c.frame()], found, warp, bf.image().width, bf.image().height,
+                    image.width, image.height, config.epsilon);
+            double loc = truth.isEmpty() ? Double.NaN : Localisation.score(truth, found, Localisation.DEFAULT_RADIUS).rmsPx();
+            out.add(new SweepRow(det.type(), c.p(), c.level(), c.value(), c.frame(), rr.repeatability(), loc, found.size(),
+                    Spread.score(found, image.width, image.height).cellOccupancy()));
+        }
+        return out;
+    }
+
+    /** True feature positions carried through a warp; those leaving the image are dropped. */
+    static List<ProjectedFeature> moveTruth(List<ProjectedFeature> truth, Homography warp, int w, int h) {
+        List<ProjectedFeature> out = new ArrayList<>();
+        for (ProjectedFeature f : truth) {
+            double[] m = warp.apply(f.u(), f.v());
+            if (m[0] >= 0 && m[1] >= 0 && m[0] <= w - 1 && m[1] <= h - 1) out.add(new ProjectedFeature(f.featureId(), m[0], m[1], f.depthM()));
+        }
+        return out;
+    }
+
+    /** SplitMix64 finaliser over the cell coordinates: a well-spread seed per cell. */
+    static long mix(long seed, long a, long b, long c) {
+        long z = seed + 0x9E3779B97F4A7C15L * (1 + a * 1_000_003L + b * 10_007L + c);
+        z = (z ^ (z >>> 30)) * 0xBF58476D1CE4E5B9L;
+        z = (z ^ (z >>> 27)) * 0x94D049BB133111EBL;
+        return z ^ (z >>> 31);
+    }
+
+    private static void waitAll(List<Future<?>> fs) throws InterruptedException {
+        for (Future<?> f : fs) {
+            try {
+                f.get();
+            } catch (ExecutionException e) {
+                Throwable t = e.getCause();
+                if (t instanceof RuntimeException re) throw re;
+                if (t instanceof Error er) throw er;
+                throw new IllegalStateException(t);
+            }
+        }
+    }
+
+    /** Mean of the defined repeatabilities in {@code rows}; empty when none is defined. */
+    public static OptionalDouble meanRepeatability(List<SweepRow> rows) {
+        return rows.stream().filter(r -> r.repeatability().isPresent()).mapToDouble(r -> r.repeatability().getAsDouble()).average();
+    }
+}
