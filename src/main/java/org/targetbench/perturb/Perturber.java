@@ -2,7 +2,6 @@ package org.targetbench.perturb;
 
 import boofcv.abst.distort.FDistort;
 import boofcv.alg.filter.blur.BlurImageOps;
-import boofcv.alg.filter.convolve.ConvolveImageNormalized;
 import boofcv.alg.interpolate.InterpolationType;
 import boofcv.alg.distort.PixelTransformHomography_F32;
 import boofcv.struct.border.BorderType;
@@ -17,13 +16,17 @@ import java.util.SplittableRandom;
  * Applies one {@link Perturbation} at one value to a frame: a pure function of (frame, parameter, value, seed).
  *
  * <p>Every result is rounded and clipped to 0..255, as an 8-bit sensor saturates. Blur uses BoofCV's Gaussian blur
- * (kernel radius 3σ, renormalised at the border) and BoofCV convolution for motion blur; warps use BoofCV's bilinear
- * interpolation, and pixels with no source are filled with the frame's mean grey.
+ * (kernel radius ⌈3σ⌉, the common truncation, renormalised at the
+ * border); warps use BoofCV's bilinear
+ * interpolation, and pixels with no source are filled with the frame's mean grey. Motion blur visits only the
+ * kernel's non-zero taps.
  *
  * <p>Models and their sources:
  * <ul>
- *   <li>low light: exposure scaled by f; electrons n = f g K with K = {@link PerturbConfig#electronsPerGrey}; output
- *       (Poisson(n) + N(0, σ_read)) / K (photon transfer model, Janesick, "Photon Transfer", SPIE 2007 [1]);</li>
+ *   <li>low light: the frame as captured is the reference exposure (f = 1, unchanged); at f &lt; 1 its grey levels g
+ *       become a simulated sensor reading, electrons n = f g K with K = {@link PerturbConfig#electronsPerGrey} and
+ *       output (Poisson(n) + N(0, σ_read)) / K (photon transfer model, Janesick, "Photon Transfer", SPIE 2007 [1]);
+ *       the frame's own noise is not modelled, so noise appears abruptly below f = 1;</li>
  *   <li>motion blur: a line kernel of the stated length L at the stated angle, integrated by sub-sampling and
  *       normalised to sum 1 (box PSF of uniform linear motion, [2] sec. 5.6);</li>
  *   <li>JPEG: {@link JpegSimulation};</li>
@@ -54,7 +57,11 @@ public final class Perturber {
         switch (p) {
             case GAIN -> out = map(frame, g -> g * value);
             case OFFSET -> out = map(frame, g -> g + value);
-            case GAMMA -> out = map(frame, g -> 255 * Math.pow(Math.max(0, g) / 255.0, value));
+            case GAMMA -> {
+                double[] lut = new double[256];
+                for (int g = 0; g < 256; g++) lut[g] = 255 * Math.pow(g / 255.0, value);
+                out = map(frame, g -> g >= 0 && g <= 255 && g == Math.rint(g) ? lut[(int) g] : 255 * Math.pow(Math.max(0, g) / 255.0, value));
+            }
             case GRADIENT -> {
                 out = frame.createSameShape();
                 double span = Math.max(1, frame.width - 1);
@@ -62,8 +69,8 @@ public final class Perturber {
                     for (int x = 0; x < frame.width; x++)
                         out.unsafe_set(x, y, (float) (frame.unsafe_get(x, y) * (1 - value / 100.0 * x / span)));
             }
-            case LOW_LIGHT -> out = lowLight(frame, value, rng);
-            case DEFOCUS -> out = value == 0 ? frame.clone() : BlurImageOps.gaussian(frame, null, value, -1, null);
+            case LOW_LIGHT -> out = value == 1 ? frame.clone() : lowLight(frame, value, rng);
+            case DEFOCUS -> out = value == 0 ? frame.clone() : BlurImageOps.gaussian(frame, null, value, (int) Math.ceil(3 * value), null);
             case MOTION -> out = value == 0 ? frame.clone() : motionBlur(frame, value, config.motionAngleDeg);
             case GAUSSIAN_NOISE -> out = map(frame, g -> g + value * gaussian(rng));
             case SALT_PEPPER -> {
@@ -114,8 +121,8 @@ public final class Perturber {
     }
 
     /**
-     * Kernel of uniform linear motion of length {@code length} px at {@code angleDeg}: 64 samples per pixel of path,
-     * each splatted bilinearly, normalised to sum 1.
+     * Kernel of uniform linear motion of length {@code length} px at {@code angleDeg}, centred: 64 samples per pixel
+     * of path, each counted in the pixel that contains it, normalised to sum 1.
      */
     public static Kernel2D_F32 motionKernel(double length, double angleDeg) {
         if (!(length > 0)) throw new IllegalArgumentException("motion length must be > 0 px, got " + length);
@@ -126,23 +133,43 @@ public final class Perturber {
         int samples = Math.max(2, (int) Math.ceil(length * 64));
         for (int i = 0; i < samples; i++) {
             double t = -length / 2 + length * (i + 0.5) / samples;
-            double x = r + t * c, y = r + t * s;
-            int x0 = (int) Math.floor(x), y0 = (int) Math.floor(y);
-            double fx = x - x0, fy = y - y0;
-            k[y0 * w + x0] += (float) ((1 - fx) * (1 - fy));
-            k[y0 * w + x0 + 1] += (float) (fx * (1 - fy));
-            k[(y0 + 1) * w + x0] += (float) ((1 - fx) * fy);
-            k[(y0 + 1) * w + x0 + 1] += (float) (fx * fy);
+            // each sample of the path lands in the pixel whose square contains it: the kernel is the length of path
+            // inside each pixel, the box-integrated PSF of uniform motion
+            int x = (int) Math.round(r + t * c), y = (int) Math.round(r + t * s);
+            k[y * w + x] += 1f;
         }
-        double sum = 0;
-        for (float v : k) sum += v;
-        for (int i = 0; i < k.length; i++) k[i] /= (float) sum;
+        for (int i = 0; i < k.length; i++) k[i] /= samples;
         return new Kernel2D_F32(w, k);
     }
 
+    /**
+     * Convolution with the (sparse) motion kernel: only its non-zero taps are visited, and at the border the taps
+     * that fall outside are left out and the rest renormalised, as BoofCV's normalised convolution does.
+     */
     private static GrayF32 motionBlur(GrayF32 in, double length, double angleDeg) {
+        Kernel2D_F32 k = motionKernel(length, angleDeg);
+        int w = k.width, r = w / 2, n = 0;
+        int[] dx = new int[w * w], dy = new int[w * w];
+        float[] wt = new float[w * w];
+        for (int y = 0; y < w; y++)
+            for (int x = 0; x < w; x++) {
+                float v = k.data[y * w + x];
+                if (v > 0) { dx[n] = x - r; dy[n] = y - r; wt[n++] = v; }
+            }
         GrayF32 out = in.createSameShape();
-        ConvolveImageNormalized.convolve(motionKernel(length, angleDeg), in, out);
+        for (int y = 0; y < in.height; y++)
+            for (int x = 0; x < in.width; x++) {
+                double sum = 0, norm = 0;
+                boolean inside = x >= r && y >= r && x < in.width - r && y < in.height - r;
+                for (int i = 0; i < n; i++) {
+                    int sx = x + dx[i], sy = y + dy[i];
+                    if (inside || (sx >= 0 && sy >= 0 && sx < in.width && sy < in.height)) {
+                        sum += wt[i] * in.data[in.startIndex + sy * in.stride + sx];
+                        norm += wt[i];
+                    }
+                }
+                out.unsafe_set(x, y, (float) (sum / norm));
+            }
         return out;
     }
 

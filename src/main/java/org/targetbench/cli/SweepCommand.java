@@ -1,0 +1,167 @@
+package org.targetbench.cli;
+
+import org.targetbench.camera.CameraModel;
+import org.targetbench.export.AtomicOutput;
+import org.targetbench.export.SweepWriter;
+import org.targetbench.perturb.PerturbKind;
+import org.targetbench.perturb.Perturbation;
+import org.targetbench.pipeline.DemoScenario;
+import org.targetbench.pipeline.SweepBase;
+import org.targetbench.pipeline.SweepConfig;
+import org.targetbench.pipeline.SweepResult;
+import org.targetbench.pipeline.SweepRun;
+import org.targetbench.pipeline.SweepSummary;
+import org.targetbench.report.SweepReport;
+import org.targetbench.source.CameraFile;
+import org.targetbench.source.EnvelopeFile;
+import org.targetbench.source.TargetFile;
+import org.targetbench.target.TargetDesign;
+import picocli.CommandLine.ArgGroup;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.concurrent.Callable;
+
+@Command(name = "sweep", mixinStandardHelpOptions = true,
+        description = {"Stress sweep: degrades frames by lighting, blur, noise, JPEG and viewpoint in graded levels and scores "
+                + "every detector at each level against the undegraded frame.",
+                "Writes sweep.csv, ranking.csv and a self-contained report.html. Ctrl-C stops early and keeps what is done."})
+final class SweepCommand implements Callable<Integer> {
+    @Spec CommandSpec spec;
+
+    static final class Input {
+        @Option(names = "--target", paramLabel = "FILE", description = "Target design (target.json): base views are rendered with truth.")
+        Path target;
+
+        @Option(names = "--frames", paramLabel = "DIR", description = "Folder of PNG/JPEG frames to degrade instead.")
+        Path frames;
+    }
+
+    @ArgGroup(exclusive = true, multiplicity = "1")
+    Input input;
+
+    @Option(names = "--camera", paramLabel = "FILE", description = "Camera for --target (default: the demo's 640x480 flange camera).")
+    Path camera;
+
+    @Option(names = "--standoff", paramLabel = "M", description = "Distance of the rendered views, metres (default: where the target fills half the view).")
+    Double standoff;
+
+    @Option(names = "--truth", paramLabel = "FILE", description = "truth.json for --frames (true points are carried through the degradations).")
+    Path truth;
+
+    @Option(names = "--kinds", split = ",", paramLabel = "KIND",
+            description = "What to sweep: lighting, blur, noise, jpeg, viewpoint (each its main parameter), a parameter such as "
+                    + "blur.motion or lighting.gamma, a kind followed by .all, or all (default: the five kinds).")
+    List<String> kinds;
+
+    @Option(names = "--levels", paramLabel = "N", defaultValue = "8", description = "Levels per parameter, 2..32 (default: ${DEFAULT-VALUE}).")
+    int levels;
+
+    @Option(names = "--views", paramLabel = "N", defaultValue = "30", description = "Rendered base views for --target, or the most frames used from --frames (default: ${DEFAULT-VALUE}).")
+    int views;
+
+    @Option(names = "--envelope", paramLabel = "FILE", description = "Operating envelope: the harshest value of each parameter your cell will see (JSON).")
+    Path envelope;
+
+    @Option(names = "--seed", paramLabel = "S", defaultValue = "1", description = "Seed of every random choice (default: ${DEFAULT-VALUE}).")
+    long seed;
+
+    @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output folder, written atomically.")
+    Path out;
+
+    @Mixin DetectorOptions detectorOptions;
+
+    @Override
+    public Integer call() throws Exception {
+        SweepConfig cfg = new SweepConfig();
+        cfg.detectors = detectorOptions.configs();
+        cfg.parameters = parameters(kinds);
+        cfg.levels = levels;
+        cfg.seed = seed;
+        cfg.epsilon = detectorOptions.epsilon;
+        cfg.syntheticFrames = views;
+        try {
+            cfg.checkValidity();
+        } catch (IllegalArgumentException e) {
+            throw new UserError(e.getMessage().replace("levels must", "--levels must").replace("syntheticFrames must", "--views must"));
+        }
+        Map<Perturbation, Double> env = Map.of();
+        if (envelope != null) {
+            try {
+                env = SweepSummary.envelope(EnvelopeFile.read(envelope));
+            } catch (IllegalArgumentException e) {
+                throw new UserError(envelope + ": " + e.getMessage());
+            }
+        }
+        SweepBase base = base(cfg);
+        try (AtomicOutput output = AtomicOutput.open(out); SweepJob job = new SweepJob()) {
+            SweepResult r = new SweepRun(cfg).run(base, new ConsoleProgress("sweeping"), job::cancelled);
+            write(r, env, output);
+            output.commit();
+            PrintWriter w = spec.commandLine().getOut();
+            print(r, env, w);
+            w.println("Report: " + output.target().resolve("report.html"));
+            w.flush();
+            return r.cancelled() ? SweepJob.EXIT_CANCELLED : 0;
+        }
+    }
+
+    static void write(SweepResult r, Map<Perturbation, Double> env, AtomicOutput output) throws java.io.IOException {
+        SweepWriter.write(r, env, output);
+        SweepReport.write(r, env, output.file("report.html"));
+    }
+
+    static void print(SweepResult r, Map<Perturbation, Double> env, PrintWriter w) {
+        if (r.cancelled()) w.println("Stopped early: kept " + r.cellsDone() + " of " + r.cellsTotal() + " cells; figures cover those only.");
+        w.printf(java.util.Locale.ROOT, "%d cells (%d base frames) in %.1f s, %.1f cells/s%n", r.cellsDone(), r.baseFrames(), r.wallSeconds(),
+                r.cellsDone() / Math.max(1e-9, r.wallSeconds()));
+        w.println("Ranking over " + (env.isEmpty() ? "the whole swept range" : "the operating envelope") + " (score = mean repeatability under the weakest condition):");
+        for (var x : SweepSummary.rankEnvelope(r, env))
+            w.printf(java.util.Locale.ROOT, "  %d. %-11s %s   weakest: %s%n", x.rank(), x.detector().label(),
+                    Double.isNaN(x.score()) ? "  -  " : String.format(java.util.Locale.ROOT, "%.3f", x.score()),
+                    x.weakest() == null ? "-" : x.weakest().id());
+    }
+
+    private SweepBase base(SweepConfig cfg) throws Exception {
+        if (input.target != null) {
+            TargetDesign design = TargetFile.read(input.target);
+            CameraModel cam = camera != null ? CameraFile.read(camera) : DemoScenario.camera();
+            double d = standoff != null ? standoff : SweepBase.defaultStandoff(design, cam);
+            if (!(d > 0) || !Double.isFinite(d)) throw new UserError("--standoff must be > 0 m, got " + d);
+            return SweepBase.render(design, cam, DemoScenario.lighting(), d, views, seed);
+        }
+        if (camera != null || standoff != null) throw new UserError("--camera and --standoff go with --target, not --frames");
+        return FolderBase.read(input.frames, truth, views);
+    }
+
+    /** Parses --kinds into parameters, in the order given. */
+    static List<Perturbation> parameters(List<String> kinds) {
+        LinkedHashSet<Perturbation> out = new LinkedHashSet<>();
+        if (kinds == null || kinds.isEmpty()) {
+            for (PerturbKind k : PerturbKind.values()) out.add(Perturbation.primary(k));
+            return new ArrayList<>(out);
+        }
+        for (String k : kinds) {
+            String s = k.trim();
+            if (s.isEmpty()) continue;
+            try {
+                if (s.equalsIgnoreCase("all")) out.addAll(List.of(Perturbation.values()));
+                else if (s.toLowerCase(java.util.Locale.ROOT).endsWith(".all")) out.addAll(Perturbation.ofKind(PerturbKind.parse(s.substring(0, s.length() - 4))));
+                else out.add(Perturbation.parse(s));
+            } catch (IllegalArgumentException e) {
+                throw new UserError(e.getMessage());
+            }
+        }
+        if (out.isEmpty()) throw new UserError("--kinds names nothing to sweep; choose from " + PerturbKind.allNames());
+        return new ArrayList<>(out);
+    }
+}
