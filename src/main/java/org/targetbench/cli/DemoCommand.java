@@ -20,20 +20,39 @@ import picocli.CommandLine.Spec;
 
 import java.io.PrintWriter;
 import java.nio.file.Path;
+import java.util.Map;
 import java.util.concurrent.Callable;
+import org.targetbench.perturb.PerturbKind;
+import org.targetbench.perturb.Perturbation;
+import org.targetbench.pipeline.SweepBase;
+import org.targetbench.pipeline.SweepConfig;
+import org.targetbench.pipeline.SweepResult;
+import org.targetbench.pipeline.SweepRun;
 
 @Command(name = "demo", mixinStandardHelpOptions = true,
         description = {"Runs the bench on the built-in demo scenario: a checkerboard target on the fixture plate of a small "
                 + "machining cell, seen by the flange camera from twelve arm positions.",
-                "Renders the frames with ground truth, compares every detector on them, and writes the frames, the target, "
-                        + "camera and poses files, CSV and JSON results and overlay images."})
+                "Renders the frames with ground truth, compares every detector on them, runs a short stress sweep, and writes the "
+                        + "frames, the target, camera and poses files, CSV and JSON results, overlay images and the sweep report."})
 final class DemoCommand implements Callable<Integer> {
+    /** Size of the demo's short stress sweep: every kind's main parameter at this many levels on this many views. */
+    static final int SWEEP_LEVELS = 5, SWEEP_VIEWS = 3;
+
     @Spec CommandSpec spec;
 
     @Option(names = "--out", paramLabel = "DIR", defaultValue = "results/demo", description = "Output folder (default: ${DEFAULT-VALUE}).")
     Path out;
 
     @Mixin DetectorOptions detectorOptions;
+
+    static SweepConfig demoSweep(java.util.List<org.targetbench.detect.DetectorConfig> configs) {
+        SweepConfig c = new SweepConfig();
+        c.detectors = configs;
+        for (PerturbKind k : PerturbKind.values()) c.parameters.add(Perturbation.primary(k));
+        c.levels = SWEEP_LEVELS;
+        c.seed = 1;
+        return c;
+    }
 
     @Override
     public Integer call() throws Exception {
@@ -54,6 +73,12 @@ final class DemoCommand implements Callable<Integer> {
             }
             CompareWriter.write(result, output);
             var overlays = OverlayWriter.write(result, output);
+            SweepResult sweep;
+            try (SweepJob job = new SweepJob()) {
+                sweep = new SweepRun(demoSweep(configs)).run(SweepBase.render(DemoScenario.target(), DemoScenario.camera(),
+                        DemoScenario.lighting(), DemoScenario.STANDOFF_M, SWEEP_VIEWS, 1), new ConsoleProgress("stress sweep"), job::cancelled);
+                SweepCommand.write(sweep, Map.of(), output.sub("sweep"));
+            }
             output.commit();
             Path target = output.target();
             ConsoleTable.print(result, w);
@@ -63,6 +88,10 @@ final class DemoCommand implements Callable<Integer> {
             w.println("  detections.csv, repeatability.csv, summary.json");
             w.println("  overlays/            " + overlays.size() + " PNG images of detections on the reference and sample frames");
             w.println("  target.json, camera.json, poses.json (inputs for 'targetbench render')");
+            w.println("  sweep/report.html    stress sweep: " + sweep.parameters().size() + " conditions x " + SWEEP_LEVELS + " levels x "
+                    + SWEEP_VIEWS + " views (full sweep: targetbench sweep --target " + target.resolve("target.json") + " --out results/sweep)");
+            w.println();
+            SweepCommand.print(sweep, Map.of(), w);
             w.println();
             w.println("Safety: " + Safety.NOTICE);
             w.flush();

@@ -21,12 +21,30 @@ public final class AtomicOutput implements AutoCloseable {
     private final Path target;
     private final Path staging;
     private final boolean createdTarget;
+    /** Folder inside the output that {@link #file} resolves against ("" at the top); set on views made by {@link #sub}. */
+    private final String prefix;
+    private final AtomicOutput root;
     private boolean committed;
 
     private AtomicOutput(Path target, Path staging, boolean createdTarget) {
         this.target = target;
         this.staging = staging;
         this.createdTarget = createdTarget;
+        this.prefix = "";
+        this.root = this;
+    }
+
+    private AtomicOutput(AtomicOutput root, String prefix) {
+        this.target = root.target.resolve(prefix);
+        this.staging = root.staging;
+        this.createdTarget = false;
+        this.prefix = prefix;
+        this.root = root;
+    }
+
+    /** A view of this output whose files land in folder {@code folder}; committing and closing stay with this one. */
+    public AtomicOutput sub(String folder) {
+        return new AtomicOutput(root, prefix.isEmpty() ? folder : prefix + "/" + folder);
     }
 
     /**
@@ -57,7 +75,7 @@ public final class AtomicOutput implements AutoCloseable {
 
     /** Where to write the file that will become {@code target/relative}; parent folders are created. */
     public Path file(String relative) {
-        Path p = staging.resolve(relative).normalize();
+        Path p = staging.resolve(prefix.isEmpty() ? relative : prefix + "/" + relative).normalize();
         if (!p.startsWith(staging)) throw new IllegalArgumentException("output file must stay inside the output folder: " + relative);
         try {
             Files.createDirectories(p.getParent());
@@ -74,6 +92,7 @@ public final class AtomicOutput implements AutoCloseable {
 
     /** Moves every staged file into the output folder, replacing files of the same name. */
     public void commit() throws OutputException {
+        if (root != this) throw new IllegalStateException("commit the output folder itself, not a view of " + prefix);
         try (Stream<Path> s = Files.walk(staging)) {
             List<Path> files = s.filter(Files::isRegularFile).toList();
             for (Path f : files) {
@@ -95,7 +114,7 @@ public final class AtomicOutput implements AutoCloseable {
 
     @Override
     public void close() {
-        if (committed) return;
+        if (root != this || committed) return;
         deleteStaging();
         if (createdTarget) {
             try {
