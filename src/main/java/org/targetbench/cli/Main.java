@@ -15,7 +15,7 @@ import java.io.PrintWriter;
  */
 @Command(name = "targetbench", mixinStandardHelpOptions = true, versionProvider = Main.VersionProvider.class,
         description = "Bench for fiducial targets, point detectors and servo point sets of eye-in-hand visual servoing cells.",
-        subcommands = {DemoCommand.class, CompareCommand.class, SweepCommand.class, RenderCommand.class, CommandLine.HelpCommand.class})
+        subcommands = {DemoCommand.class, CompareCommand.class, SweepCommand.class, RenderCommand.class, AppCommand.class, CommandLine.HelpCommand.class})
 public final class Main implements Runnable {
     public static final int EXIT_BAD_INPUT = 2;
     public static final int EXIT_INTERNAL = 3;
@@ -63,7 +63,8 @@ public final class Main implements Runnable {
     }
 
     public static void main(String[] args) {
-        if (System.getProperty("java.awt.headless") == null) System.setProperty("java.awt.headless", "true");
+        // double-clicking the jar: no arguments, no terminal, a display -> the workbench
+        if (args.length == 0 && System.console() == null && org.targetbench.app.WorkbenchApp.canShowWindows()) args = new String[]{"app"};
         System.exit(commandLine().execute(args));
     }
 }

@@ -61,6 +61,15 @@ public final class SweepRun {
     private record Cell(Perturbation p, int level, double value, int frame) {}
 
     public SweepResult run(SweepBase base, Progress progress, BooleanSupplier cancelled) throws InterruptedException {
+        return run(base, progress, cancelled, rows -> { });
+    }
+
+    /**
+     * As {@link #run(SweepBase, Progress, BooleanSupplier)}, handing each finished cell's rows to {@code cellDone}
+     * (called from worker threads, in completion order) so that a screen can fill in as the sweep goes.
+     */
+    public SweepResult run(SweepBase base, Progress progress, BooleanSupplier cancelled,
+                           java.util.function.Consumer<List<SweepRow>> cellDone) throws InterruptedException {
         long t0 = System.nanoTime();
         List<DetectorConfig> dets = config.detectors;
         List<ThreadLocal<PointDetector>> detectors = dets.stream().map(c -> ThreadLocal.withInitial(() -> Detectors.create(c))).toList();
@@ -96,7 +105,9 @@ public final class SweepRun {
             for (Cell c : cells)
                 fs.add(pool.submit(() -> {
                     if (cancelled.getAsBoolean()) return;
-                    rows.addAll(runCell(c, base, perturber, detectors, ref));
+                    List<SweepRow> cellRows = runCell(c, base, perturber, detectors, ref);
+                    rows.addAll(cellRows);
+                    cellDone.accept(cellRows);
                     progress.update(done.incrementAndGet(), cells.size(), c.p().id() + " level " + c.level());
                 }));
             waitAll(fs);

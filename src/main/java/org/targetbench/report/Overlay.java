@@ -44,9 +44,15 @@ public final class Overlay {
         return img;
     }
 
-    /** Java2D puts pixel centres at +0.5, hence the shift applied by callers. */
-    private static void ring(Graphics2D g, double x, double y, Color c) {
-        double r = 4;
+    /**
+     * An outlined ring: a dark outline with the colour inside, readable on dark and light image areas. (x, y) are
+     * Java2D coordinates: Java2D puts pixel centres at +0.5, so callers shift image points by half a pixel.
+     */
+    public static void ring(Graphics2D g, double x, double y, Color c) {
+        ring(g, x, y, c, 4);
+    }
+
+    public static void ring(Graphics2D g, double x, double y, Color c, double r) {
         Ellipse2D e = new Ellipse2D.Double(x - r, y - r, 2 * r, 2 * r);
         g.setColor(Color.BLACK);
         g.setStroke(new BasicStroke(3f));
@@ -56,7 +62,8 @@ public final class Overlay {
         g.draw(e);
     }
 
-    private static void cross(Graphics2D g, double x, double y) {
+    /** An outlined cross marking a true feature position (Java2D coordinates, see {@link #ring}). */
+    public static void cross(Graphics2D g, double x, double y) {
         double r = 3;
         g.setStroke(new BasicStroke(2.5f));
         g.setColor(Color.BLACK);
@@ -68,7 +75,8 @@ public final class Overlay {
         g.draw(new Line2D.Double(x, y - r, x, y + r));
     }
 
-    private static void legend(Graphics2D g, Map<DetectorType, List<Detection>> detections, boolean truth) {
+    /** The legend box: one ring and label per detector with its point count, and the true-feature cross. */
+    public static void legend(Graphics2D g, Map<DetectorType, List<Detection>> detections, boolean truth) {
         g.setFont(new Font(Font.SANS_SERIF, Font.PLAIN, 12));
         int rows = detections.size() + (truth ? 1 : 0);
         int x = 8, y = 8, lh = 16, w = 170;

@@ -1,0 +1,124 @@
+package org.targetbench.app;
+
+import boofcv.struct.image.GrayF32;
+import org.targetbench.camera.Homography;
+import org.targetbench.camera.Projection.ProjectedFeature;
+import org.targetbench.detect.Detection;
+import org.targetbench.detect.DetectorConfig;
+import org.targetbench.detect.DetectorType;
+import org.targetbench.detect.Detectors;
+import org.targetbench.detect.PointDetector;
+import org.targetbench.perturb.Perturbation;
+import org.targetbench.perturb.Perturbed;
+import org.targetbench.perturb.Perturber;
+import org.targetbench.score.Localisation;
+import org.targetbench.score.Repeatability;
+import org.targetbench.score.Spread;
+import org.targetbench.source.SourceFrame;
+
+import javax.swing.SwingUtilities;
+import java.util.ArrayList;
+import java.util.EnumMap;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.atomic.AtomicLong;
+
+/**
+ * Runs every detector on the current frame, off the event-dispatch thread, whenever the frame, the detectors or
+ * the previewed degradation change; the newest request wins and stale results are dropped. Scores use the same
+ * functions as the command line: repeatability against the reference frame through the frame's homography (composed
+ * with a geometric degradation's warp), localisation against the moved true features, coverage.
+ */
+final class DetectionRunner implements Session.Listener {
+    /** Seed of the previewed degradation, so the same setting always shows the same noise. */
+    static final long PREVIEW_SEED = 1;
+
+    private final Session session;
+    private final ExecutorService worker = Executors.newSingleThreadExecutor(r -> {
+        Thread t = new Thread(r, "targetbench-live-detect");
+        t.setDaemon(true);
+        return t;
+    });
+    private final AtomicLong generation = new AtomicLong();
+    private final Map<DetectorType, PointDetector> detectors = new EnumMap<>(DetectorType.class);
+    private final Map<String, List<Detection>> referenceCache = new LinkedHashMap<>();
+    private int detectorsVersion = -1;
+    /** Bumped on the event-dispatch thread when the source changes; read by the worker. */
+    private volatile int sourceVersion;
+    /** Worker-thread copy of the source version its reference cache belongs to. */
+    private int seenSourceVersion;
+
+    DetectionRunner(Session session) {
+        this.session = session;
+        session.addListener(this);
+    }
+
+    @Override
+    public void changed(Session.Change c) {
+        if (c == Session.Change.DETECTIONS || c == Session.Change.SHOWN || !session.hasFrames()) return;
+        if (c == Session.Change.SOURCE) sourceVersion++;
+        int srcVersion = sourceVersion;
+        long gen = generation.incrementAndGet();
+        SourceFrame frame = session.frame(), ref = session.reference();
+        int index = session.frameIndex(), version = session.configVersion();
+        List<DetectorConfig> configs = session.configs();
+        Perturbation p = session.degrade();
+        double value = session.degradeValue();
+        worker.submit(() -> {
+            if (generation.get() != gen) return;
+            if (srcVersion != seenSourceVersion) {
+                referenceCache.clear();
+                seenSourceVersion = srcVersion;
+            }
+            Session.FrameDetections out = detect(frame, ref, index, configs, version, p, value);
+            SwingUtilities.invokeLater(() -> {
+                if (generation.get() == gen) session.setDetections(out);
+            });
+        });
+    }
+
+    private Session.FrameDetections detect(SourceFrame frame, SourceFrame ref, int index, List<DetectorConfig> configs, int version,
+                                           Perturbation p, double value) {
+        if (version != detectorsVersion) {
+            detectors.clear();
+            referenceCache.clear();
+            detectorsVersion = version;
+        }
+        GrayF32 shown = frame.image();
+        Homography warp = Homography.identity();
+        if (value != p.neutral()) {
+            Perturbed d = new Perturber().apply(p, value, frame.image(), PREVIEW_SEED);
+            shown = d.image();
+            warp = d.warp();
+        }
+        Optional<Homography> h = frame.truth().fromReference();
+        List<ProjectedFeature> truth = new ArrayList<>();
+        for (ProjectedFeature f : frame.truth().features()) {
+            double[] m = warp.apply(f.u(), f.v());
+            if (m[0] >= 0 && m[1] >= 0 && m[0] <= shown.width - 1 && m[1] <= shown.height - 1)
+                truth.add(new ProjectedFeature(f.featureId(), m[0], m[1], f.depthM()));
+        }
+        Map<DetectorType, List<Detection>> points = new LinkedHashMap<>();
+        Map<DetectorType, Session.FrameFigures> figures = new LinkedHashMap<>();
+        for (DetectorConfig c : configs) {
+            PointDetector det = detectors.computeIfAbsent(c.type(), t -> Detectors.create(c));
+            List<Detection> found = det.detect(shown);
+            points.put(c.type(), found);
+            double rep = Double.NaN;
+            if (h.isPresent()) {
+                List<Detection> refPts = referenceCache.computeIfAbsent(ref.name() + "/" + c.type(), k -> det.detect(ref.image()));
+                rep = Repeatability.score(refPts, found, warp.after(h.get()), ref.image().width, ref.image().height,
+                        shown.width, shown.height, Repeatability.DEFAULT_EPSILON).repeatability().orElse(Double.NaN);
+            }
+            double loc = truth.isEmpty() ? Double.NaN : Localisation.score(truth, found, Localisation.DEFAULT_RADIUS).rmsPx();
+            figures.put(c.type(), new Session.FrameFigures(found.size(), rep, Spread.score(found, shown.width, shown.height).cellOccupancy(), loc));
+        }
+        return new Session.FrameDetections(index, shown, points, figures);
+    }
+
+    void shutdown() { worker.shutdownNow(); }
+}

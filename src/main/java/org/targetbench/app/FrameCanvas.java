@@ -1,0 +1,159 @@
+package org.targetbench.app;
+
+import boofcv.struct.image.GrayF32;
+import org.targetbench.camera.Projection.ProjectedFeature;
+import org.targetbench.detect.Detection;
+import org.targetbench.detect.DetectorType;
+import org.targetbench.report.Overlay;
+import org.targetbench.report.Palette;
+import org.targetbench.source.ImageFiles;
+
+import javax.swing.JComponent;
+import java.awt.Color;
+import java.awt.Dimension;
+import java.awt.Graphics;
+import java.awt.Graphics2D;
+import java.awt.RenderingHints;
+import java.awt.event.MouseAdapter;
+import java.awt.event.MouseEvent;
+import java.awt.event.MouseWheelEvent;
+import java.awt.geom.AffineTransform;
+import java.awt.geom.Point2D;
+import java.awt.image.BufferedImage;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.function.Consumer;
+
+/**
+ * A frame with detections drawn over it: wheel to zoom about the cursor, drag to pan, double-click to fit. Points
+ * are outlined rings in each detector's colour (readable on dark and light areas), true features white crosses,
+ * with a legend. Optional extra markers (labelled points, for servo sets) and a click callback in image pixels.
+ */
+public final class FrameCanvas extends JComponent {
+    private BufferedImage image;
+    private Map<DetectorType, List<Detection>> points = Map.of();
+    private List<ProjectedFeature> truth = List.of();
+    private List<Marker> markers = List.of();
+    private double zoom = 1, panX, panY;
+    private boolean fitted;
+    private Point2D dragStart;
+    private Consumer<Point2D> clickListener;
+
+    /** A labelled marker in image pixels (pixel-centre convention). */
+    public record Marker(double x, double y, String label, Color colour) {}
+
+    public FrameCanvas(String name) {
+        setName(name);
+        setPreferredSize(new Dimension(660, 500));
+        setOpaque(true);
+        MouseAdapter mouse = new MouseAdapter() {
+            @Override public void mousePressed(MouseEvent e) { dragStart = e.getPoint(); }
+            @Override public void mouseDragged(MouseEvent e) {
+                if (dragStart == null) return;
+                panX += e.getX() - dragStart.getX();
+                panY += e.getY() - dragStart.getY();
+                dragStart = e.getPoint();
+                fitted = false;
+                repaint();
+            }
+            @Override public void mouseClicked(MouseEvent e) {
+                if (e.getClickCount() == 2) {
+                    fit();
+                } else if (clickListener != null && image != null) {
+                    clickListener.accept(toImage(e.getX(), e.getY()));
+                }
+            }
+            @Override public void mouseWheelMoved(MouseWheelEvent e) {
+                Point2D before = toImage(e.getX(), e.getY());
+                zoom = Math.max(0.1, Math.min(32, zoom * Math.pow(1.15, -e.getPreciseWheelRotation())));
+                panX = e.getX() - (before.getX() + 0.5) * zoom;
+                panY = e.getY() - (before.getY() + 0.5) * zoom;
+                fitted = false;
+                repaint();
+            }
+        };
+        addMouseListener(mouse);
+        addMouseMotionListener(mouse);
+        addMouseWheelListener(mouse);
+    }
+
+    public void setFrame(GrayF32 frame) {
+        boolean first = image == null || image.getWidth() != frame.width || image.getHeight() != frame.height;
+        image = ImageFiles.toBuffered(frame);
+        if (first || fitted) fit();
+        repaint();
+    }
+
+    public void setOverlay(Map<DetectorType, List<Detection>> points, List<ProjectedFeature> truth) {
+        this.points = new LinkedHashMap<>(points);
+        this.truth = List.copyOf(truth);
+        repaint();
+    }
+
+    public void setMarkers(List<Marker> markers) {
+        this.markers = List.copyOf(markers);
+        repaint();
+    }
+
+    /** Called with the image pixel (pixel-centre convention) of a single click. */
+    public void onClick(Consumer<Point2D> listener) { clickListener = listener; }
+
+    public boolean hasImage() { return image != null; }
+
+    /** Fits the frame to the component. */
+    public void fit() {
+        fitted = true;
+        if (image == null || getWidth() == 0) return;
+        zoom = Math.min(getWidth() / (double) image.getWidth(), getHeight() / (double) image.getHeight());
+        panX = (getWidth() - image.getWidth() * zoom) / 2;
+        panY = (getHeight() - image.getHeight() * zoom) / 2;
+        repaint();
+    }
+
+    /** Image pixel under a component point, pixel-centre convention. */
+    Point2D toImage(double x, double y) {
+        return new Point2D.Double((x - panX) / zoom - 0.5, (y - panY) / zoom - 0.5);
+    }
+
+    @Override
+    public void setBounds(int x, int y, int w, int h) {
+        super.setBounds(x, y, w, h);
+        if (fitted) fit();
+    }
+
+    @Override
+    protected void paintComponent(Graphics g0) {
+        Graphics2D g = (Graphics2D) g0.create();
+        try {
+            g.setColor(getBackground() != null ? getBackground().darker() : Color.DARK_GRAY);
+            g.fillRect(0, 0, getWidth(), getHeight());
+            if (image == null) {
+                g.setColor(Color.GRAY);
+                g.drawString("No frame loaded", 20, 30);
+                return;
+            }
+            AffineTransform saved = g.getTransform();
+            g.translate(panX, panY);
+            g.setRenderingHint(RenderingHints.KEY_INTERPOLATION,
+                    zoom >= 2 ? RenderingHints.VALUE_INTERPOLATION_NEAREST_NEIGHBOR : RenderingHints.VALUE_INTERPOLATION_BILINEAR);
+            g.drawImage(image, 0, 0, (int) Math.round(image.getWidth() * zoom), (int) Math.round(image.getHeight() * zoom), null);
+            g.setRenderingHint(RenderingHints.KEY_ANTIALIASING, RenderingHints.VALUE_ANTIALIAS_ON);
+            for (ProjectedFeature f : truth) Overlay.cross(g, (f.u() + 0.5) * zoom, (f.v() + 0.5) * zoom);
+            for (var e : points.entrySet())
+                for (Detection d : e.getValue()) Overlay.ring(g, (d.x() + 0.5) * zoom, (d.y() + 0.5) * zoom, Palette.of(e.getKey()));
+            for (Marker m : markers) {
+                double mx = (m.x() + 0.5) * zoom, my = (m.y() + 0.5) * zoom;
+                Overlay.ring(g, mx, my, m.colour(), 8);
+                g.setColor(Color.BLACK);
+                g.drawString(m.label(), (float) mx + 10, (float) my - 9);
+                g.setColor(Color.WHITE);
+                g.drawString(m.label(), (float) mx + 9, (float) my - 10);
+            }
+            g.setTransform(saved);
+            if (!points.isEmpty() || !truth.isEmpty()) Overlay.legend(g, points, !truth.isEmpty());
+        } finally {
+            g.dispose();
+        }
+    }
+}

@@ -1,0 +1,229 @@
+package org.targetbench.app;
+
+import org.targetbench.detect.DetectorType;
+import org.targetbench.perturb.Perturbation;
+import org.targetbench.source.SourceException;
+
+import javax.swing.BorderFactory;
+import javax.swing.Box;
+import javax.swing.BoxLayout;
+import javax.swing.JButton;
+import javax.swing.JCheckBox;
+import javax.swing.JComboBox;
+import javax.swing.JFileChooser;
+import javax.swing.JLabel;
+import javax.swing.JOptionPane;
+import javax.swing.JPanel;
+import javax.swing.JScrollPane;
+import javax.swing.JSlider;
+import javax.swing.JTable;
+import javax.swing.SwingWorker;
+import javax.swing.Timer;
+import javax.swing.table.DefaultTableModel;
+import java.awt.BorderLayout;
+import java.awt.Dimension;
+import java.nio.file.Path;
+import java.util.concurrent.ExecutionException;
+
+/**
+ * The live view: choose a source, play and step through it, see every chosen detector's points on the frame, and
+ * preview a degradation (lighting, blur, noise, JPEG, viewpoint) while the scores update.
+ */
+final class LiveView extends JPanel implements Session.Listener {
+    /** Playback rate, frames per second. */
+    static final int PLAY_FPS = 8;
+    /** Steps of the degradation slider over a parameter's default range. */
+    static final int SLIDER_STEPS = 100;
+
+    private final AppContext ctx;
+    private final Session session;
+    private final FrameCanvas canvas = new FrameCanvas("live.canvas");
+    private final JSlider frameSlider = Ui.named(new JSlider(0, 0, 0), "play.slider", "Frame of the source");
+    private final JLabel frameLabel = Ui.named(new JLabel("no source"), "play.label", null);
+    private final JButton playButton;
+    private final JCheckBox loop = Ui.named(new JCheckBox("Loop", true), "play.loop", "Start again at the end");
+    private final Timer timer;
+    private final JComboBox<Perturbation> degradeKind = Ui.named(new JComboBox<>(Perturbation.values()), "live.degrade.kind",
+            "Condition to preview on the frame");
+    private final JSlider degradeLevel = Ui.named(new JSlider(0, SLIDER_STEPS, 0), "live.degrade.level",
+            "Strength of the condition, from none (left) to the harshest of its default range (right)");
+    private final JLabel degradeLabel = new JLabel("off");
+    private final DefaultTableModel scores = new DefaultTableModel(new Object[]{"Detector", "Points", "Repeatability", "Coverage", "Loc. RMS"}, 0) {
+        @Override public boolean isCellEditable(int r, int c) { return false; }
+    };
+    private boolean updating;
+
+    LiveView(AppContext ctx) {
+        super(new BorderLayout(6, 6));
+        this.ctx = ctx;
+        this.session = ctx.session();
+        setName("view.live");
+        timer = new Timer(1000 / PLAY_FPS, e -> advance());
+        playButton = Ui.button("play.toggle", "Play", "Play or pause the source (Space)", this::togglePlay);
+
+        JPanel top = new JPanel(new BorderLayout());
+        top.add(Ui.row(
+                Ui.button("src.demo", "Demo scene", "Load the built-in scene: a checkerboard on the fixture plate seen from twelve arm positions", this::loadDemo),
+                Ui.button("src.folder", "Open frame folder...", "Load a folder of PNG/JPEG frames (with truth.json if present)", this::chooseFolder)),
+                BorderLayout.WEST);
+        add(top, BorderLayout.NORTH);
+
+        add(canvas, BorderLayout.CENTER);
+        JPanel playback = new JPanel(new BorderLayout());
+        playback.add(Ui.row(Ui.button("play.back", "<", "Previous frame (Left)", () -> session.setFrameIndex(session.frameIndex() - 1)),
+                playButton, Ui.button("play.step", ">", "Next frame (Right)", () -> session.setFrameIndex(session.frameIndex() + 1)), loop), BorderLayout.WEST);
+        playback.add(frameSlider, BorderLayout.CENTER);
+        playback.add(frameLabel, BorderLayout.EAST);
+        frameSlider.addChangeListener(e -> {
+            if (!updating) session.setFrameIndex(frameSlider.getValue());
+        });
+        add(playback, BorderLayout.SOUTH);
+        add(sidePanel(), BorderLayout.EAST);
+        session.addListener(this);
+    }
+
+    private JPanel sidePanel() {
+        JPanel side = new JPanel();
+        side.setLayout(new BoxLayout(side, BoxLayout.Y_AXIS));
+        side.setBorder(BorderFactory.createEmptyBorder(0, 6, 0, 6));
+        side.add(Ui.heading("Detectors"));
+        for (DetectorType t : DetectorType.values()) {
+            JCheckBox box = Ui.named(new JCheckBox(t.label(), session.shown().contains(t)), "det.show." + t.cliName(),
+                    "Draw " + t.label() + " points on the frame (every detector is scored either way)");
+            box.setIcon(null);
+            box.addActionListener(e -> session.setShown(t, box.isSelected()));
+            side.add(Ui.row(new JLabel(Ui.swatch(t)), box));
+        }
+        side.add(Ui.heading("Preview a condition"));
+        degradeKind.addActionListener(e -> applyDegrade());
+        degradeLevel.addChangeListener(e -> applyDegrade());
+        side.add(Ui.row(degradeKind));
+        side.add(Ui.row(degradeLevel));
+        side.add(Ui.row(degradeLabel, Ui.button("live.degrade.reset", "Reset", "Back to the frame as captured", () -> degradeLevel.setValue(0))));
+        side.add(Ui.heading("This frame"));
+        JTable table = Ui.named(new JTable(scores), "live.scores", null);
+        table.getTableHeader().setToolTipText("Points: " + Ui.TIP_COUNT + "  Repeatability: " + Ui.TIP_REPEATABILITY
+                + "  Coverage: " + Ui.TIP_COVERAGE + "  Loc. RMS: " + Ui.TIP_LOCALISATION);
+        JScrollPane sp = new JScrollPane(table);
+        sp.setPreferredSize(new Dimension(380, 130));
+        side.add(sp);
+        side.add(Box.createVerticalGlue());
+        return side;
+    }
+
+    private void applyDegrade() {
+        Perturbation p = (Perturbation) degradeKind.getSelectedItem();
+        if (p == null) return;
+        double t = degradeLevel.getValue() / (double) SLIDER_STEPS;
+        double v = p.neutral() + t * (p.to() - p.neutral());
+        if (p == Perturbation.JPEG_QUALITY) v = Math.rint(v);
+        degradeLabel.setText(t == 0 ? "off" : p.id() + " = " + Ui.fmt(v, 2) + " " + p.unit());
+        session.setDegrade(p, v);
+    }
+
+    void togglePlay() {
+        if (!session.hasFrames()) return;
+        if (timer.isRunning()) timer.stop();
+        else timer.start();
+        playButton.setText(timer.isRunning() ? "Pause" : "Play");
+    }
+
+    private void advance() {
+        int next = session.frameIndex() + 1;
+        if (next >= session.frames().size()) {
+            if (!loop.isSelected()) {
+                togglePlay();
+                return;
+            }
+            next = 0;
+        }
+        session.setFrameIndex(next);
+    }
+
+    void loadDemo() {
+        load("demo scene", SourceLoader::demo);
+    }
+
+    private void chooseFolder() {
+        JFileChooser fc = new JFileChooser(ctx.prefs().get("lastFolder", System.getProperty("user.dir")));
+        fc.setFileSelectionMode(JFileChooser.DIRECTORIES_ONLY);
+        fc.setDialogTitle("Folder of frames");
+        if (fc.showOpenDialog(ctx.window()) != JFileChooser.APPROVE_OPTION) return;
+        Path dir = fc.getSelectedFile().toPath();
+        ctx.prefs().put("lastFolder", dir.toString());
+        loadFolder(dir);
+    }
+
+    void loadFolder(Path dir) {
+        load(dir.toString(), () -> SourceLoader.folder(dir));
+    }
+
+    interface LoadJob {
+        SourceLoader.Loaded load() throws SourceException;
+    }
+
+    /** Loads a source off the event-dispatch thread; a bad source gives a message, never a dead window. */
+    void load(String what, LoadJob job) {
+        ctx.status().accept("Loading " + what + "...");
+        new SwingWorker<SourceLoader.Loaded, Void>() {
+            @Override protected SourceLoader.Loaded doInBackground() throws Exception { return job.load(); }
+            @Override protected void done() {
+                try {
+                    SourceLoader.Loaded l = get();
+                    session.setSource(l.name(), l.frames(), l.reference(), l.scene());
+                    ctx.prefs().put("lastSource", what);
+                    ctx.status().accept("Loaded " + l.frames().size() + " frames: " + l.name()
+                            + (l.truncated() ? " (first " + SourceLoader.MAX_FRAMES + " frames only)" : ""));
+                } catch (ExecutionException e) {
+                    String msg = e.getCause() == null ? e.toString() : e.getCause().getMessage();
+                    ctx.status().accept("Could not load " + what + ": " + msg);
+                    JOptionPane.showMessageDialog(ctx.window(), msg, "Could not load the source", JOptionPane.WARNING_MESSAGE);
+                } catch (InterruptedException e) {
+                    Thread.currentThread().interrupt();
+                }
+            }
+        }.execute();
+    }
+
+    @Override
+    public void changed(Session.Change c) {
+        switch (c) {
+            case SOURCE -> {
+                updating = true;
+                frameSlider.setMaximum(session.frames().size() - 1);
+                updating = false;
+            }
+            case FRAME -> {
+                updating = true;
+                frameSlider.setValue(session.frameIndex());
+                updating = false;
+                var f = session.frame();
+                frameLabel.setText(" " + (session.frameIndex() + 1) + "/" + session.frames().size() + "  " + f.name()
+                        + (session.frameIndex() == session.referenceIndex() ? " (reference)" : ""));
+                if (session.detections() == null) canvas.setFrame(f.image());
+            }
+            case SHOWN -> drawOverlay();
+            case DETECTIONS -> {
+                var d = session.detections();
+                canvas.setFrame(d.shown());
+                drawOverlay();
+                scores.setRowCount(0);
+                for (var e : d.figures().entrySet()) {
+                    var f = e.getValue();
+                    scores.addRow(new Object[]{e.getKey().label(), f.count(), Ui.fmt(f.repeatability(), 3), Ui.pct(f.coverage()), Ui.fmt(f.localisationPx(), 3)});
+                }
+            }
+            default -> { }
+        }
+    }
+
+    private void drawOverlay() {
+        var d = session.detections();
+        if (d == null) return;
+        java.util.Map<DetectorType, java.util.List<org.targetbench.detect.Detection>> pts = new java.util.LinkedHashMap<>();
+        for (var e : d.points().entrySet()) if (session.shown().contains(e.getKey())) pts.put(e.getKey(), e.getValue());
+        canvas.setOverlay(pts, session.frames().get(d.frameIndex()).truth().features());
+    }
+
+    FrameCanvas canvas() { return canvas; }
+}

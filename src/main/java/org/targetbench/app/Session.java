@@ -1,0 +1,154 @@
+package org.targetbench.app;
+
+import boofcv.struct.image.GrayF32;
+import org.targetbench.detect.Detection;
+import org.targetbench.detect.DetectorConfig;
+import org.targetbench.detect.DetectorType;
+import org.targetbench.perturb.Perturbation;
+import org.targetbench.source.SourceFrame;
+
+import javax.swing.SwingUtilities;
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.EnumMap;
+import java.util.EnumSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+import java.util.concurrent.CopyOnWriteArrayList;
+
+/**
+ * What the workbench is looking at: the loaded frames, the current and reference frame, the detectors and their
+ * settings, the degradation being previewed, and the latest detections of the current frame. Views edit it and
+ * listen to it; it holds no algorithm state and is touched on the event-dispatch thread only.
+ */
+public final class Session {
+    /** What changed. */
+    public enum Change { SOURCE, FRAME, DETECTORS, SHOWN, DEGRADE, DETECTIONS }
+
+    public interface Listener {
+        void changed(Change change);
+    }
+
+    /** The detections of one displayed frame and their figures against the reference frame. */
+    public record FrameDetections(int frameIndex, GrayF32 shown, Map<DetectorType, List<Detection>> points,
+                                  Map<DetectorType, FrameFigures> figures) {}
+
+    /**
+     * Per-detector figures of the displayed frame: repeatability against the reference frame (NaN when no homography
+     * is known), cell coverage, and the RMS localisation against true features (NaN without truth).
+     */
+    public record FrameFigures(int count, double repeatability, double coverage, double localisationPx) {}
+
+    private final List<Listener> listeners = new CopyOnWriteArrayList<>();
+    private List<SourceFrame> frames = List.of();
+    private String sourceName = "";
+    private int frameIndex;
+    private int referenceIndex;
+    private final EnumMap<DetectorType, DetectorConfig> configs = new EnumMap<>(DetectorType.class);
+    /** Detectors drawn over the frame (all are scored); a readable few by default. */
+    private final EnumSet<DetectorType> shown = EnumSet.of(DetectorType.SHI_TOMASI, DetectorType.FAST, DetectorType.SIFT);
+    private Perturbation degrade = Perturbation.GAIN;
+    private double degradeValue = Perturbation.GAIN.neutral();
+    private FrameDetections detections;
+    private int configVersion;
+
+    public Session() {
+        for (DetectorType t : DetectorType.values()) configs.put(t, DetectorConfig.defaults(t));
+    }
+
+    public void addListener(Listener l) { listeners.add(l); }
+
+    private void fire(Change c) {
+        if (!SwingUtilities.isEventDispatchThread()) throw new IllegalStateException("session changed off the event-dispatch thread");
+        for (Listener l : listeners) l.changed(c);
+    }
+
+    /** The design scene behind a rendered source, so that sweeps can re-render it. */
+    public record Scene(org.targetbench.target.TargetDesign design, org.targetbench.camera.CameraModel camera,
+                        org.targetbench.source.RenderConfig lighting, double standoffM) {}
+
+    private java.util.Optional<Scene> scene = java.util.Optional.empty();
+
+    /** The design scene of a rendered source, empty for frames from files or cameras. */
+    public java.util.Optional<Scene> scene() { return scene; }
+
+    /** Replaces the frames (all in memory); the first frame named {@code referenceName} becomes the reference. */
+    public void setSource(String name, List<SourceFrame> newFrames, String referenceName) {
+        setSource(name, newFrames, referenceName, java.util.Optional.empty());
+    }
+
+    public void setSource(String name, List<SourceFrame> newFrames, String referenceName, java.util.Optional<Scene> newScene) {
+        if (newFrames.isEmpty()) throw new IllegalArgumentException("a source needs at least one frame");
+        frames = List.copyOf(newFrames);
+        sourceName = name;
+        scene = newScene;
+        referenceIndex = 0;
+        for (int i = 0; i < frames.size(); i++) if (frames.get(i).name().equals(referenceName)) referenceIndex = i;
+        frameIndex = referenceIndex;
+        detections = null;
+        fire(Change.SOURCE);
+        fire(Change.FRAME);
+    }
+
+    public List<SourceFrame> frames() { return frames; }
+    public String sourceName() { return sourceName; }
+    public boolean hasFrames() { return !frames.isEmpty(); }
+    public int frameIndex() { return frameIndex; }
+    public int referenceIndex() { return referenceIndex; }
+    public SourceFrame frame() { return frames.get(frameIndex); }
+    public SourceFrame reference() { return frames.get(referenceIndex); }
+
+    public void setFrameIndex(int i) {
+        if (frames.isEmpty()) return;
+        int clamped = Math.max(0, Math.min(frames.size() - 1, i));
+        if (clamped == frameIndex) return;
+        frameIndex = clamped;
+        fire(Change.FRAME);
+    }
+
+    /** A copy of a detector's settings. */
+    public DetectorConfig config(DetectorType t) { return configs.get(t).copy(); }
+
+    public void setConfig(DetectorConfig c) {
+        c.checkValidity();
+        configs.put(c.type(), c.copy());
+        configVersion++;
+        fire(Change.DETECTORS);
+    }
+
+    public List<DetectorConfig> configs() {
+        List<DetectorConfig> out = new ArrayList<>();
+        for (DetectorType t : DetectorType.values()) out.add(configs.get(t).copy());
+        return out;
+    }
+
+    /** Grows whenever a detector's settings change, so cached detectors can be rebuilt. */
+    public int configVersion() { return configVersion; }
+
+    public Set<DetectorType> shown() { return Collections.unmodifiableSet(shown); }
+
+    public void setShown(DetectorType t, boolean on) {
+        if (on ? shown.add(t) : shown.remove(t)) fire(Change.SHOWN);
+    }
+
+    public Perturbation degrade() { return degrade; }
+    public double degradeValue() { return degradeValue; }
+
+    /** Previews a degradation of the displayed frame; the parameter's neutral value turns it off. */
+    public void setDegrade(Perturbation p, double value) {
+        p.checkValue(value);
+        if (p == degrade && value == degradeValue) return;
+        degrade = p;
+        degradeValue = value;
+        fire(Change.DEGRADE);
+    }
+
+    public FrameDetections detections() { return detections; }
+
+    /** Called by the detection runner with results for the current state. */
+    void setDetections(FrameDetections d) {
+        detections = d;
+        fire(Change.DETECTIONS);
+    }
+}

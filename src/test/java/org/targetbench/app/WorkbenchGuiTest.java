@@ -1,0 +1,149 @@
+package org.targetbench.app;
+
+import org.assertj.swing.core.BasicRobot;
+import org.assertj.swing.core.Robot;
+import org.assertj.swing.edt.GuiActionRunner;
+import org.assertj.swing.fixture.FrameFixture;
+import org.assertj.swing.timing.Condition;
+import org.junit.jupiter.api.AfterAll;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.TestMethodOrder;
+import org.junit.jupiter.api.MethodOrderer;
+import org.junit.jupiter.api.Order;
+
+import javax.imageio.ImageIO;
+import javax.swing.JLabel;
+import javax.swing.JTable;
+import java.awt.GraphicsEnvironment;
+import java.awt.image.BufferedImage;
+import java.io.File;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.function.Supplier;
+import java.util.prefs.Preferences;
+
+import static org.assertj.swing.timing.Pause.pause;
+import static org.assertj.swing.timing.Timeout.timeout;
+import static org.junit.jupiter.api.Assertions.*;
+import static org.junit.jupiter.api.Assumptions.assumeFalse;
+
+/**
+ * The workbench as a person uses it, under a real (virtual) display: it opens on the demo with points and scores,
+ * views switch, a sweep runs and can be cancelled. Skipped only where no display exists; CI runs it under Xvfb.
+ * Screenshots of each view are saved under target/screenshots/ for review.
+ */
+@TestMethodOrder(MethodOrderer.OrderAnnotation.class)
+class WorkbenchGuiTest {
+    /** Longest wait for background work in the window, milliseconds. */
+    static final long WAIT_MS = 60_000;
+    static final Path SHOTS = Path.of("target/screenshots");
+
+    static Robot robot;
+    static FrameFixture window;
+    static Workbench workbench;
+    static Preferences prefs;
+
+    @BeforeAll
+    static void open() throws Exception {
+        assumeFalse(GraphicsEnvironment.isHeadless(), "no display: GUI tests need one (CI runs them under Xvfb)");
+        prefs = Preferences.userRoot().node("org/targetbench/gui-test-" + ProcessHandle.current().pid());
+        robot = BasicRobot.robotWithNewAwtHierarchy();
+        workbench = WorkbenchApp.open(prefs);
+        window = new FrameFixture(robot, workbench);
+        Files.createDirectories(SHOTS);
+    }
+
+    @AfterAll
+    static void close() throws Exception {
+        if (window != null) {
+            GuiActionRunner.execute(() -> workbench.dispose());
+            robot.waitForIdle();
+            window.cleanUp();
+        }
+        if (prefs != null) prefs.removeNode();
+    }
+
+    static void waitFor(String what, Supplier<Boolean> test) {
+        pause(new Condition(what) {
+            @Override public boolean test() { return GuiActionRunner.execute(test::get); }
+        }, timeout(WAIT_MS));
+    }
+
+    static void shot(String name) throws Exception {
+        BufferedImage img = GuiActionRunner.execute(() -> {
+            BufferedImage b = new BufferedImage(workbench.getWidth(), workbench.getHeight(), BufferedImage.TYPE_INT_RGB);
+            workbench.getRootPane().paint(b.getGraphics());
+            return b;
+        });
+        ImageIO.write(img, "png", new File(SHOTS.toFile(), name + ".png"));
+    }
+
+    @Test
+    @Order(1)
+    void opensOnTheDemoWithPointsAndScores() throws Exception {
+        waitFor("demo loaded and scored", () -> workbench.session().detections() != null
+                && window.table("live.scores").target().getRowCount() == 5);
+        JTable t = window.table("live.scores").target();
+        assertEquals("Shi-Tomasi", GuiActionRunner.execute(() -> t.getValueAt(1, 0)));
+        assertTrue((Integer) GuiActionRunner.execute(() -> t.getValueAt(1, 1)) > 40, "Shi-Tomasi finds the corners");
+        window.label("status").requireText(java.util.regex.Pattern.compile("Loaded 12 frames.*"));
+        assertTrue(GuiActionRunner.execute(() -> window.panel("view.live").target().isShowing()));
+        shot("live");
+    }
+
+    @Test
+    @Order(2)
+    void stepsFramesAndPreviewsACondition() throws Exception {
+        window.button("play.step").click();
+        waitFor("second frame scored", () -> workbench.session().detections() != null && workbench.session().detections().frameIndex() == 1);
+        window.comboBox("live.degrade.kind").selectItem("blur.defocus");
+        window.slider("live.degrade.level").slideTo(80);
+        waitFor("blur applied", () -> workbench.session().degradeValue() > 3);
+        window.button("live.degrade.reset").click();
+        waitFor("blur off", () -> workbench.session().degradeValue() == 0);
+    }
+
+    @Test
+    @Order(3)
+    void switchesViews() throws Exception {
+        for (String view : workbench.viewNames()) {
+            window.list("nav").selectItem(view);
+            String panel = switch (view) {
+                case "Live" -> "view.live";
+                case "Compare" -> "view.compare";
+                case "Stress" -> "view.stress";
+                default -> throw new IllegalStateException(view);
+            };
+            waitFor(view + " showing", () -> window.panel(panel).target().isShowing());
+            pause(300);
+            shot(view.toLowerCase());
+        }
+    }
+
+    @Test
+    @Order(4)
+    void aSweepRunsAndCanBeCancelled() throws Exception {
+        window.list("nav").selectItem("Stress");
+        window.spinner("stress.levels").enterTextAndCommit("8");
+        window.spinner("stress.views").enterTextAndCommit("4");
+        window.button("stress.run").click();
+        waitFor("some cells done", () -> window.progressBar("stress.progress").target().getValue() >= 2);
+        window.button("stress.cancel").click();
+        waitFor("sweep stopped", () -> window.button("stress.run").target().isEnabled());
+        JLabel verdict = window.label("stress.verdict").target();
+        String text = GuiActionRunner.execute(verdict::getText);
+        assertTrue(text.startsWith("Stopped: kept"), text);
+        window.button("stress.save").requireEnabled();
+        shot("stress-cancelled");
+    }
+
+    @Test
+    @Order(5)
+    void comparesAllFrames() throws Exception {
+        window.list("nav").selectItem("Compare");
+        window.button("compare.run").click();
+        waitFor("ranking filled", () -> window.table("compare.ranking").target().getRowCount() == 5);
+        shot("compare-ranked");
+    }
+}
