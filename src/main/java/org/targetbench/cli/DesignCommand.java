@@ -27,9 +27,9 @@ import java.util.concurrent.Callable;
                 "Patterns and their options (defaults in brackets):",
                 "  checkerboard  --rows [7] --cols [9] squares, --square-mm [15], --margin-mm [one square]",
                 "  dots          --rows [6] --cols [8], --pitch-mm [20], --diameter-mm [10], --margin-mm [10]",
-                "  xcorners      --count [20], --spacing-mm [30], --arm-mm [8], --width-mm [180], --height-mm [130], --margin-mm [10], --seed [1]",
+                "  xcorners      --count [14], --spacing-mm [28], --arm-mm [8], --width-mm [180], --height-mm [130], --margin-mm [10], --seed [1]",
                 "  squares       --rows [12] --cols [16], --square-mm [5], --pitch-mm [10], --margin-mm [10]",
-                "  markers       --rows [2] --cols [3], --arm-mm [30], --spacing-mm [80], --margin-mm [15]"})
+                "  markers       --rows [2] --cols [3], --arm-mm [25], --spacing-mm [60], --margin-mm [15]"})
 final class DesignCommand implements Callable<Integer> {
     @Spec CommandSpec spec;
 
@@ -129,9 +129,9 @@ final class DesignCommand implements Callable<Integer> {
                 yield TargetGenerators.dotGrid(or(id, "dots-" + c + "x" + r + "-" + num(pitch) + "mm"), r, c, pitch, or(diameterMm, 10), or(marginMm, 10));
             }
             case "xcorners" -> {
-                int n = or(count, 20);
+                int n = or(count, 14);
                 long sd = seed == null ? 1 : seed;
-                yield TargetGenerators.xCornerField(or(id, "xcorners-" + n + "-seed" + sd), n, or(spacingMm, 30), or(armMm, 8),
+                yield TargetGenerators.xCornerField(or(id, "xcorners-" + n + "-seed" + sd), n, or(spacingMm, 28), or(armMm, 8),
                         or(widthMm, 180), or(heightMm, 130), or(marginMm, 10), sd);
             }
             case "squares" -> {
@@ -141,8 +141,8 @@ final class DesignCommand implements Callable<Integer> {
             }
             case "markers" -> {
                 int r = or(rows, 2), c = or(cols, 3);
-                double a = or(armMm, 30);
-                yield TargetGenerators.markerGrid(or(id, "markers-" + c + "x" + r + "-" + num(a) + "mm"), r, c, a, or(spacingMm, 80), or(marginMm, 15));
+                double a = or(armMm, 25);
+                yield TargetGenerators.markerGrid(or(id, "markers-" + c + "x" + r + "-" + num(a) + "mm"), r, c, a, or(spacingMm, 60), or(marginMm, 15));
             }
             default -> throw new IllegalStateException(p);
         };

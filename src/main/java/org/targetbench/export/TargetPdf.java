@@ -13,6 +13,8 @@ import org.targetbench.target.PrintLayout;
 import org.targetbench.target.Shape;
 
 import java.io.IOException;
+import java.util.logging.Level;
+import java.util.logging.Logger;
 import java.nio.file.Path;
 
 /**
@@ -34,6 +36,17 @@ public final class TargetPdf {
     public static final double PT_PER_MM = 72 / 25.4;
     /** Bézier control distance of a quarter circle, as a fraction of the radius: 4/3 (√2 − 1). */
     static final double KAPPA = 4.0 / 3.0 * (Math.sqrt(2) - 1);
+
+    /**
+     * PDFBox logs through java.util.logging (font-cache notes, the Helvetica fallback used only for its own rendering);
+     * none of it concerns the written file, and the command line keeps stderr for one-line errors, so it is silenced.
+     * The logger is held here so the setting is not garbage-collected away.
+     */
+    private static final Logger PDFBOX_LOG = Logger.getLogger("org.apache.pdfbox");
+
+    static {
+        PDFBOX_LOG.setLevel(Level.OFF);
+    }
 
     private TargetPdf() {}
 
