@@ -10,6 +10,8 @@ import org.yaml.snakeyaml.nodes.Tag;
 
 import java.io.IOException;
 import java.math.BigDecimal;
+import java.math.MathContext;
+import java.math.RoundingMode;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
@@ -86,6 +88,7 @@ public final class CameraYaml {
         if (t.startsWith("%YAML:")) t = "#" + t.substring(1);
         LoaderOptions options = new LoaderOptions();
         options.setAllowDuplicateKeys(false);
+        options.setTagInspector(OPENCV_MATRIX::equals); // allow this one global tag, nothing else
         SafeConstructor constructor = new SafeConstructor(options) {
             { yamlConstructors.put(OPENCV_MATRIX, yamlConstructors.get(Tag.MAP)); }
         };
@@ -197,10 +200,18 @@ public final class CameraYaml {
         b.append(line).append('\n');
     }
 
-    /** OpenCV's way of writing a double: whole numbers as "1.", others as %.16e (17 significant digits, exact). */
+    /**
+     * OpenCV's way of writing a double: whole numbers as "1.", others as C's %.16e, i.e. the exact binary value rounded
+     * to 17 significant digits (Java's %e rounds the shortest decimal instead, which can differ in the last digit).
+     */
     static String openCvNumber(double v) {
         if (v == Math.rint(v) && Math.abs(v) < 1e15) return (long) v + ".";
-        return String.format(Locale.ROOT, "%.16e", v);
+        BigDecimal bd = new BigDecimal(v).round(new MathContext(17, RoundingMode.HALF_EVEN));
+        String digits = bd.unscaledValue().abs().toString();
+        int exponent = digits.length() - 1 - bd.scale();
+        digits = (digits + "0".repeat(17)).substring(0, 17);
+        return (v < 0 ? "-" : "") + digits.charAt(0) + "." + digits.substring(1) + "e" + (exponent < 0 ? "-" : "+")
+                + String.format(Locale.ROOT, "%02d", Math.abs(exponent));
     }
 
     private static void rosMatrix(StringBuilder b, String key, int rows, int cols, double[] data) {
