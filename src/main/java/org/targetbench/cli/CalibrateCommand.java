@@ -52,7 +52,8 @@ final class CalibrateCommand implements Callable<Integer> {
         String stem = fileName.substring(0, fileName.length() - ".json".length());
         Path dir = out.toAbsolutePath().getParent();
 
-        Calibration cal = new Calibration(b, new CalibrationConfig());
+        CalibrationConfig config = new CalibrationConfig();
+        Calibration cal = new Calibration(b, config);
         List<String> names = new ArrayList<>();
         List<Optional<double[]>> found = new ArrayList<>();
         int width, height;
@@ -84,7 +85,7 @@ final class CalibrateCommand implements Callable<Integer> {
             written.add(CoveragePlot.write(r, output, stem + ".coverage.png"));
             output.commit();
         }
-        print(r, frames, written, dir, spec.commandLine().getOut());
+        print(r, config, frames, written, dir, spec.commandLine().getOut());
         return 0;
     }
 
@@ -103,7 +104,7 @@ final class CalibrateCommand implements Callable<Integer> {
         return new Calibration.Board(cols, rows, squareMm);
     }
 
-    private static void print(CalibrationResult r, Path frames, List<String> written, Path dir, PrintWriter w) {
+    private static void print(CalibrationResult r, CalibrationConfig config, Path frames, List<String> written, Path dir, PrintWriter w) {
         CameraModel c = r.camera();
         w.printf(Locale.ROOT, "Calibrated from %d of %d frames in %s (board %s), %dx%d:%n", r.usedViews(), r.views().size(), frames,
                 r.board(), c.width(), c.height());
@@ -118,7 +119,8 @@ final class CalibrateCommand implements Callable<Integer> {
                 continue;
             }
             w.printf(Locale.ROOT, "  %-24s %7d %8.3f %8.3f%s%n", v.name(), v.cornerCount(), v.rmsPx(), v.maxPx(),
-                    v.outlier() ? "  OUTLIER: check this frame for blur or a bent board; try without it" : "");
+                    v.outlier() ? String.format(Locale.ROOT, "  OUTLIER (rms > %.1f x the median view): check it for blur or a bent board; try without it",
+                            config.outlierFactor) : "");
         }
         w.printf(Locale.ROOT, "Coverage: corners fell in %.0f %% of a %d x %d grid of image cells%s%n", 100 * r.coverageFraction(),
                 r.coverageCols(), r.coverageRows(), r.coverageFraction() < 0.5 ? "; add views with the board near the edges and corners" : "");
