@@ -8,7 +8,7 @@ import static org.junit.jupiter.api.Assertions.*;
 
 /**
  * The feasibility check against hand-computed pinhole numbers: a fronto-parallel plane at depth Z is imaged at f / Z
- * pixels per unit length everywhere (Hartley &amp; Zisserman 2004, eq. 6.1, x = f X / Z), and pass/warn/fail follow
+ * pixels per unit length everywhere (pinhole projection x = f X / Z; Hartley &amp; Zisserman 2004, ch. 6, from memory), and pass/warn/fail follow
  * the documented thresholds.
  */
 class FeasibilityTest {
