@@ -1,5 +1,7 @@
 package org.targetbench.cli;
 
+import org.targetbench.camera.Feasibility;
+import org.targetbench.camera.FeasibilityConfig;
 import org.targetbench.export.AtomicOutput;
 import org.targetbench.export.CompareWriter;
 import org.targetbench.export.FrameSetWriter;
@@ -53,6 +55,8 @@ final class DemoCommand implements Callable<Integer> {
         c.seed = 1;
         return c;
     }
+    /** Tilt range of the demo's feasibility section, degrees: the demo poses tilt the target by up to 40 degrees. */
+    static final double DEMO_TILT_DEG = 40;
 
     @Override
     public Integer call() throws Exception {
@@ -82,6 +86,10 @@ final class DemoCommand implements Callable<Integer> {
             output.commit();
             Path target = output.target();
             ConsoleTable.print(result, w);
+            w.println();
+            // the same check 'targetbench check' runs, for the demo target, camera and stand-off
+            CheckCommand.print(Feasibility.check(DemoScenario.target(), DemoScenario.camera(), DemoScenario.STANDOFF_M,
+                    DEMO_TILT_DEG, new FeasibilityConfig()), w);
             w.println();
             w.println("Written to " + target + ":");
             w.println("  frames/              12 rendered frames with truth.json (try: targetbench compare --frames " + target.resolve("frames") + " --out results/mine)");

@@ -4,7 +4,7 @@ import org.targetbench.camera.CameraModel;
 import org.targetbench.camera.Pose;
 import org.targetbench.export.AtomicOutput;
 import org.targetbench.export.FrameSetWriter;
-import org.targetbench.source.CameraFile;
+import org.targetbench.source.CameraFiles;
 import org.targetbench.source.PosesFile;
 import org.targetbench.source.RenderConfig;
 import org.targetbench.source.SyntheticSource;
@@ -29,7 +29,7 @@ final class RenderCommand implements Callable<Integer> {
     @Option(names = "--target", required = true, paramLabel = "FILE", description = "Target design (target.json).")
     Path target;
 
-    @Option(names = "--camera", required = true, paramLabel = "FILE", description = "Camera model (camera.json).")
+    @Option(names = "--camera", required = true, paramLabel = "FILE", description = "Camera intrinsics: camera.json, OpenCV FileStorage YAML or ROS camera_info YAML (told apart by content).")
     Path camera;
 
     @Option(names = "--poses", required = true, paramLabel = "FILE", description = "Target poses in the camera frame (poses.json).")
@@ -63,7 +63,7 @@ final class RenderCommand implements Callable<Integer> {
             throw new UserError(e.getMessage());
         }
         TargetDesign design = TargetFile.read(target);
-        CameraModel cam = CameraFile.read(camera);
+        CameraModel cam = CameraFiles.read(camera);
         List<Pose> list = PosesFile.read(poses, design);
         try (AtomicOutput output = AtomicOutput.open(out)) {
             int n = FrameSetWriter.write(new SyntheticSource(design, cam, list, rc), output, "", new ConsoleProgress("rendering"));

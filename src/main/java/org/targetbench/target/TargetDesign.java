@@ -103,7 +103,7 @@ public final class TargetDesign {
     public double quietZoneMm() { return quietZoneMm; }
     public List<Shape> drawing() { return drawing; }
     public List<TargetFeature> features() { return features; }
-    /** Name of the generator that made the design ("checkerboard", "dots", "xcorners" or "custom"). */
+    /** Name of the generator that made the design ("checkerboard", "dots", "xcorners", "squares", "markers" or "custom"). */
     public String pattern() { return pattern; }
     /** Generator parameters, for provenance; keys and units are those of {@link TargetGenerators}. */
     public Map<String, Object> parameters() { return parameters; }

@@ -8,7 +8,9 @@ import java.util.SplittableRandom;
 
 /**
  * Parameterised generators of planar target designs. All lengths are millimetres; random designs are fully
- * determined by their seed.
+ * determined by their seed. Patterns: {@code checkerboard}, {@code dots}, {@code xcorners} (random x-corner field),
+ * {@code squares} (grid of separate squares, dense when small) and {@code markers} (sparse grid of large x-corner
+ * markers).
  */
 public final class TargetGenerators {
     /** Ink reflectance used by every generator (black). */
@@ -119,6 +121,61 @@ public final class TargetGenerators {
         p.put("count", count); p.put("min_spacing_mm", minSpacingMm); p.put("arm_mm", armMm);
         p.put("width_mm", widthMm); p.put("height_mm", heightMm); p.put("margin_mm", marginMm); p.put("seed", seed);
         return new TargetDesign(id, "Random x-corner field, " + count + " features", widthMm, heightMm, marginMm, shapes, features, "xcorners", p);
+    }
+
+    /**
+     * Grid of {@code rows} x {@code cols} separate black squares of side {@code squareMm} at {@code pitchMm} centre
+     * spacing inside a white margin (a dense small-square pattern when the squares are small). Features are the four
+     * L-corners of every square, square by square row by row, each square's corners clockwise from its top-left.
+     */
+    public static TargetDesign squareGrid(String id, int rows, int cols, double squareMm, double pitchMm, double marginMm) {
+        if (rows < 1 || cols < 1) throw new IllegalArgumentException("square grid needs at least 1 x 1 squares, got " + rows + " x " + cols);
+        requirePositive("square", squareMm);
+        requirePositive("pitch", pitchMm);
+        requireNonNegative("margin", marginMm);
+        if (squareMm >= pitchMm) throw new IllegalArgumentException("square side " + squareMm + " mm must be smaller than the pitch " + pitchMm + " mm, or the squares touch");
+        List<Shape> shapes = new ArrayList<>();
+        List<TargetFeature> features = new ArrayList<>();
+        for (int r = 0; r < rows; r++)
+            for (int c = 0; c < cols; c++) {
+                double x0 = marginMm + c * pitchMm, y0 = marginMm + r * pitchMm, x1 = x0 + squareMm, y1 = y0 + squareMm;
+                shapes.add(new Shape.Rect(x0, y0, x1, y1, INK));
+                for (double[] q : new double[][]{{x0, y0}, {x1, y0}, {x1, y1}, {x0, y1}})
+                    features.add(new TargetFeature(features.size(), q[0], q[1], FeatureKind.CORNER));
+            }
+        Map<String, Object> p = new LinkedHashMap<>();
+        p.put("rows", rows); p.put("cols", cols); p.put("square_mm", squareMm); p.put("pitch_mm", pitchMm); p.put("margin_mm", marginMm);
+        return new TargetDesign(id, "Square grid " + cols + "x" + rows + ", " + fmt(squareMm) + " mm squares @ " + fmt(pitchMm) + " mm",
+                2 * marginMm + (cols - 1) * pitchMm + squareMm, 2 * marginMm + (rows - 1) * pitchMm + squareMm, marginMm,
+                shapes, features, "squares", p);
+    }
+
+    /**
+     * Sparse grid of {@code rows} x {@code cols} large x-corner markers at {@code spacingMm} centre spacing inside a
+     * white margin. Each marker is a 2 x 2 checker cell of side {@code 2 armMm} (black top-left and bottom-right
+     * quadrants of side {@code armMm}) whose single x-corner is the feature; features are numbered row by row.
+     */
+    public static TargetDesign markerGrid(String id, int rows, int cols, double armMm, double spacingMm, double marginMm) {
+        if (rows < 1 || cols < 1) throw new IllegalArgumentException("marker grid needs at least 1 x 1 markers, got " + rows + " x " + cols);
+        requirePositive("arm", armMm);
+        requirePositive("spacing", spacingMm);
+        requireNonNegative("margin", marginMm);
+        if (spacingMm < 2 * armMm)
+            throw new IllegalArgumentException("marker spacing " + spacingMm + " mm lets markers of arm " + armMm + " mm overlap; use at least " + fmt(2 * armMm) + " mm");
+        List<Shape> shapes = new ArrayList<>();
+        List<TargetFeature> features = new ArrayList<>();
+        for (int r = 0; r < rows; r++)
+            for (int c = 0; c < cols; c++) {
+                double x = marginMm + armMm + c * spacingMm, y = marginMm + armMm + r * spacingMm;
+                shapes.add(new Shape.Rect(x - armMm, y - armMm, x, y, INK));
+                shapes.add(new Shape.Rect(x, y, x + armMm, y + armMm, INK));
+                features.add(new TargetFeature(features.size(), x, y, FeatureKind.X_CORNER));
+            }
+        Map<String, Object> p = new LinkedHashMap<>();
+        p.put("rows", rows); p.put("cols", cols); p.put("arm_mm", armMm); p.put("spacing_mm", spacingMm); p.put("margin_mm", marginMm);
+        return new TargetDesign(id, "Marker grid " + cols + "x" + rows + ", " + fmt(armMm) + " mm arms @ " + fmt(spacingMm) + " mm",
+                2 * marginMm + 2 * armMm + (cols - 1) * spacingMm, 2 * marginMm + 2 * armMm + (rows - 1) * spacingMm, marginMm,
+                shapes, features, "markers", p);
     }
 
     private static void requirePositive(String what, double v) {

@@ -27,6 +27,8 @@ class DemoEndToEndTest {
         assertEquals(0, r.exit(), r.err());
         assertEquals("", r.err(), "no noise on stderr when not on a terminal");
         assertTrue(r.out().contains("rank"), r.out());
+        assertTrue(r.out().contains("Feasibility at 250 mm stand-off"), r.out()); // the same check as 'check'
+        assertTrue(r.out().contains("smallest feature"), r.out());
         for (String f : List.of("detections.csv", "repeatability.csv", "summary.json", "target.json", "camera.json", "poses.json",
                 "frames/truth.json", "frames/frame_000.png", "frames/frame_011.png", "overlays/frame_000_all.png", "overlays/frame_000_shi-tomasi.png"))
             assertTrue(Files.isRegularFile(demo.resolve(f)), "missing " + f);
