@@ -6,7 +6,7 @@ import org.targetbench.target.PageSize;
 import org.targetbench.target.PrintConfig;
 import org.targetbench.target.PrintLayout;
 import org.targetbench.target.TargetDesign;
-import org.targetbench.target.TargetGenerators;
+import org.targetbench.target.DesignRecipe;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
@@ -117,42 +117,14 @@ final class DesignCommand implements Callable<Integer> {
     }
 
     private TargetDesign generate(String p) {
-        return switch (p) {
-            case "checkerboard" -> {
-                int r = or(rows, 7), c = or(cols, 9);
-                double s = or(squareMm, 15);
-                yield TargetGenerators.checkerboard(or(id, "checkerboard-" + c + "x" + r + "-" + num(s) + "mm"), r, c, s, or(marginMm, s));
-            }
-            case "dots" -> {
-                int r = or(rows, 6), c = or(cols, 8);
-                double pitch = or(pitchMm, 20);
-                yield TargetGenerators.dotGrid(or(id, "dots-" + c + "x" + r + "-" + num(pitch) + "mm"), r, c, pitch, or(diameterMm, 10), or(marginMm, 10));
-            }
-            case "xcorners" -> {
-                int n = or(count, 14);
-                long sd = seed == null ? 1 : seed;
-                yield TargetGenerators.xCornerField(or(id, "xcorners-" + n + "-seed" + sd), n, or(spacingMm, 28), or(armMm, 8),
-                        or(widthMm, 180), or(heightMm, 130), or(marginMm, 10), sd);
-            }
-            case "squares" -> {
-                int r = or(rows, 12), c = or(cols, 16);
-                double s = or(squareMm, 5);
-                yield TargetGenerators.squareGrid(or(id, "squares-" + c + "x" + r + "-" + num(s) + "mm"), r, c, s, or(pitchMm, 10), or(marginMm, 10));
-            }
-            case "markers" -> {
-                int r = or(rows, 2), c = or(cols, 3);
-                double a = or(armMm, 25);
-                yield TargetGenerators.markerGrid(or(id, "markers-" + c + "x" + r + "-" + num(a) + "mm"), r, c, a, or(spacingMm, 60), or(marginMm, 15));
-            }
-            default -> throw new IllegalStateException(p);
-        };
+        DesignRecipe r = new DesignRecipe();
+        r.pattern = p; r.id = id; r.rows = rows; r.cols = cols; r.count = count; r.squareMm = squareMm; r.pitchMm = pitchMm;
+        r.diameterMm = diameterMm; r.spacingMm = spacingMm; r.armMm = armMm; r.widthMm = widthMm; r.heightMm = heightMm;
+        r.marginMm = marginMm; r.seed = seed;
+        return r.build();
     }
 
-    private static int or(Integer v, int fallback) { return v == null ? fallback : v; }
-    private static double or(Double v, double fallback) { return v == null ? fallback : v; }
-    private static String or(String v, String fallback) { return v == null ? fallback : v; }
-
     static String num(double v) {
-        return v == Math.rint(v) ? Long.toString((long) v) : String.format(Locale.ROOT, "%.2f", v).replaceAll("0+$", "");
+        return DesignRecipe.num(v);
     }
 }
