@@ -2,7 +2,6 @@ package org.targetbench.app;
 
 import org.targetbench.detect.DetectorType;
 import org.targetbench.perturb.Perturbation;
-import org.targetbench.source.SourceException;
 
 import javax.swing.BorderFactory;
 import javax.swing.Box;
@@ -12,18 +11,15 @@ import javax.swing.JCheckBox;
 import javax.swing.JComboBox;
 import javax.swing.JFileChooser;
 import javax.swing.JLabel;
-import javax.swing.JOptionPane;
 import javax.swing.JPanel;
 import javax.swing.JScrollPane;
 import javax.swing.JSlider;
 import javax.swing.JTable;
-import javax.swing.SwingWorker;
 import javax.swing.Timer;
 import javax.swing.table.DefaultTableModel;
 import java.awt.BorderLayout;
 import java.awt.Dimension;
 import java.nio.file.Path;
-import java.util.concurrent.ExecutionException;
 
 /**
  * The live view: choose a source, play and step through it, see every chosen detector's points on the frame, and
@@ -41,6 +37,7 @@ final class LiveView extends JPanel implements Session.Listener {
     private final JSlider frameSlider = Ui.named(new JSlider(0, 0, 0), "play.slider", "Frame of the source");
     private final JLabel frameLabel = Ui.named(new JLabel("no source"), "play.label", null);
     private final JButton playButton;
+    private final JButton reopen;
     private final JCheckBox loop = Ui.named(new JCheckBox("Loop", true), "play.loop", "Start again at the end");
     private final Timer timer;
     private final JComboBox<Perturbation> degradeKind = Ui.named(new JComboBox<>(Perturbation.values()), "live.degrade.kind",
@@ -61,8 +58,15 @@ final class LiveView extends JPanel implements Session.Listener {
         timer = new Timer(1000 / PLAY_FPS, e -> advance());
         playButton = Ui.button("play.toggle", "Play", "Play or pause the source (Space)", this::togglePlay);
 
+        String last = ctx.prefs().get("lastFolder", null);
+        reopen = Ui.button("src.reopen", last == null ? "Reopen" : "Reopen " + Path.of(last).getFileName(),
+                "Load the frame folder used last time: " + last, () -> {
+                    String f = ctx.prefs().get("lastFolder", null);
+                    if (f != null) loadFolder(Path.of(f));
+                });
+        reopen.setVisible(last != null && java.nio.file.Files.isDirectory(Path.of(last)));
         JPanel top = new JPanel(new BorderLayout());
-        top.add(Ui.row(
+        top.add(Ui.row(reopen, 
                 Ui.button("src.demo", "Demo scene", "Load the built-in scene: a checkerboard on the fixture plate seen from twelve arm positions", this::loadDemo),
                 Ui.button("src.folder", "Open frame folder...", "Load a folder of PNG/JPEG frames (with truth.json if present)", this::chooseFolder)),
                 BorderLayout.WEST);
@@ -141,7 +145,7 @@ final class LiveView extends JPanel implements Session.Listener {
     }
 
     void loadDemo() {
-        load("demo scene", SourceLoader::demo);
+        LiveLoad.load(ctx, "demo scene", SourceLoader::demo, false);
     }
 
     private void chooseFolder() {
@@ -152,37 +156,16 @@ final class LiveView extends JPanel implements Session.Listener {
         Path dir = fc.getSelectedFile().toPath();
         ctx.prefs().put("lastFolder", dir.toString());
         loadFolder(dir);
+        reopen.setText("Reopen " + dir.getFileName());
+        reopen.setVisible(true);
     }
 
     void loadFolder(Path dir) {
         load(dir.toString(), () -> SourceLoader.folder(dir));
     }
 
-    interface LoadJob {
-        SourceLoader.Loaded load() throws SourceException;
-    }
-
-    /** Loads a source off the event-dispatch thread; a bad source gives a message, never a dead window. */
-    void load(String what, LoadJob job) {
-        ctx.status().accept("Loading " + what + "...");
-        new SwingWorker<SourceLoader.Loaded, Void>() {
-            @Override protected SourceLoader.Loaded doInBackground() throws Exception { return job.load(); }
-            @Override protected void done() {
-                try {
-                    SourceLoader.Loaded l = get();
-                    session.setSource(l.name(), l.frames(), l.reference(), l.scene());
-                    ctx.prefs().put("lastSource", what);
-                    ctx.status().accept("Loaded " + l.frames().size() + " frames: " + l.name()
-                            + (l.truncated() ? " (first " + SourceLoader.MAX_FRAMES + " frames only)" : ""));
-                } catch (ExecutionException e) {
-                    String msg = e.getCause() == null ? e.toString() : e.getCause().getMessage();
-                    ctx.status().accept("Could not load " + what + ": " + msg);
-                    JOptionPane.showMessageDialog(ctx.window(), msg, "Could not load the source", JOptionPane.WARNING_MESSAGE);
-                } catch (InterruptedException e) {
-                    Thread.currentThread().interrupt();
-                }
-            }
-        }.execute();
+    void load(String what, LiveLoad.Job job) {
+        LiveLoad.load(ctx, what, job);
     }
 
     @Override

@@ -51,12 +51,13 @@ public final class Workbench extends JFrame {
         this.prefs = prefs;
         setName("workbench");
         setDefaultCloseOperation(JFrame.DISPOSE_ON_CLOSE);
-        AppContext ctx = new AppContext(session, this::setStatus, prefs, this);
+        AppContext ctx = new AppContext(session, this::setStatus, prefs, this, this::show);
         runner = new DetectionRunner(session);
         live = new LiveView(ctx);
         views.put("Live", live);
         views.put("Compare", new CompareView(ctx));
         views.put("Stress", new StressView(ctx));
+        views.put("Targets", new DesignsView(ctx));
         for (var e : views.entrySet()) center.add(e.getValue(), e.getKey());
 
         nav = new JList<>(views.keySet().toArray(String[]::new));
@@ -153,6 +154,9 @@ public final class Workbench extends JFrame {
 
     /** Names of the views, in navigation order. */
     public List<String> viewNames() { return new ArrayList<>(views.keySet()); }
+
+    /** Component name of a view's panel, for lookups. */
+    public String panelName(String view) { return views.get(view).getName(); }
 
     /** Shows a view by name. */
     public void show(String view) { nav.setSelectedValue(view, true); }

@@ -109,12 +109,7 @@ class WorkbenchGuiTest {
     void switchesViews() throws Exception {
         for (String view : workbench.viewNames()) {
             window.list("nav").selectItem(view);
-            String panel = switch (view) {
-                case "Live" -> "view.live";
-                case "Compare" -> "view.compare";
-                case "Stress" -> "view.stress";
-                default -> throw new IllegalStateException(view);
-            };
+            String panel = workbench.panelName(view);
             waitFor(view + " showing", () -> window.panel(panel).target().isShowing());
             pause(300);
             shot(view.toLowerCase());
