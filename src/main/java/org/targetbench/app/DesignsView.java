@@ -145,7 +145,7 @@ final class DesignsView extends JPanel {
             BufferedImage img = TargetPreview.draw(l.get(), 2);
             preview.setIcon(new ImageIcon(img.getScaledInstance(img.getWidth(), img.getHeight(), Image.SCALE_SMOOTH)));
         }
-        standoff.setValue(1000 * SweepBase.defaultStandoff(d, camera));
+        standoff.setValue(10.0 * Math.round(100 * SweepBase.defaultStandoff(d, camera)));
         check();
     }
 
