@@ -9,6 +9,7 @@ import boofcv.struct.convolve.Kernel2D_F32;
 import boofcv.struct.image.GrayF32;
 import georegression.struct.homography.Homography2D_F64;
 import org.targetbench.camera.Homography;
+import org.targetbench.camera.SensorNoise;
 
 import java.util.SplittableRandom;
 
@@ -72,7 +73,7 @@ public final class Perturber {
             case LOW_LIGHT -> out = value == 1 ? frame.clone() : lowLight(frame, value, rng);
             case DEFOCUS -> out = value == 0 ? frame.clone() : BlurImageOps.gaussian(frame, null, value, (int) Math.ceil(3 * value), null);
             case MOTION -> out = value == 0 ? frame.clone() : motionBlur(frame, value, config.motionAngleDeg);
-            case GAUSSIAN_NOISE -> out = map(frame, g -> g + value * gaussian(rng));
+            case GAUSSIAN_NOISE -> out = map(frame, g -> g + value * SensorNoise.gaussian(rng));
             case SALT_PEPPER -> {
                 out = frame.clone();
                 for (int i = 0; i < out.data.length; i++)
@@ -115,7 +116,7 @@ public final class Perturber {
         GrayF32 out = in.createSameShape();
         for (int i = 0; i < in.data.length; i++) {
             double electrons = Math.max(0, in.data[i]) * exposure * k;
-            out.data[i] = (float) ((poisson(rng, electrons) + read * gaussian(rng)) / k);
+            out.data[i] = (float) ((SensorNoise.poisson(rng, electrons) + read * SensorNoise.gaussian(rng)) / k);
         }
         return out;
     }
@@ -202,31 +203,5 @@ public final class Perturber {
                 inv.get(1, 2), inv.get(2, 0), inv.get(2, 1), inv.get(2, 2));
         new FDistort(in, out).interp(InterpolationType.BILINEAR).border(mean).transform(new PixelTransformHomography_F32(outToIn)).apply();
         return out;
-    }
-
-    /** Standard normal deviate (Marsaglia polar method). */
-    static double gaussian(SplittableRandom rng) {
-        double a, b, s;
-        do {
-            a = 2 * rng.nextDouble() - 1;
-            b = 2 * rng.nextDouble() - 1;
-            s = a * a + b * b;
-        } while (s >= 1 || s == 0);
-        return a * Math.sqrt(-2 * Math.log(s) / s);
-    }
-
-    /** Poisson deviate: Knuth's product method below 30, normal approximation with continuity above. */
-    static double poisson(SplittableRandom rng, double mean) {
-        if (mean <= 0) return 0;
-        if (mean < 30) {
-            double l = Math.exp(-mean), p = 1;
-            int k = 0;
-            do {
-                k++;
-                p *= rng.nextDouble();
-            } while (p > l);
-            return k - 1;
-        }
-        return Math.max(0, Math.rint(mean + Math.sqrt(mean) * gaussian(rng)));
     }
 }

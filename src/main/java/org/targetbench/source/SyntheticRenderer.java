@@ -6,6 +6,7 @@ import georegression.struct.point.Point2D_F64;
 import org.targetbench.camera.CameraModel;
 import org.targetbench.camera.Pose;
 import org.targetbench.camera.Projection;
+import org.targetbench.camera.SensorNoise;
 import org.targetbench.target.TargetDesign;
 
 import java.util.List;
@@ -115,20 +116,9 @@ public final class SyntheticRenderer {
         SplittableRandom rng = new SplittableRandom(noiseSeed);
         for (int i = 0; i < img.data.length; i++) {
             double g = img.data[i];
-            if (config.noiseSigma > 0) g += config.noiseSigma * gaussian(rng);
+            if (config.noiseSigma > 0) g += config.noiseSigma * SensorNoise.gaussian(rng);
             if (config.quantise) g = Math.max(0, Math.min(255, Math.rint(g)));
             img.data[i] = (float) g;
         }
-    }
-
-    /** Standard normal deviate (Marsaglia polar method). */
-    static double gaussian(SplittableRandom rng) {
-        double a, b, s;
-        do {
-            a = 2 * rng.nextDouble() - 1;
-            b = 2 * rng.nextDouble() - 1;
-            s = a * a + b * b;
-        } while (s >= 1 || s == 0);
-        return a * Math.sqrt(-2 * Math.log(s) / s);
     }
 }
