@@ -8,7 +8,12 @@ import org.targetbench.pipeline.CompareResult;
 import org.targetbench.pipeline.CompareRun;
 import org.targetbench.pipeline.DemoScenario;
 import org.targetbench.report.OverlayWriter;
+import org.targetbench.pipeline.PickRun;
+import org.targetbench.select.SelectConfig;
+import org.targetbench.servo.RehearsalConfig;
+import org.targetbench.servo.RehearsalResult;
 import org.targetbench.source.CameraFile;
+import org.targetbench.source.ResultsFolder;
 import org.targetbench.source.ImageFolderSource;
 import org.targetbench.source.PosesFile;
 import org.targetbench.source.TargetFile;
@@ -20,14 +25,19 @@ import picocli.CommandLine.Spec;
 
 import java.io.PrintWriter;
 import java.nio.file.Path;
+import java.util.List;
 import java.util.concurrent.Callable;
 
 @Command(name = "demo", mixinStandardHelpOptions = true,
         description = {"Runs the bench on the built-in demo scenario: a checkerboard target on the fixture plate of a small "
                 + "machining cell, seen by the flange camera from twelve arm positions.",
                 "Renders the frames with ground truth, compares every detector on them, and writes the frames, the target, "
-                        + "camera and poses files, CSV and JSON results and overlay images."})
+                        + "camera and poses files, CSV and JSON results and overlay images.",
+                "Then picks a servo set from those results, rehearses it in simulation and exports it (servo-set.json, servo-set.csv, rehearsal/)."})
 final class DemoCommand implements Callable<Integer> {
+    /** Rehearsal starts in the demo: enough for a convergence rate, few enough to keep the demo quick. */
+    static final int REHEARSAL_STARTS = 100;
+
     @Spec CommandSpec spec;
 
     @Option(names = "--out", paramLabel = "DIR", defaultValue = "results/demo", description = "Output folder (default: ${DEFAULT-VALUE}).")
@@ -54,6 +64,14 @@ final class DemoCommand implements Callable<Integer> {
             }
             CompareWriter.write(result, output);
             var overlays = OverlayWriter.write(result, output);
+            // pick a servo set from the results just written, exactly as 'pick --from' would, then rehearse it
+            ResultsFolder.Data data = ResultsFolder.read(output.folder("."), ResultsFolder.Overrides.none(), out.toString());
+            PickRun.Result pick = ServoSteps.pick(data, null, new SelectConfig());
+            List<String> setFiles = ServoSteps.writePick(pick, output, "servo-set");
+            RehearsalConfig rc = new RehearsalConfig();
+            rc.starts = REHEARSAL_STARTS;
+            String setName = out.resolve("servo-set.json").toString();
+            RehearsalResult rehearsal = ServoSteps.rehearse(pick.set().orElseThrow(), setName, rc, output, "rehearsal/");
             output.commit();
             Path target = output.target();
             ConsoleTable.print(result, w);
@@ -63,6 +81,15 @@ final class DemoCommand implements Callable<Integer> {
             w.println("  detections.csv, repeatability.csv, summary.json");
             w.println("  overlays/            " + overlays.size() + " PNG images of detections on the reference and sample frames");
             w.println("  target.json, camera.json, poses.json (inputs for 'targetbench render')");
+            w.println();
+            ServoSteps.printPick(pick, target.toString(), w);
+            w.println();
+            ServoSteps.printRehearsal(rehearsal, setName, w);
+            w.println();
+            w.println("Servo set:   " + target.resolve(setFiles.get(0)));
+            w.println("             " + target.resolve(setFiles.get(1)) + " (flat), " + target.resolve(setFiles.get(2)) + " (every candidate and why)");
+            w.println("Rehearsal:   " + target.resolve("rehearsal/rehearsal.html") + " (charts), rehearsal.csv, rehearsal-summary.json");
+            w.println("Try:         targetbench rehearse --set " + target.resolve(setFiles.get(0)) + " --law current --envelope 20,90 --out results/what-if");
             w.println();
             w.println("Safety: " + Safety.NOTICE);
             w.flush();

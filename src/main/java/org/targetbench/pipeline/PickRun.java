@@ -50,9 +50,9 @@ public final class PickRun {
 
     public static Result run(ResultsFolder.Data data, String detectorName, CandidateConfig cc, SelectConfig sc,
                              String toolVersion, String created) throws SourceException {
-        String folder = data.folder().toString();
+        String folder = data.folderName();
         String detector = detectorName != null ? detectorName : data.ranking().isEmpty() ? null : data.ranking().get(0);
-        if (detector == null) throw new SourceException(data.folder().resolve("summary.json") + ": the ranking is empty; name a detector with --detector");
+        if (detector == null) throw new SourceException(folder + "/summary.json: the ranking is empty; name a detector with --detector");
         Map<String, List<Detection>> byFrame = data.detections().get(detector);
         if (byFrame == null && !data.ranking().contains(detector))
             throw new SourceException("detector \"" + detector + "\" is not in the results in " + folder + "; choose from " + String.join(", ", data.ranking()));
@@ -69,7 +69,7 @@ public final class PickRun {
         String poseMethod;
         if (data.poses().isPresent()) {
             pose = data.poses().get().get(0);
-            poseMethod = "known: pose 0 of " + data.posesFile().map(Object::toString).orElse("poses.json");
+            poseMethod = "known: pose 0 of " + data.posesFile().map(data::shortName).orElse("poses.json");
             if (!refTruth.isEmpty() && design.isPresent()) checkPose(camera, design.get(), pose, refTruth, data);
         } else if (!refTruth.isEmpty() && design.isPresent()) {
             List<double[]> px = new ArrayList<>(), mm = new ArrayList<>();
@@ -97,7 +97,7 @@ public final class PickRun {
         } else {
             throw new SourceException("cannot place the points in depth: no poses.json in " + folder + " (the reference pose)"
                     + (design.isEmpty() ? " and no target.json (the design, for a PnP estimate)" : "")
-                    + (refTruth.isEmpty() ? " and no true feature pixels for the reference frame in " + data.truthFile() + " (to match detections to designed features)" : "")
+                    + (refTruth.isEmpty() ? " and no true feature pixels for the reference frame in " + data.shortName(data.truthFile()) + " (to match detections to designed features)" : "")
                     + "; give --poses, or --target and --truth");
         }
 
@@ -118,7 +118,7 @@ public final class PickRun {
             Candidate c = ch.candidate();
             pts.add(new ServoPoint(c.id(), c.u(), c.v(), c.x(), c.y(), c.zM(), c.targetXMm(), c.targetYMm(), c.featureId(), c.robustness(), ch.reason()));
         }
-        String designRef = design.map(d -> d.name() + " (" + data.targetFile().map(Object::toString).orElse("target.json") + ")").orElse("unknown");
+        String designRef = design.map(d -> d.name() + " (" + data.targetFile().map(data::shortName).orElse("target.json") + ")").orElse("unknown");
         ServoSet set = new ServoSet(toolVersion, created, camera, design.map(TargetDesign::id).orElse("unknown"), designRef,
                 Optional.of(pose), poseMethod, detector, data.detectorSettings().getOrDefault(detector, "{}"), "{}", pts,
                 sel.condition(), sel.sigmaMin());
@@ -146,7 +146,7 @@ public final class PickRun {
         double median = s[n / 2];
         if (!(median <= POSE_CHECK_PX))
             throw new SourceException(String.format(Locale.ROOT, "%s: pose 0 does not match the reference frame %s: designed features land a median %.1f px "
-                    + "from their true pixels in %s (is the first pose the reference view?)", data.posesFile().map(Object::toString).orElse("poses.json"),
-                    data.referenceFrame(), median, data.truthFile()));
+                    + "from their true pixels in %s of %s (is the first pose the reference view?)", data.posesFile().map(data::shortName).orElse("poses.json"),
+                    data.referenceFrame(), median, data.shortName(data.truthFile()), data.folderName()));
     }
 }

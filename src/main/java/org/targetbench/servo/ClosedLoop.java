@@ -77,7 +77,7 @@ final class ClosedLoop {
         int nt = 0;
         Se3_F64 ref = s.referenceCameraToWorld();
         DMatrixRMaj rRef = ref.R;
-        double initialErr = Double.NaN, err = Double.NaN, maxRetreat = 0, minDist = Double.POSITIVE_INFINITY, maxRatio = 0;
+        double startZ = 0, initialErr = Double.NaN, err = Double.NaN, maxRetreat = 0, minDist = Double.POSITIVE_INFINITY, maxRatio = 0;
         RunOutcome outcome = RunOutcome.TIMEOUT;
         int lost = -1, step = 0;
         for (; ; step++) {
@@ -90,7 +90,9 @@ final class ClosedLoop {
             double cx = rRef.data[0] * dx + rRef.data[3] * dy + rRef.data[6] * dz;
             double cy = rRef.data[1] * dx + rRef.data[4] * dy + rRef.data[7] * dz;
             double cz = rRef.data[2] * dx + rRef.data[5] * dy + rRef.data[8] * dz;
-            maxRetreat = Math.max(maxRetreat, -cz);
+            if (step == 0) startZ = cz;
+            // backward motion beyond both the start and the reference position
+            maxRetreat = Math.max(maxRetreat, Math.min(startZ, 0) - cz);
             if (out >= 0) {
                 outcome = RunOutcome.LEFT_FIELD_OF_VIEW;
                 lost = s.ids()[out];

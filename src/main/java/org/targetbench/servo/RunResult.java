@@ -10,8 +10,9 @@ package org.targetbench.servo;
  * @param steps             control steps taken
  * @param initialErrorPx    true image error at the start, RMS over points of the distance to the reference pixel
  * @param finalErrorPx      the same at the end
- * @param maxRetreatMm      largest move of the camera backwards along the reference optical axis, millimetres (0 when it
- *                          never moved back behind the reference position)
+ * @param maxRetreatMm      how far the camera moved back along the reference optical axis beyond both its start and the
+ *                          reference position, millimetres (0 when it never did): the unwanted retreat of the
+ *                          current-L law under rotation about the optical axis
  * @param minPlaneDistanceM smallest distance of the camera centre from the target plane, metres
  * @param maxDepthRatio     largest distance from the target plane divided by the reference distance
  * @param lostPoint         id of the point that was lost (out of view or track dropped), -1 for none

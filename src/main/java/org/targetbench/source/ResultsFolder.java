@@ -40,7 +40,13 @@ public final class ResultsFolder {
                        Map<String, String> detectorSettings, Map<String, Map<String, List<Detection>>> detections,
                        Optional<TruthFile.Truth> truth, Optional<CameraModel> camera, Optional<TargetDesign> target,
                        Optional<List<Pose>> poses, Optional<Path> cameraFile, Optional<Path> targetFile, Optional<Path> posesFile,
-                       Path truthFile) {}
+                       Path truthFile, String folderName) {
+        /** A file's name relative to the results folder when it lies inside it, else its full path. */
+        public String shortName(Path file) {
+            Path f = file.toAbsolutePath().normalize(), d = folder.toAbsolutePath().normalize();
+            return f.startsWith(d) ? d.relativize(f).toString() : file.toString();
+        }
+    }
 
     /** Optional explicit files; null means "the default inside the folder". */
     public record Overrides(Path truth, Path camera, Path target, Path poses) {
@@ -48,6 +54,11 @@ public final class ResultsFolder {
     }
 
     public static Data read(Path folder, Overrides o) throws SourceException {
+        return read(folder, o, folder.toString());
+    }
+
+    /** @param folderName how to name the folder in messages (a staged folder is named as the user will see it) */
+    public static Data read(Path folder, Overrides o, String folderName) throws SourceException {
         if (!Files.isDirectory(folder)) throw new SourceException("results folder not found: " + folder);
         Path summaryFile = folder.resolve("summary.json"), detFile = folder.resolve("detections.csv");
         if (!Files.isRegularFile(summaryFile))
@@ -90,7 +101,7 @@ public final class ResultsFolder {
             throw new SourceException(camF + ": image size " + camera.get().width() + "x" + camera.get().height()
                     + " does not match the results' " + w + "x" + h);
         return new Data(folder, ref, w, h, eps, ranking, settings, dets, truth, camera, target, poses,
-                Optional.ofNullable(camF), Optional.ofNullable(tgtF), Optional.ofNullable(posF), truthFile);
+                Optional.ofNullable(camF), Optional.ofNullable(tgtF), Optional.ofNullable(posF), truthFile, folderName);
     }
 
     /** The explicit file (which must exist), else the default when it exists, else null. */
