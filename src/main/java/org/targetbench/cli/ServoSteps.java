@@ -113,6 +113,8 @@ final class ServoSteps {
         w.printf(Locale.ROOT, "  closest approach     %.3f m to the target plane (reference %.3f m)%n", s.minPlaneDistanceM(), r.referenceDistanceM());
         w.printf(Locale.ROOT, "  lost out of view     %d runs; lost track %d, timed out %d, retreated %d, singular %d%n",
                 s.lostFieldOfView(), s.trackLost(), s.timeouts(), s.retreated(), s.singular());
+        if (s.redrawnStarts() > 0)
+            w.printf(Locale.ROOT, "  redrawn starts       %d (a point was out of view at the drawn start)%n", s.redrawnStarts());
         for (String warn : r.warnings()) w.println("Warning: " + warn);
     }
 

@@ -27,7 +27,7 @@ import java.util.OptionalDouble;
 public final class ServoWriters {
     public static final String SELECTION_HEADER = "id,u,v,status,reason,repeatability,frames_found,frames_visible,localisation_error_px,track_survival,jitter_px,z_m,target_x_mm,target_y_mm,feature_id";
     public static final String REHEARSAL_HEADER = "run,outcome,time_s,steps,start_tx_mm,start_ty_mm,start_tz_mm,start_rx_deg,start_ry_deg,start_rz_deg,"
-            + "start_translation_mm,start_rotation_deg,initial_error_px,final_error_px,max_retreat_mm,min_plane_distance_m,max_depth_ratio,lost_point";
+            + "start_translation_mm,start_rotation_deg,initial_error_px,final_error_px,max_retreat_mm,min_plane_distance_m,max_depth_ratio,lost_point,redrawn_starts";
     public static final String REHEARSAL_FORMAT = "targetbench-rehearsal-summary";
     private static final ObjectMapper MAPPER = new ObjectMapper();
 
@@ -64,7 +64,7 @@ public final class ServoWriters {
                         + Csv.num(s.tyMm(), 3) + "," + Csv.num(s.tzMm(), 3) + "," + Csv.num(s.rxDeg(), 3) + "," + Csv.num(s.ryDeg(), 3) + ","
                         + Csv.num(s.rzDeg(), 3) + "," + Csv.num(s.translationMm(), 3) + "," + Csv.num(s.rotationDeg(), 3) + ","
                         + Csv.num(x.initialErrorPx(), 4) + "," + Csv.num(x.finalErrorPx(), 4) + "," + Csv.num(x.maxRetreatMm(), 3) + ","
-                        + Csv.num(x.minPlaneDistanceM(), 5) + "," + Csv.num(x.maxDepthRatio(), 4) + "," + (x.lostPoint() < 0 ? "" : x.lostPoint()) + "\n");
+                        + Csv.num(x.minPlaneDistanceM(), 5) + "," + Csv.num(x.maxDepthRatio(), 4) + "," + (x.lostPoint() < 0 ? "" : x.lostPoint()) + "," + x.redrawnStarts() + "\n");
             }
         }
     }
@@ -102,7 +102,8 @@ public final class ServoWriters {
         num(o, "max_depth_ratio", m.maxDepthRatio());
         num(o, "min_distance_to_target_plane_m", m.minPlaneDistanceM());
         o.put("lost_point_out_of_view", m.lostFieldOfView()).put("lost_track", m.trackLost()).put("timeouts", m.timeouts())
-                .put("retreated", m.retreated()).put("singular", m.singular());
+                .put("retreated", m.retreated()).put("singular", m.singular())
+                .put("redrawn_starts", m.redrawnStarts());
         ArrayNode w = root.putArray("warnings");
         r.warnings().forEach(w::add);
         root.put("elapsed_s", elapsedS);

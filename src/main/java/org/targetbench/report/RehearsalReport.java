@@ -110,6 +110,7 @@ public final class RehearsalReport {
         row(b, "largest retreat along the optical axis", String.format(Locale.ROOT, "%.1f mm (%.2f x the reference distance)", s.maxRetreatMm(), s.maxDepthRatio()));
         row(b, "closest approach to the target plane", String.format(Locale.ROOT, "%.3f m (reference %.3f m)", s.minPlaneDistanceM(), r.referenceDistanceM()));
         row(b, "runs that lost a point out of view", Integer.toString(s.lostFieldOfView()));
+        row(b, "starts drawn again (a point out of view)", Integer.toString(s.redrawnStarts()));
         row(b, "runs that lost a track / timed out / retreated / singular", s.trackLost() + " / " + s.timeouts() + " / " + s.retreated() + " / " + s.singular());
         b.append("</table>\n<h2>Warnings</h2>\n");
         if (r.warnings().isEmpty()) b.append("<p>None.</p>\n");

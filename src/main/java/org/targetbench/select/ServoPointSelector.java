@@ -187,7 +187,7 @@ public final class ServoPointSelector {
     private static void enumerate(Objective obj, int[] cur, int depth, int from, int n, int[][] best, double[] bestV) {
         if (depth == cur.length) {
             double v = obj.value(cur);
-            if (v < bestV[0]) {
+            if (v < bestV[0] || best[0] == null) { // keep a feasible set even when every one is rank deficient
                 bestV[0] = v;
                 best[0] = cur.clone();
             }
@@ -223,6 +223,7 @@ public final class ServoPointSelector {
         while (set.size() < k) {
             int bestJ = -1;
             double bestV = Double.POSITIVE_INFINITY;
+            int fallback = -1;
             for (int j = 0; j < obj.size(); j++) {
                 final int jj = j;
                 if (set.contains(j) || !set.stream().allMatch(i -> obj.separated(i, jj))) continue;
@@ -231,11 +232,13 @@ public final class ServoPointSelector {
                 trial[set.size()] = j;
                 // below three points L has no full rank: widen the hull instead
                 double v = trial.length <= 3 ? -obj.coverage(trial) : obj.value(trial);
+                if (fallback < 0) fallback = j;
                 if (v < bestV) {
                     bestV = v;
                     bestJ = j;
                 }
             }
+            if (bestJ < 0) bestJ = fallback; // every addition rank deficient: keep a feasible set for the refusal
             if (bestJ < 0) return null;
             set.add(bestJ);
         }

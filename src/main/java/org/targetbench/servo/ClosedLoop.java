@@ -62,7 +62,10 @@ final class ClosedLoop {
      * One run; {@code fixedStart} null draws the start from the envelope. {@code traceOut} null keeps no trace,
      * otherwise its first slot receives it.
      */
+    private int redraws;
+
     RunResult run(int index, RunTrace[] traceOut, RunResult.StartOffset fixedStart) {
+        redraws = 0;
         SplittableRandom rng = new SplittableRandom(runSeed(c.seed, index));
         Se3_F64 g = new Se3_F64();
         RunResult.StartOffset start = fixedStart == null ? drawStart(rng, g) : place(fixedStart, g);
@@ -129,7 +132,7 @@ final class ClosedLoop {
         }
         if (trace) traceOut[0] = new RunTrace(index, outcome, Arrays.copyOf(tt, nt), Arrays.copyOf(te, nt), Arrays.copyOf(tx, nt),
                 Arrays.copyOf(ty, nt), Arrays.copyOf(tz, nt));
-        return new RunResult(index, start, outcome, step * c.dtS, step, initialErr, err, maxRetreat * 1000, minDist, maxRatio, lost);
+        return new RunResult(index, start, outcome, step * c.dtS, step, initialErr, err, maxRetreat * 1000, minDist, maxRatio, lost, redraws);
     }
 
     /** Draws a start pose (camera to world) within the envelope from which every point is in view. */
@@ -141,6 +144,7 @@ final class ClosedLoop {
             for (int i = 0; i < 3; i++) r[i] = (2 * rng.nextDouble() - 1) * c.envelopeDeg[i];
             off = place(new RunResult.StartOffset(t[0], t[1], t[2], r[0], r[1], r[2]), g);
             if (project(g) < 0) return off;
+            redraws++;
         }
         return off; // every attempt had a point out of view: the run ends at once as LEFT_FIELD_OF_VIEW
     }

@@ -154,6 +154,9 @@ public final class Rehearsal {
         if (s.lostFieldOfView() > 0)
             w.add(s.lostFieldOfView() + " of " + s.runs() + " runs lost a point out of the field of view: shrink the start envelope, "
                     + "pick points nearer the image centre or use the current or mean law");
+        if (s.redrawnStarts() > s.runs())
+            w.add(s.redrawnStarts() + " drawn starts had a point out of view and were drawn again (more than one per run): the field of view, "
+                    + "not the envelope, limits the starts, so the results cover a smaller envelope than asked");
         if (s.trackLost() > 0) w.add(s.trackLost() + " of " + s.runs() + " runs lost a track according to the measured survival");
         if (s.timeouts() > 0) w.add(s.timeouts() + " of " + s.runs() + " runs had not converged after " + c.timeoutS + " s (too low a gain, noise or a local minimum)");
         if (s.singular() > 0) w.add(s.singular() + " runs hit a singular interaction matrix");

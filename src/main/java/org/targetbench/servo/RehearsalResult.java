@@ -34,10 +34,13 @@ public record RehearsalResult(RehearsalConfig config, String poseMethod, List<Ru
      * @param maxRetreatMm       largest retreat along the reference optical axis over all runs, millimetres
      * @param maxDepthRatio      largest distance from the target plane over the reference distance
      * @param minPlaneDistanceM  smallest distance of the camera from the target plane, metres
+     * @param redrawnStarts      drawn start poses discarded because a point was out of view (a large number means the
+     *                           envelope is wider than the field of view allows)
      */
     public record Summary(int runs, int converged, double convergenceRate, double medianTimeS, double p95TimeS,
                           double medianFinalErrorPx, double p95FinalErrorPx, double maxRetreatMm, double maxDepthRatio,
-                          double minPlaneDistanceM, int lostFieldOfView, int trackLost, int timeouts, int retreated, int singular) {
+                          double minPlaneDistanceM, int lostFieldOfView, int trackLost, int timeouts, int retreated, int singular,
+                          int redrawnStarts) {
         static Summary of(List<RunResult> runs) {
             double[] times = runs.stream().filter(r -> r.outcome() == RunOutcome.CONVERGED).mapToDouble(RunResult::timeS).sorted().toArray();
             double[] finals = runs.stream().mapToDouble(RunResult::finalErrorPx).filter(Double::isFinite).sorted().toArray();
@@ -50,7 +53,8 @@ public record RehearsalResult(RehearsalConfig config, String poseMethod, List<Ru
                     runs.stream().mapToDouble(RunResult::maxDepthRatio).max().orElse(Double.NaN),
                     runs.stream().mapToDouble(RunResult::minPlaneDistanceM).min().orElse(Double.NaN),
                     count[RunOutcome.LEFT_FIELD_OF_VIEW.ordinal()], count[RunOutcome.TRACK_LOST.ordinal()],
-                    count[RunOutcome.TIMEOUT.ordinal()], count[RunOutcome.RETREATED.ordinal()], count[RunOutcome.SINGULAR.ordinal()]);
+                    count[RunOutcome.TIMEOUT.ordinal()], count[RunOutcome.RETREATED.ordinal()], count[RunOutcome.SINGULAR.ordinal()],
+                    runs.stream().mapToInt(RunResult::redrawnStarts).sum());
         }
 
         @Override public String toString() {

@@ -16,9 +16,11 @@ package org.targetbench.servo;
  * @param minPlaneDistanceM smallest distance of the camera centre from the target plane, metres
  * @param maxDepthRatio     largest distance from the target plane divided by the reference distance
  * @param lostPoint         id of the point that was lost (out of view or track dropped), -1 for none
+ * @param redrawnStarts     start poses drawn before this one and discarded because a point was out of view
  */
 public record RunResult(int index, StartOffset start, RunOutcome outcome, double timeS, int steps, double initialErrorPx,
-                        double finalErrorPx, double maxRetreatMm, double minPlaneDistanceM, double maxDepthRatio, int lostPoint) {
+                        double finalErrorPx, double maxRetreatMm, double minPlaneDistanceM, double maxDepthRatio, int lostPoint,
+                        int redrawnStarts) {
 
     /**
      * A start pose relative to the reference camera pose: translation along and rotation vector about the reference
