@@ -89,7 +89,7 @@ final class DemoCommand implements Callable<Integer> {
             w.println("Servo set:   " + target.resolve(setFiles.get(0)));
             w.println("             " + target.resolve(setFiles.get(1)) + " (flat), " + target.resolve(setFiles.get(2)) + " (every candidate and why)");
             w.println("Rehearsal:   " + target.resolve("rehearsal/rehearsal.html") + " (charts), rehearsal.csv, rehearsal-summary.json");
-            w.println("Try:         targetbench rehearse --set " + target.resolve(setFiles.get(0)) + " --law current --envelope 20,90 --out results/what-if");
+            w.println("Try:         targetbench rehearse --set " + target.resolve(setFiles.get(0)) + " --law current --envelope 20,20,20,5,5,170 --out results/what-if");
             w.println();
             w.println("Safety: " + Safety.NOTICE);
             w.flush();

@@ -159,6 +159,8 @@ public final class Rehearsal {
                     + "not the envelope, limits the starts, so the results cover a smaller envelope than asked");
         if (s.trackLost() > 0) w.add(s.trackLost() + " of " + s.runs() + " runs lost a track according to the measured survival");
         if (s.timeouts() > 0) w.add(s.timeouts() + " of " + s.runs() + " runs had not converged after " + c.timeoutS + " s (too low a gain, noise or a local minimum)");
+        if (s.retreated() > 0)
+            w.add(s.retreated() + " of " + s.runs() + " runs backed away beyond " + c.retreatLimit + " times the reference distance and were stopped");
         if (s.singular() > 0) w.add(s.singular() + " runs hit a singular interaction matrix");
         if (c.depthMode == DepthMode.SCALED && (c.depthErrorFactor < 0.5 || c.depthErrorFactor > 2))
             w.add("the depth error factor " + c.depthErrorFactor + " is large: the effective gain changes by that factor and the path bends");
