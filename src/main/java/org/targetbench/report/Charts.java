@@ -62,6 +62,9 @@ public final class Charts {
         XYLineAndShapeRenderer r = new XYLineAndShapeRenderer(true, false);
         for (int i = 0; i < series.size(); i++) {
             r.setSeriesPaint(i, colour(series.get(i), i));
+            // a single point (such as a goal) is drawn as a marker
+            r.setSeriesShapesVisible(i, series.get(i).x().length == 1);
+            r.setSeriesShape(i, new Ellipse2D.Double(-5, -5, 10, 10));
             // after the palette runs out, the same colours come back dashed
             r.setSeriesStroke(i, i < COLOURS.length ? new BasicStroke(1.6f)
                     : new BasicStroke(1.6f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_MITER, 10, new float[]{7, 4}, 0));
