@@ -64,7 +64,7 @@ public final class RehearsalBench {
             steps = r.runs().stream().mapToLong(RunResult::steps).sum();
         }
         Arrays.sort(t);
-        System.out.printf(Locale.ROOT, "%d points, law %-7s, %d thread%s, %-24s %6.2f s  (%d steps, %.2f us/step)%n", points, law.cliName(),
+        System.out.printf(Locale.ROOT, "%d points, law %-7s, %d thread%s, %-24s %6.2f s  (%d steps, %.2f us of CPU per step)%n", points, law.cliName(),
                 threads, threads == 1 ? " " : "s", what, t[REPEATS / 2], steps, 1e6 * t[REPEATS / 2] * threads / steps);
     }
 
