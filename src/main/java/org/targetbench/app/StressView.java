@@ -190,7 +190,7 @@ final class StressView extends JPanel {
         if (running == null) return;
         for (Perturbation p : running.parameters) {
             double[] values = running.valuesOf(p);
-            List<Charts.Line> lines = new ArrayList<>();
+            List<Charts.Series> lines = new ArrayList<>();
             for (var d : running.detectors) {
                 DetectorType t = d.type();
                 double[] y = new double[values.length];
@@ -199,10 +199,10 @@ final class StressView extends JPanel {
                     y[l] = SweepRun.meanRepeatability(rows.stream().filter(x -> x.detector() == t && x.parameter() == p && x.level() == level).toList())
                             .orElse(Double.NaN);
                 }
-                lines.add(new Charts.Line(t.label(), values, y, Palette.of(t)));
+                lines.add(new Charts.Series(t.label(), values, y, Palette.of(t)));
             }
-            ChartPanel cp = new ChartPanel(Charts.lineChart("Repeatability vs " + p.id(), p.id() + (p.unit().isEmpty() ? "" : " (" + p.unit() + ")"),
-                    "repeatability", lines, 0.0, 1.0));
+            ChartPanel cp = new ChartPanel(Charts.yRange(Charts.lines("Repeatability vs " + p.id(), p.id() + (p.unit().isEmpty() ? "" : " (" + p.unit() + ")"),
+                    "repeatability", lines, false), 0, 1));
             cp.setName("stress.chart." + p.id());
             cp.setPreferredSize(new Dimension(440, 280));
             charts.add(cp);

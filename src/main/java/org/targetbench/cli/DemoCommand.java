@@ -10,7 +10,12 @@ import org.targetbench.pipeline.CompareResult;
 import org.targetbench.pipeline.CompareRun;
 import org.targetbench.pipeline.DemoScenario;
 import org.targetbench.report.OverlayWriter;
+import org.targetbench.pipeline.PickRun;
+import org.targetbench.select.SelectConfig;
+import org.targetbench.servo.RehearsalConfig;
+import org.targetbench.servo.RehearsalResult;
 import org.targetbench.source.CameraFile;
+import org.targetbench.source.ResultsFolder;
 import org.targetbench.source.ImageFolderSource;
 import org.targetbench.source.PosesFile;
 import org.targetbench.source.TargetFile;
@@ -23,6 +28,7 @@ import picocli.CommandLine.Spec;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.Map;
+import java.util.List;
 import java.util.concurrent.Callable;
 import org.targetbench.perturb.PerturbKind;
 import org.targetbench.perturb.Perturbation;
@@ -35,10 +41,13 @@ import org.targetbench.pipeline.SweepRun;
         description = {"Runs the bench on the built-in demo scenario: a checkerboard target on the fixture plate of a small "
                 + "machining cell, seen by the flange camera from twelve arm positions.",
                 "Renders the frames with ground truth, compares every detector on them, runs a short stress sweep, and writes the "
-                        + "frames, the target, camera and poses files, CSV and JSON results, overlay images and the sweep report."})
+                        + "frames, the target, camera and poses files, CSV and JSON results, overlay images and the sweep report.",
+                "Then picks a servo set from those results, rehearses it in simulation and exports it (servo-set.json, servo-set.csv, rehearsal/)."})
 final class DemoCommand implements Callable<Integer> {
     /** Size of the demo's short stress sweep: every kind's main parameter at this many levels on this many views. */
     static final int SWEEP_LEVELS = 5, SWEEP_VIEWS = 3;
+    /** Rehearsal starts in the demo: enough for a convergence rate, few enough to keep the demo quick. */
+    static final int REHEARSAL_STARTS = 100;
 
     @Spec CommandSpec spec;
 
@@ -83,6 +92,14 @@ final class DemoCommand implements Callable<Integer> {
                         DemoScenario.lighting(), DemoScenario.STANDOFF_M, SWEEP_VIEWS, 1), new ConsoleProgress("stress sweep"), job::cancelled);
                 SweepCommand.write(sweep, Map.of(), output.sub("sweep"));
             }
+            // pick a servo set from the results just written, exactly as 'pick --from' would, then rehearse it
+            ResultsFolder.Data data = ResultsFolder.read(output.folder("."), ResultsFolder.Overrides.none(), out.toString());
+            PickRun.Result pick = ServoSteps.pick(data, null, new SelectConfig());
+            List<String> setFiles = ServoSteps.writePick(pick, output, "servo-set");
+            RehearsalConfig rc = new RehearsalConfig();
+            rc.starts = REHEARSAL_STARTS;
+            String setName = out.resolve("servo-set.json").toString();
+            RehearsalResult rehearsal = ServoSteps.rehearse(pick.set().orElseThrow(), setName, rc, output, "rehearsal/");
             output.commit();
             Path target = output.target();
             ConsoleTable.print(result, w);
@@ -100,6 +117,15 @@ final class DemoCommand implements Callable<Integer> {
                     + SWEEP_VIEWS + " views (full sweep: targetbench sweep --target " + target.resolve("target.json") + " --out results/sweep)");
             w.println();
             SweepCommand.print(sweep, Map.of(), w);
+            w.println();
+            ServoSteps.printPick(pick, target.toString(), w);
+            w.println();
+            ServoSteps.printRehearsal(rehearsal, setName, w);
+            w.println();
+            w.println("Servo set:   " + target.resolve(setFiles.get(0)));
+            w.println("             " + target.resolve(setFiles.get(1)) + " (flat), " + target.resolve(setFiles.get(2)) + " (every candidate and why)");
+            w.println("Rehearsal:   " + target.resolve("rehearsal/rehearsal.html") + " (charts), rehearsal.csv, rehearsal-summary.json");
+            w.println("Try:         targetbench rehearse --set " + target.resolve(setFiles.get(0)) + " --law current --envelope 20,20,20,5,5,170 --out results/what-if");
             w.println();
             w.println("Safety: " + Safety.NOTICE);
             w.flush();

@@ -15,9 +15,11 @@ import java.io.PrintWriter;
  */
 @Command(name = "targetbench", mixinStandardHelpOptions = true, versionProvider = Main.VersionProvider.class,
         description = "Bench for fiducial targets, point detectors and servo point sets of eye-in-hand visual servoing cells.",
-        subcommands = {DemoCommand.class, CompareCommand.class, SweepCommand.class, RenderCommand.class, DesignCommand.class,
-                CheckCommand.class, CalibrateCommand.class, AppCommand.class, CommandLine.HelpCommand.class})
+        subcommands = {DemoCommand.class, CompareCommand.class, SweepCommand.class, PickCommand.class, RehearseCommand.class,
+                RenderCommand.class, DesignCommand.class, CheckCommand.class, CalibrateCommand.class, AppCommand.class,
+                CommandLine.HelpCommand.class})
 public final class Main implements Runnable {
+    public static final int EXIT_NOTHING_ACCEPTABLE = 1;
     public static final int EXIT_BAD_INPUT = 2;
     public static final int EXIT_INTERNAL = 3;
 
@@ -42,6 +44,11 @@ public final class Main implements Runnable {
                 err.println("targetbench: error: " + ex.getMessage());
                 err.flush();
                 return EXIT_BAD_INPUT;
+            }
+            if (ex instanceof ServoSteps.NoAcceptableSet) {
+                err.println("targetbench: " + ex.getMessage());
+                err.flush();
+                return EXIT_NOTHING_ACCEPTABLE;
             }
             if (ex instanceof InterruptedException) {
                 err.println("targetbench: interrupted; no results were written");

@@ -91,19 +91,19 @@ public final class SweepReport {
         h.append("<h2>Curves</h2>\n<div class=\"charts\">\n");
         for (Perturbation p : r.parameters()) {
             String x = p.id() + (p.unit().isEmpty() ? "" : " (" + p.unit() + ")");
-            h.append(Html.img(Charts.png(Charts.render(Charts.lineChart("Repeatability vs " + p.id(), x, "repeatability (fraction, eps "
-                    + Csv.num(r.epsilon(), 2) + " px)", lines(r, p, true), 0.0, 1.0))), "repeatability vs " + p.id()));
-            List<Charts.Line> loc = lines(r, p, false);
+            h.append(Html.img(Charts.inlinePng(Charts.yRange(Charts.lines("Repeatability vs " + p.id(), x, "repeatability (fraction, eps "
+                    + Csv.num(r.epsilon(), 2) + " px)", lines(r, p, true), false), 0, 1)), "repeatability vs " + p.id()));
+            List<Charts.Series> loc = lines(r, p, false);
             if (loc.stream().anyMatch(l -> java.util.Arrays.stream(l.y()).anyMatch(v -> !Double.isNaN(v))))
-                h.append(Html.img(Charts.png(Charts.render(Charts.lineChart("Localisation error vs " + p.id(), x,
-                        "RMS distance to true feature (px)", loc, null, null))), "localisation vs " + p.id()));
+                h.append(Html.img(Charts.inlinePng(Charts.lines("Localisation error vs " + p.id(), x,
+                        "RMS distance to true feature (px)", loc, false)), "localisation vs " + p.id()));
         }
         h.append("</div>\n<p class=\"muted\">Localisation counts true features with a detection within 3 px; blob detectors "
                 + "(SURF-style, SIFT-style) rarely sit on corners, so their localisation curve may be missing.</p>\n");
     }
 
-    private static List<Charts.Line> lines(SweepResult r, Perturbation p, boolean repeatability) {
-        List<Charts.Line> out = new ArrayList<>();
+    private static List<Charts.Series> lines(SweepResult r, Perturbation p, boolean repeatability) {
+        List<Charts.Series> out = new ArrayList<>();
         for (DetectorType d : r.detectorTypes()) {
             List<LevelPoint> c = SweepSummary.curve(r, d, p);
             double[] xs = new double[c.size()], ys = new double[c.size()];
@@ -111,7 +111,7 @@ public final class SweepReport {
                 xs[i] = c.get(i).value();
                 ys[i] = repeatability ? c.get(i).repeatability().orElse(Double.NaN) : c.get(i).localisationPx();
             }
-            out.add(new Charts.Line(d.label(), xs, ys, Palette.of(d)));
+            out.add(new Charts.Series(d.label(), xs, ys, Palette.of(d)));
         }
         return out;
     }

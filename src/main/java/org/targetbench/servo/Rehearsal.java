@@ -1,0 +1,169 @@
+package org.targetbench.servo;
+
+import georegression.struct.se.Se3_F64;
+import org.targetbench.camera.Pose;
+import org.targetbench.camera.PoseEstimation;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Optional;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
+
+/**
+ * Rehearses a servo set in simulation before any robot moves: the closed loop v = -λ L̂⁺ (s - s*) with the camera
+ * as a free-flying rigid body driven by the commanded twist, from many start poses.
+ *
+ * <p>Each step: the target's true 3-D points are projected with the real intrinsics and distortion; a point outside
+ * the image or behind the camera ends the run (a real tracker would lose it); the true image error (RMS over points of
+ * the pixel distance to the reference pixel) is checked against the convergence threshold; pixel noise is added, the
+ * points are undistorted, the controller's depths are taken per {@link DepthMode}; the commanded twist is held for one
+ * period and integrated with the exponential map ({@link RigidMotion}). Points with a measured track survival s are
+ * dropped, with probability 1 - s, at a uniformly drawn step of the run, which ends the run.
+ *
+ * <p>Start poses: the reference camera pose moved by a translation and a rotation vector drawn uniformly per axis
+ * within the envelope (in the reference camera frame); starts with a point out of view are drawn again (the servo
+ * cannot start without seeing its points). Run i draws from its own generator seeded by (seed, i), so the results do
+ * not depend on the number of threads. Runs are spread over a fixed pool of worker threads.
+ *
+ * <p>Caveats: robot dynamics, joint limits, latency and lighting are not modelled; the convergence test uses the true
+ * (noise-free) image error, which a real controller does not see.
+ *
+ * <p>References: [1] F. Chaumette, S. Hutchinson, "Visual servo control, Part I: Basic approaches", IEEE RAM 13(4),
+ * 2006 (control law and exponential decrease of the error). [2] F. Chaumette, "Potential problems of stability and
+ * convergence in image-based and position-based visual servoing", LNCIS 237, Springer 1998 (retreat under rotation
+ * about the optical axis, local minima, singularities).
+ */
+public final class Rehearsal {
+    /** Envelope rotation about the optical axis from which the known retreat problem is flagged, degrees (common practice, no source). */
+    public static final double OPTICAL_AXIS_WARN_DEG = 150;
+    /** Depth ratio above which a retreat is flagged (common practice, no source). */
+    public static final double RETREAT_WARN_RATIO = 1.2;
+    /** Runs are handed to workers in blocks of this many. */
+    private static final int BLOCK = 8;
+
+    private Rehearsal() {}
+
+    /**
+     * Runs the rehearsal.
+     *
+     * @throws IllegalArgumentException when the set has fewer than 3 points or no pose can be found for it
+     */
+    public static RehearsalResult run(ServoSet set, RehearsalConfig config) throws InterruptedException {
+        config.checkValidity();
+        RehearsalConfig c = config.copy();
+        List<ServoPoint> pts = set.points();
+        int k = pts.size();
+        if (k < 3) throw new IllegalArgumentException("a rehearsal needs at least 3 points, got " + k);
+        String poseMethod = set.poseMethod();
+        Pose pose;
+        if (set.referencePose().isPresent()) {
+            pose = set.referencePose().get();
+        } else {
+            List<double[]> px = pts.stream().map(p -> new double[]{p.u(), p.v()}).toList();
+            List<double[]> mm = pts.stream().map(p -> new double[]{p.targetXMm(), p.targetYMm()}).toList();
+            Optional<PoseEstimation.Estimate> est = PoseEstimation.planar(set.camera(), px, mm);
+            if (est.isEmpty()) throw new IllegalArgumentException("the set has no reference pose and PnP on its " + k + " points failed");
+            pose = est.get().pose();
+            poseMethod = PoseEstimation.METHOD + " from the set's own " + k + " points";
+        }
+        ClosedLoop.Scene scene = scene(set, pose, c);
+        int n = c.starts;
+        RunResult[] results = new RunResult[n];
+        RunTrace[] traces = new RunTrace[Math.min(n, c.tracedRuns)];
+        ExecutorService pool = Executors.newFixedThreadPool(c.threads, r -> {
+            Thread t = new Thread(r, "targetbench-rehearse");
+            t.setDaemon(true);
+            return t;
+        });
+        try {
+            List<Future<?>> futures = new ArrayList<>();
+            ThreadLocal<ClosedLoop> loops = ThreadLocal.withInitial(() -> new ClosedLoop(scene, c));
+            for (int b = 0; b < n; b += BLOCK) {
+                int from = b, to = Math.min(n, b + BLOCK);
+                futures.add(pool.submit(() -> {
+                    ClosedLoop loop = loops.get();
+                    RunTrace[] slot = new RunTrace[1];
+                    for (int i = from; i < to; i++) {
+                        boolean traced = i < traces.length;
+                        results[i] = loop.run(i, traced ? slot : null, null);
+                        if (traced) traces[i] = slot[0];
+                    }
+                }));
+            }
+            for (Future<?> f : futures) f.get();
+        } catch (ExecutionException e) {
+            if (e.getCause() instanceof RuntimeException re) throw re;
+            throw new IllegalStateException(e.getCause());
+        } finally {
+            pool.shutdownNow();
+        }
+        List<RunResult> runs = List.of(results);
+        RehearsalResult.Summary summary = RehearsalResult.Summary.of(runs);
+        return new RehearsalResult(c, poseMethod, runs, List.of(traces), summary, warnings(set, c, summary), scene.referenceDistanceM());
+    }
+
+    /**
+     * One run from a given start offset (in the reference camera frame), with its full trace (every step). For checks
+     * of the closed loop and for what-if questions; noise and losses are drawn from the config's seed.
+     */
+    public static RunTrace single(ServoSet set, RehearsalConfig config, RunResult.StartOffset start, RunResult[] resultOut) {
+        config.checkValidity();
+        RehearsalConfig c = config.copy();
+        c.traceEvery = 1;
+        Pose pose = set.referencePose().orElseThrow(() -> new IllegalArgumentException("a single run needs the set's reference pose"));
+        RunTrace[] slot = new RunTrace[1];
+        RunResult r = new ClosedLoop(scene(set, pose, c), c).run(0, slot, start);
+        if (resultOut != null && resultOut.length > 0) resultOut[0] = r;
+        return slot[0];
+    }
+
+    static ClosedLoop.Scene scene(ServoSet set, Pose pose, RehearsalConfig c) {
+        List<ServoPoint> pts = set.points();
+        int k = pts.size();
+        double[][] world = new double[k][];
+        double[] uS = new double[k], vS = new double[k], xS = new double[k], yS = new double[k], zS = new double[k];
+        double[] noise = new double[k], surv = new double[k];
+        int[] ids = new int[k];
+        for (int i = 0; i < k; i++) {
+            ServoPoint p = pts.get(i);
+            world[i] = new double[]{p.targetXMm() / 1000, p.targetYMm() / 1000, 0};
+            uS[i] = p.u(); vS[i] = p.v(); xS[i] = p.x(); yS[i] = p.y(); zS[i] = p.zM();
+            ids[i] = p.id();
+            noise[i] = Double.isNaN(c.noiseSigmaPx) ? p.robustness().jitterPx().orElse(0) : c.noiseSigmaPx;
+            surv[i] = p.robustness().trackSurvival().orElse(Double.NaN);
+        }
+        Se3_F64 cameraToWorld = pose.toSe3().invert(null);
+        return new ClosedLoop.Scene(set.camera(), world, cameraToWorld, uS, vS, xS, yS, zS, ids, noise, surv, Math.abs(cameraToWorld.T.z));
+    }
+
+    /** Known failure modes of this set, this envelope and these results, in plain words. */
+    static List<String> warnings(ServoSet set, RehearsalConfig c, RehearsalResult.Summary s) {
+        List<String> w = new ArrayList<>();
+        for (SetDiagnostics.Finding f : SetDiagnostics.check(set.points())) w.add(f.message());
+        if (c.envelopeDeg[2] >= OPTICAL_AXIS_WARN_DEG)
+            w.add(String.format(Locale.ROOT, "starts may be turned by up to %.0f deg about the optical axis: near 180 deg the current-L law "
+                    + "drives the camera back toward infinity (Chaumette 1998) and every law struggles; teach the reference closer to the start orientation",
+                    c.envelopeDeg[2]));
+        if (s.maxDepthRatio() > RETREAT_WARN_RATIO)
+            w.add(String.format(Locale.ROOT, "the camera retreated to %.2f times the reference distance from the target%s",
+                    s.maxDepthRatio(), c.law == ControlLaw.CURRENT ? " (the current-L law under rotation about the optical axis; the mean law avoids most of it)" : ""));
+        if (s.lostFieldOfView() > 0)
+            w.add(s.lostFieldOfView() + " of " + s.runs() + " runs lost a point out of the field of view: shrink the start envelope, "
+                    + "pick points nearer the image centre or use the current or mean law");
+        if (s.redrawnStarts() > s.runs())
+            w.add(s.redrawnStarts() + " drawn starts had a point out of view and were drawn again (more than one per run): the field of view, "
+                    + "not the envelope, limits the starts, so the results cover a smaller envelope than asked");
+        if (s.trackLost() > 0) w.add(s.trackLost() + " of " + s.runs() + " runs lost a track according to the measured survival");
+        if (s.timeouts() > 0) w.add(s.timeouts() + " of " + s.runs() + " runs had not converged after " + c.timeoutS + " s (too low a gain, noise or a local minimum)");
+        if (s.retreated() > 0)
+            w.add(s.retreated() + " of " + s.runs() + " runs backed away beyond " + c.retreatLimit + " times the reference distance and were stopped");
+        if (s.singular() > 0) w.add(s.singular() + " runs hit a singular interaction matrix");
+        if (c.depthMode == DepthMode.SCALED && (c.depthErrorFactor < 0.5 || c.depthErrorFactor > 2))
+            w.add("the depth error factor " + c.depthErrorFactor + " is large: the effective gain changes by that factor and the path bends");
+        return w;
+    }
+}

@@ -1,0 +1,111 @@
+package org.targetbench.servo;
+
+import org.ejml.data.DMatrixRMaj;
+import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
+import org.ejml.interfaces.decomposition.SingularValueDecomposition_F64;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+
+/**
+ * Known failure modes of a point set for image-based servoing, in plain words: too few points, (nearly) collinear
+ * points, (nearly) coincident points and a near-singular interaction matrix.
+ *
+ * <p>Background: three points give up to four camera poses with the same image (Fischler &amp; Bolles 1981, CACM
+ * 24(6), from memory), so at least four are needed for a unique goal; collinear points leave L rank deficient and
+ * configurations near such sets make L ill conditioned (Michel &amp; Rives 1993, INRIA report 1880; Chaumette 1998,
+ * LNCIS 237, both from memory). The thresholds are rules of thumb (common practice, no source).
+ */
+public final class SetDiagnostics {
+    /** Fewest points a set may have. */
+    public static final int MIN_POINTS = 4;
+    /** Ratio of the minor to the major spread of the points below which they count as collinear. */
+    public static final double COLLINEAR_RATIO = 0.02;
+    /** Pixel distance below which two points count as coincident for a tracker. */
+    public static final double COINCIDENT_PX = 5.0;
+    /** Scaled cond(L*) above which L* counts as near singular. */
+    public static final double NEAR_SINGULAR_COND = 1000;
+
+    private SetDiagnostics() {}
+
+    /** How bad a finding is: an ERROR set must not be used, a WARNING one deserves a look. */
+    public enum Severity { ERROR, WARNING }
+
+    public enum Kind { TOO_FEW_POINTS, COLLINEAR, COINCIDENT, NEAR_SINGULAR }
+
+    /** One finding with its plain-words message. */
+    public record Finding(Kind kind, Severity severity, String message) {}
+
+    /** Checks a servo set's points. */
+    public static List<Finding> check(List<ServoPoint> pts) {
+        List<Finding> out = new ArrayList<>();
+        int n = pts.size();
+        if (n < MIN_POINTS) {
+            out.add(new Finding(Kind.TOO_FEW_POINTS, Severity.ERROR, "only " + n + " point" + (n == 1 ? "" : "s")
+                    + ": at least " + MIN_POINTS + " are needed (three points fit up to four camera poses, so the servo may settle at the wrong one)"));
+            if (n < 2) return out;
+        }
+        double ratio = spreadRatio(pts);
+        if (ratio < COLLINEAR_RATIO)
+            out.add(new Finding(Kind.COLLINEAR, Severity.ERROR, String.format(Locale.ROOT,
+                    "points %s lie on one line (minor/major spread %.4f < %.2f): the interaction matrix loses rank and the servo cannot control every motion",
+                    ids(pts), ratio, COLLINEAR_RATIO)));
+        for (int i = 0; i < n; i++)
+            for (int j = i + 1; j < n; j++) {
+                double d = Math.hypot(pts.get(i).u() - pts.get(j).u(), pts.get(i).v() - pts.get(j).v());
+                if (d < COINCIDENT_PX)
+                    out.add(new Finding(Kind.COINCIDENT, Severity.WARNING, String.format(Locale.ROOT,
+                            "points %d and %d are only %.1f px apart: a tracker can confuse them and L is close to losing rank",
+                            pts.get(i).id(), pts.get(j).id(), d)));
+            }
+        if (n >= 3 && ratio >= COLLINEAR_RATIO) {
+            InteractionMatrix.Conditioning c = ServoSet.conditioning(pts);
+            if (!(c.condition() <= NEAR_SINGULAR_COND))
+                out.add(new Finding(Kind.NEAR_SINGULAR, Severity.WARNING, String.format(Locale.ROOT,
+                        "cond(L*) = %.3g > %.0f: the interaction matrix is near singular; some camera motions barely move the points, so image noise becomes large velocity commands; spread the points wider",
+                        c.condition(), NEAR_SINGULAR_COND)));
+        }
+        return out;
+    }
+
+    /** True when any finding is an error. */
+    public static boolean hasError(List<Finding> findings) {
+        return findings.stream().anyMatch(f -> f.severity() == Severity.ERROR);
+    }
+
+    /**
+     * Ratio of the smaller to the larger singular value of the centred pixel positions: 0 for points on a line, 1 for
+     * an isotropic spread.
+     */
+    public static double spreadRatio(List<ServoPoint> pts) {
+        int n = pts.size();
+        double mu = 0, mv = 0;
+        for (ServoPoint p : pts) {
+            mu += p.u() / n;
+            mv += p.v() / n;
+        }
+        DMatrixRMaj m = new DMatrixRMaj(n, 2);
+        for (int i = 0; i < n; i++) {
+            m.set(i, 0, pts.get(i).u() - mu);
+            m.set(i, 1, pts.get(i).v() - mv);
+        }
+        SingularValueDecomposition_F64<DMatrixRMaj> svd = DecompositionFactory_DDRM.svd(n, 2, false, false, true);
+        if (!svd.decompose(m)) return 0;
+        double[] s = svd.getSingularValues();
+        int k = svd.numberOfSingularValues();
+        double max = 0, min = Double.POSITIVE_INFINITY;
+        for (int i = 0; i < k; i++) {
+            max = Math.max(max, s[i]);
+            min = Math.min(min, s[i]);
+        }
+        if (k < 2) min = 0;
+        return max == 0 ? 0 : min / max;
+    }
+
+    private static String ids(List<ServoPoint> pts) {
+        StringBuilder b = new StringBuilder();
+        for (ServoPoint p : pts) b.append(b.length() == 0 ? "" : ", ").append(p.id());
+        return b.toString();
+    }
+}
