@@ -249,7 +249,7 @@ final class DesignsView extends JPanel {
         List<Pose> poses = new ArrayList<>();
         for (double[] v : new double[][]{{0, 0, 0}, {10, 0, 0}, {0, 20, 0}, {-15, 15, 0}, {30, 0, 0}, {0, 0, 30}, {0, 0, 90}})
             poses.add(Pose.facing(d.widthMm(), d.heightMm(), dist, v[0], v[1], v[2], 0, 0));
-        Session.Scene scene = new Session.Scene(d, camera, DemoScenario.lighting(), dist);
+        Session.Scene scene = new Session.Scene(d, camera, DemoScenario.lighting(), dist, poses);
         LiveLoad.load(ctx, d.id(), () -> SourceLoader.read(d.id() + " rendered at " + Math.round(dist * 1000) + " mm",
                 new SyntheticSource(d, camera, poses, DemoScenario.lighting()), Optional.of(scene)));
     }

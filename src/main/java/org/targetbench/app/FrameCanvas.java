@@ -40,8 +40,8 @@ public final class FrameCanvas extends JComponent {
     private Point2D dragStart;
     private Consumer<Point2D> clickListener;
 
-    /** A labelled marker in image pixels (pixel-centre convention). */
-    public record Marker(double x, double y, String label, Color colour) {}
+    /** A marker in image pixels (pixel-centre convention): an outlined ring of {@code radius} screen pixels, with an optional label. */
+    public record Marker(double x, double y, String label, Color colour, double radius) {}
 
     public FrameCanvas(String name) {
         setName(name);
@@ -144,7 +144,8 @@ public final class FrameCanvas extends JComponent {
                 for (Detection d : e.getValue()) Overlay.ring(g, (d.x() + 0.5) * zoom, (d.y() + 0.5) * zoom, Palette.of(e.getKey()));
             for (Marker m : markers) {
                 double mx = (m.x() + 0.5) * zoom, my = (m.y() + 0.5) * zoom;
-                Overlay.ring(g, mx, my, m.colour(), 8);
+                Overlay.ring(g, mx, my, m.colour(), m.radius());
+                if (m.label().isEmpty()) continue;
                 g.setColor(Color.BLACK);
                 g.drawString(m.label(), (float) mx + 10, (float) my - 9);
                 g.setColor(Color.WHITE);

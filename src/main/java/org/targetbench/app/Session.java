@@ -24,7 +24,7 @@ import java.util.concurrent.CopyOnWriteArrayList;
  */
 public final class Session {
     /** What changed. */
-    public enum Change { SOURCE, FRAME, DETECTORS, SHOWN, DEGRADE, DETECTIONS }
+    public enum Change { SOURCE, FRAME, DETECTORS, SHOWN, DEGRADE, DETECTIONS, SERVO }
 
     public interface Listener {
         void changed(Change change);
@@ -66,7 +66,11 @@ public final class Session {
 
     /** The design scene behind a rendered source, so that sweeps can re-render it. */
     public record Scene(org.targetbench.target.TargetDesign design, org.targetbench.camera.CameraModel camera,
-                        org.targetbench.source.RenderConfig lighting, double standoffM) {}
+                        org.targetbench.source.RenderConfig lighting, double standoffM, List<org.targetbench.camera.Pose> poses) {
+        public Scene {
+            poses = List.copyOf(poses);
+        }
+    }
 
     private java.util.Optional<Scene> scene = java.util.Optional.empty();
 
@@ -87,6 +91,9 @@ public final class Session {
         for (int i = 0; i < frames.size(); i++) if (frames.get(i).name().equals(referenceName)) referenceIndex = i;
         frameIndex = referenceIndex;
         detections = null;
+        pick = null;
+        servoSet = null;
+        rehearsal = null;
         fire(Change.SOURCE);
         fire(Change.FRAME);
     }
@@ -145,6 +152,38 @@ public final class Session {
     }
 
     public FrameDetections detections() { return detections; }
+
+    private org.targetbench.pipeline.PickRun.Result pick;
+    private org.targetbench.servo.ServoSet servoSet;
+    private org.targetbench.servo.RehearsalResult rehearsal;
+
+    /** The latest servo point choice (candidates and reasons), or null before one was made. */
+    public org.targetbench.pipeline.PickRun.Result pick() { return pick; }
+
+    /** The servo set as chosen and then edited by hand, or null. */
+    public org.targetbench.servo.ServoSet servoSet() { return servoSet; }
+
+    /** The latest rehearsal of the current set, or null. */
+    public org.targetbench.servo.RehearsalResult rehearsal() { return rehearsal; }
+
+    public void setPick(org.targetbench.pipeline.PickRun.Result p) {
+        pick = p;
+        servoSet = p.set().orElse(null);
+        rehearsal = null;
+        fire(Change.SERVO);
+    }
+
+    /** Replaces the set (after a hand edit); an older rehearsal no longer applies. */
+    public void setServoSet(org.targetbench.servo.ServoSet set) {
+        servoSet = set;
+        rehearsal = null;
+        fire(Change.SERVO);
+    }
+
+    public void setRehearsal(org.targetbench.servo.RehearsalResult r) {
+        rehearsal = r;
+        fire(Change.SERVO);
+    }
 
     /** Called by the detection runner with results for the current state. */
     void setDetections(FrameDetections d) {

@@ -22,7 +22,8 @@ final class SourceLoader {
     private SourceLoader() {}
 
     static Loaded demo() throws SourceException {
-        Session.Scene scene = new Session.Scene(DemoScenario.target(), DemoScenario.camera(), DemoScenario.lighting(), DemoScenario.STANDOFF_M);
+        Session.Scene scene = new Session.Scene(DemoScenario.target(), DemoScenario.camera(), DemoScenario.lighting(), DemoScenario.STANDOFF_M,
+                DemoScenario.poses());
         try (FrameSource s = DemoScenario.source()) {
             return read("Demo: " + DemoScenario.target().name() + " on the fixture plate", s, Optional.of(scene));
         }

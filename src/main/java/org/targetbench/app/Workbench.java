@@ -45,6 +45,8 @@ public final class Workbench extends JFrame {
     private final Preferences prefs;
     private final DetectionRunner runner;
     private final LiveView live;
+    private final ServoView servo;
+    private final ExportView exportView;
 
     public Workbench(Preferences prefs) {
         super("TargetBench " + Version.get());
@@ -57,6 +59,9 @@ public final class Workbench extends JFrame {
         views.put("Live", live);
         views.put("Compare", new CompareView(ctx));
         views.put("Stress", new StressView(ctx));
+        views.put("Servo set", servo = new ServoView(ctx));
+        views.put("Rehearse", new RehearseView(ctx));
+        views.put("Export", exportView = new ExportView(ctx));
         views.put("Targets", new DesignsView(ctx));
         for (var e : views.entrySet()) center.add(e.getValue(), e.getKey());
 
@@ -124,6 +129,10 @@ public final class Workbench extends JFrame {
         bind(root, "SPACE", "play", live::togglePlay);
         bind(root, "RIGHT", "next", () -> session.setFrameIndex(session.frameIndex() + 1));
         bind(root, "LEFT", "previous", () -> session.setFrameIndex(session.frameIndex() - 1));
+        bind(root, "ctrl E", "export", () -> {
+            show("Export");
+            exportView.chooseAndExport();
+        });
     }
 
     private static void bind(JComponent c, String key, String name, Runnable r) {
@@ -151,6 +160,10 @@ public final class Workbench extends JFrame {
     public Session session() { return session; }
 
     LiveView live() { return live; }
+
+    ServoView servo() { return servo; }
+
+    ExportView exportView() { return exportView; }
 
     /** Names of the views, in navigation order. */
     public List<String> viewNames() { return new ArrayList<>(views.keySet()); }

@@ -49,23 +49,43 @@ public final class RehearsalReport {
 
     /** Writes the three charts and the HTML page under {@code prefix} ("" or "folder/"); returns the file names. */
     public static List<String> write(RehearsalResult r, ServoSet set, String setName, AtomicOutput out, String prefix) throws IOException {
+        Charts.png(errorChart(r), out.file(prefix + ERROR_CHART), Charts.WIDTH, Charts.HEIGHT);
+        Charts.png(pathsChart(r), out.file(prefix + PATHS_CHART), Charts.WIDTH, Charts.HEIGHT);
+        Charts.png(mapChart(r), out.file(prefix + MAP_CHART), Charts.WIDTH, Charts.HEIGHT);
+        Files.writeString(out.file(prefix + HTML), html(r, set, setName, out, prefix), StandardCharsets.UTF_8);
+        return List.of(ERROR_CHART, PATHS_CHART, MAP_CHART, HTML);
+    }
+
+    private static String runName(RunTrace t) {
+        return "run " + t.index() + " (" + t.outcome().label() + ")";
+    }
+
+    /** Image error against time for the sample runs, log scale, with the convergence threshold. */
+    public static JFreeChart errorChart(RehearsalResult r) {
         RehearsalConfig c = r.config();
-        List<Charts.Series> err = new ArrayList<>(), paths = new ArrayList<>();
-        for (RunTrace t : r.traces()) {
-            String name = "run " + t.index() + " (" + t.outcome().label() + ")";
-            err.add(new Charts.Series(name, t.timeS(), t.errorPx(), null));
-            double[] lat = new double[t.timeS().length], ax = t.cameraZMm(), xs = t.cameraXMm(), ys = t.cameraYMm();
-            for (int i = 0; i < lat.length; i++) lat[i] = Math.hypot(xs[i], ys[i]);
-            paths.add(new Charts.Series(name, lat, ax, null));
-        }
+        List<Charts.Series> err = new ArrayList<>();
+        for (RunTrace t : r.traces()) err.add(new Charts.Series(runName(t), t.timeS(), t.errorPx(), null));
         JFreeChart e = Charts.lines(String.format(Locale.ROOT, "Image error against time, %d sample runs (law %s, lambda %.2f 1/s)",
                 r.traces().size(), c.law.cliName(), c.lambda), "time, s", "image error, px RMS over points (log scale)", err, true);
         Charts.horizontalLine(e, c.convergedPx, "converged below " + c.convergedPx + " px");
-        Charts.png(e, out.file(prefix + ERROR_CHART), Charts.WIDTH, Charts.HEIGHT);
+        return e;
+    }
+
+    /** Camera paths of the sample runs in the reference camera frame, with the goal. */
+    public static JFreeChart pathsChart(RehearsalResult r) {
+        List<Charts.Series> paths = new ArrayList<>();
+        for (RunTrace t : r.traces()) {
+            double[] lat = new double[t.timeS().length], ax = t.cameraZMm(), xs = t.cameraXMm(), ys = t.cameraYMm();
+            for (int i = 0; i < lat.length; i++) lat[i] = Math.hypot(xs[i], ys[i]);
+            paths.add(new Charts.Series(runName(t), lat, ax, null));
+        }
         paths.add(new Charts.Series("reference pose (goal)", new double[]{0}, new double[]{0}, Color.BLACK));
-        JFreeChart p = Charts.lines("Camera paths in the reference camera frame, " + r.traces().size() + " sample runs",
+        return Charts.lines("Camera paths in the reference camera frame, " + r.traces().size() + " sample runs",
                 "distance from the reference optical axis, mm", "offset along the optical axis, mm (negative = retreat from the target)", paths, false);
-        Charts.png(p, out.file(prefix + PATHS_CHART), Charts.WIDTH, Charts.HEIGHT);
+    }
+
+    /** Outcome of every run over its start offset: the convergence map of the envelope. */
+    public static JFreeChart mapChart(RehearsalResult r) {
         Map<RunOutcome, List<RunResult>> by = new EnumMap<>(RunOutcome.class);
         for (RunResult x : r.runs()) by.computeIfAbsent(x.outcome(), k -> new ArrayList<>()).add(x);
         List<Charts.Series> map = new ArrayList<>();
@@ -74,11 +94,8 @@ public final class RehearsalReport {
             double[] ys = en.getValue().stream().mapToDouble(x -> x.start().translationMm()).toArray();
             map.add(new Charts.Series(en.getKey().label() + " (" + en.getValue().size() + ")", xs, ys, colour(en.getKey())));
         }
-        JFreeChart m = Charts.scatter(String.format(Locale.ROOT, "Convergence over the start envelope, %d starts", r.runs().size()),
+        return Charts.scatter(String.format(Locale.ROOT, "Convergence over the start envelope, %d starts", r.runs().size()),
                 "start rotation from the reference, deg", "start translation from the reference, mm", map);
-        Charts.png(m, out.file(prefix + MAP_CHART), Charts.WIDTH, Charts.HEIGHT);
-        Files.writeString(out.file(prefix + HTML), html(r, set, setName, out, prefix), StandardCharsets.UTF_8);
-        return List.of(ERROR_CHART, PATHS_CHART, MAP_CHART, HTML);
     }
 
     private static String html(RehearsalResult r, ServoSet set, String setName, AtomicOutput out, String prefix) throws IOException {

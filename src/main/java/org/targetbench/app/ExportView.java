@@ -1,0 +1,110 @@
+package org.targetbench.app;
+
+import org.targetbench.export.AtomicOutput;
+import org.targetbench.export.Safety;
+import org.targetbench.export.ServoSetFiles;
+import org.targetbench.export.ServoWriters;
+import org.targetbench.report.RehearsalReport;
+import org.targetbench.servo.ServoSet;
+
+import javax.swing.JButton;
+import javax.swing.JFileChooser;
+import javax.swing.JLabel;
+import javax.swing.JOptionPane;
+import javax.swing.JPanel;
+import javax.swing.JTextArea;
+import java.awt.BorderLayout;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+
+/**
+ * Writes the servo set (servo-set.json and servo-set.csv, the same files and formats as the command line), the
+ * selection reasons and, when the set was rehearsed, the rehearsal report. The safety notice must be acknowledged
+ * before the first export of a session.
+ */
+final class ExportView extends JPanel implements Session.Listener {
+    private final AppContext ctx;
+    private final Session session;
+    private final JLabel summary = Ui.named(new JLabel("No servo set yet."), "export.summary", null);
+    private final JButton export;
+    private boolean safetyAcknowledged;
+
+    ExportView(AppContext ctx) {
+        super(new BorderLayout(6, 6));
+        this.ctx = ctx;
+        this.session = ctx.session();
+        setName("view.export");
+        export = Ui.button("export.write", "Export servo set...", "Write servo-set.json and servo-set.csv to a folder (Ctrl+E)", this::chooseAndExport);
+        export.setEnabled(false);
+        JTextArea notice = new JTextArea(Safety.NOTICE);
+        notice.setName("export.safety");
+        notice.setLineWrap(true);
+        notice.setWrapStyleWord(true);
+        notice.setEditable(false);
+        notice.setBorder(javax.swing.BorderFactory.createTitledBorder("Safety"));
+        JPanel top = new JPanel(new BorderLayout());
+        top.add(Ui.row(export), BorderLayout.NORTH);
+        top.add(summary, BorderLayout.CENTER);
+        add(top, BorderLayout.NORTH);
+        add(notice, BorderLayout.CENTER);
+        session.addListener(this);
+    }
+
+    @Override
+    public void changed(Session.Change c) {
+        if (c != Session.Change.SERVO && c != Session.Change.SOURCE) return;
+        ServoSet s = session.servoSet();
+        export.setEnabled(s != null);
+        summary.setText(s == null ? "No servo set yet: choose one in the Servo set view." : String.format(Locale.ROOT,
+                "<html>%d points from %s on target %s; cond(L*) %.2f; %s</html>", s.points().size(), s.detector(), s.targetId(),
+                s.condition(), session.rehearsal() == null ? "<b>not rehearsed yet</b> (Rehearse view)"
+                        : String.format(Locale.ROOT, "rehearsed: %d of %d converged", session.rehearsal().summary().converged(), session.rehearsal().summary().runs())));
+    }
+
+    /** Shows the safety notice once per session; true when the user accepts it. */
+    boolean acknowledgeSafety() {
+        if (safetyAcknowledged) return true;
+        int answer = JOptionPane.showConfirmDialog(ctx.window(), "<html><body style='width:420px'>" + Safety.NOTICE
+                        + (session.rehearsal() == null ? "<br><br><b>This set has not been rehearsed.</b>" : "") + "</body></html>",
+                "Before exporting a servo set", JOptionPane.OK_CANCEL_OPTION, JOptionPane.WARNING_MESSAGE);
+        safetyAcknowledged = answer == JOptionPane.OK_OPTION;
+        return safetyAcknowledged;
+    }
+
+    void chooseAndExport() {
+        if (session.servoSet() == null || !acknowledgeSafety()) return;
+        JFileChooser fc = new JFileChooser(ctx.prefs().get("lastExportFolder", System.getProperty("user.dir")));
+        fc.setFileSelectionMode(JFileChooser.DIRECTORIES_ONLY);
+        fc.setDialogTitle("Folder for the servo set");
+        if (fc.showSaveDialog(ctx.window()) != JFileChooser.APPROVE_OPTION) return;
+        exportTo(fc.getSelectedFile().toPath());
+    }
+
+    /** Writes the set into {@code dir}; the safety notice must have been acknowledged. */
+    List<String> exportTo(Path dir) {
+        ServoSet set = session.servoSet();
+        if (set == null || !safetyAcknowledged) throw new IllegalStateException("export needs a set and the acknowledged safety notice");
+        ctx.prefs().put("lastExportFolder", dir.toString());
+        List<String> files = new ArrayList<>();
+        try (AtomicOutput out = AtomicOutput.open(dir)) {
+            files.addAll(List.of(ServoSetFiles.write(set, out, "servo-set")));
+            if (session.pick() != null) {
+                ServoWriters.writeSelection(session.pick().selection(), out.file("servo-set-selection.csv"));
+                files.add("servo-set-selection.csv");
+            }
+            if (session.rehearsal() != null)
+                for (String f : RehearsalReport.write(session.rehearsal(), set, "servo-set.json", out, "rehearsal/")) files.add("rehearsal/" + f);
+            out.commit();
+            ctx.status().accept("Exported " + String.join(", ", files) + " to " + dir);
+        } catch (Exception e) {
+            ctx.status().accept("Could not export: " + e.getMessage());
+            JOptionPane.showMessageDialog(ctx.window(), e.getMessage(), "Could not export", JOptionPane.WARNING_MESSAGE);
+        }
+        return files;
+    }
+
+    /** For tests and scripted use: marks the notice as read. */
+    void acknowledgeForTest() { safetyAcknowledged = true; }
+}

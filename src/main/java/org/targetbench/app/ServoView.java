@@ -1,0 +1,173 @@
+package org.targetbench.app;
+
+import org.targetbench.pipeline.PickRun;
+import org.targetbench.select.Candidate;
+import org.targetbench.select.Selection;
+import org.targetbench.servo.ServoPoint;
+import org.targetbench.servo.ServoSet;
+import org.targetbench.servo.SetDiagnostics;
+
+import javax.swing.JButton;
+import javax.swing.JLabel;
+import javax.swing.JPanel;
+import javax.swing.JScrollPane;
+import javax.swing.JSpinner;
+import javax.swing.JSplitPane;
+import javax.swing.JTable;
+import javax.swing.SpinnerNumberModel;
+import javax.swing.SwingWorker;
+import javax.swing.table.DefaultTableModel;
+import java.awt.BorderLayout;
+import java.awt.Color;
+import java.awt.Dimension;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Set;
+import java.util.concurrent.ExecutionException;
+import java.util.stream.Collectors;
+
+/**
+ * The servo set: choose points servo-aware (robust, spread, a well-conditioned interaction matrix) on the reference
+ * frame, see why each was chosen and why every other candidate was not, and click a point to add or remove it; the
+ * figures of the set recompute at once.
+ */
+final class ServoView extends JPanel implements Session.Listener {
+    /** Click distance within which a candidate is picked, image pixels. */
+    static final double CLICK_RADIUS_PX = 8;
+    static final Color CHOSEN = new Color(0, 158, 115), CANDIDATE = new Color(160, 160, 160);
+
+    private final AppContext ctx;
+    private final Session session;
+    private final FrameCanvas canvas = new FrameCanvas("servo.canvas");
+    private final JSpinner count = Ui.named(new JSpinner(new SpinnerNumberModel(4, 4, 8, 1)), "servo.count", "Points in the set, 4 to 8");
+    private final JLabel figures = Ui.named(new JLabel("No set yet: press Choose points."), "servo.figures", Ui.TIP_COND);
+    private final JLabel findings = Ui.named(new JLabel(" "), "servo.findings", null);
+    private final DefaultTableModel chosen = table("Id", "u px", "v px", "Z m", "Why chosen");
+    private final DefaultTableModel rejected = table("Id", "u px", "v px", "Why not");
+    private final JButton choose;
+
+    private static DefaultTableModel table(Object... cols) {
+        return new DefaultTableModel(cols, 0) {
+            @Override public boolean isCellEditable(int r, int c) { return false; }
+        };
+    }
+
+    ServoView(AppContext ctx) {
+        super(new BorderLayout(6, 6));
+        this.ctx = ctx;
+        this.session = ctx.session();
+        setName("view.servo");
+        choose = Ui.button("servo.choose", "Choose points", "Compare the loaded frames and choose the servo points on the reference frame", this::choose);
+        add(Ui.row(choose, new JLabel("Points"), count, new JLabel("  Click a point on the frame to add it to the set or take it out.")), BorderLayout.NORTH);
+        canvas.onClick(p -> toggleAt(p.getX(), p.getY()));
+        JPanel right = new JPanel(new BorderLayout());
+        JPanel figs = new JPanel(new java.awt.GridLayout(0, 1));
+        figs.add(figures);
+        figs.add(findings);
+        right.add(figs, BorderLayout.NORTH);
+        JTable ct = Ui.named(new JTable(chosen), "servo.chosen", null), rt = Ui.named(new JTable(rejected), "servo.rejected", null);
+        JSplitPane tables = new JSplitPane(JSplitPane.VERTICAL_SPLIT, new JScrollPane(ct), new JScrollPane(rt));
+        tables.setResizeWeight(0.4);
+        right.add(tables, BorderLayout.CENTER);
+        right.setPreferredSize(new Dimension(520, 400));
+        JSplitPane split = new JSplitPane(JSplitPane.HORIZONTAL_SPLIT, canvas, right);
+        split.setResizeWeight(0.6);
+        add(split, BorderLayout.CENTER);
+        session.addListener(this);
+    }
+
+    void choose() {
+        if (!session.hasFrames()) return;
+        if (session.scene().isEmpty()) {
+            ctx.status().accept(ServoChoice.noScene().getMessage());
+            figures.setText("This source has no reference pose: load the demo scene or use a target from the Targets view.");
+            return;
+        }
+        var frames = session.frames();
+        String ref = session.reference().name(), name = session.sourceName();
+        var scene = session.scene().get();
+        var configs = session.configs();
+        int k = (Integer) count.getValue();
+        choose.setEnabled(false);
+        ctx.status().accept("Choosing " + k + " servo points...");
+        new SwingWorker<PickRun.Result, Void>() {
+            @Override protected PickRun.Result doInBackground() throws Exception {
+                return ServoChoice.pick(frames, ref, name, scene, configs, k);
+            }
+            @Override protected void done() {
+                choose.setEnabled(true);
+                try {
+                    PickRun.Result r = get();
+                    session.setPick(r);
+                    ctx.status().accept(r.set().isPresent() ? "Chose " + r.set().get().points().size() + " points from " + r.candidates().size()
+                            + " " + r.detector() + " candidates" : "No acceptable set: " + r.selection().message());
+                } catch (ExecutionException e) {
+                    ctx.status().accept("Could not choose points: " + e.getCause().getMessage());
+                } catch (InterruptedException e) {
+                    Thread.currentThread().interrupt();
+                }
+            }
+        }.execute();
+    }
+
+    private void toggleAt(double x, double y) {
+        PickRun.Result pick = session.pick();
+        ServoSet set = session.servoSet();
+        if (pick == null || set == null) return;
+        Candidate c = ServoChoice.nearest(pick.candidates(), x, y, CLICK_RADIUS_PX);
+        if (c == null) return;
+        toggle(c.id());
+    }
+
+    /** Adds or removes a candidate by id (the click handler's work; also for keyboard and tests). */
+    void toggle(int id) {
+        PickRun.Result pick = session.pick();
+        ServoSet set = session.servoSet();
+        if (pick == null || set == null) return;
+        ServoSet next = ServoChoice.toggle(set, pick.candidates(), id);
+        if (next == null) {
+            ctx.status().accept("A servo set needs points; the last one stays");
+            return;
+        }
+        session.setServoSet(next);
+    }
+
+    @Override
+    public void changed(Session.Change c) {
+        if (c == Session.Change.SOURCE) {
+            chosen.setRowCount(0);
+            rejected.setRowCount(0);
+            figures.setText("No set yet: press Choose points.");
+            findings.setText(" ");
+            canvas.setMarkers(List.of());
+            if (session.hasFrames()) canvas.setFrame(session.reference().image());
+        }
+        if (c != Session.Change.SERVO) return;
+        PickRun.Result pick = session.pick();
+        ServoSet set = session.servoSet();
+        canvas.setFrame(session.reference().image());
+        List<FrameCanvas.Marker> marks = new ArrayList<>();
+        Set<Integer> in = set == null ? Set.of() : set.points().stream().map(ServoPoint::id).collect(Collectors.toSet());
+        if (pick != null) for (Candidate cand : pick.candidates())
+            if (!in.contains(cand.id())) marks.add(new FrameCanvas.Marker(cand.u(), cand.v(), "", CANDIDATE, 4));
+        if (set != null) for (ServoPoint p : set.points()) marks.add(new FrameCanvas.Marker(p.u(), p.v(), "#" + p.id(), CHOSEN, 9));
+        canvas.setMarkers(marks);
+        chosen.setRowCount(0);
+        rejected.setRowCount(0);
+        if (set == null) {
+            figures.setText(pick == null ? "No set yet." : "No acceptable set: " + pick.selection().message());
+            findings.setText(" ");
+            return;
+        }
+        figures.setText(String.format(Locale.ROOT, "<html><b>cond(L*) %.2f</b> &nbsp; sigma_min %.4f &nbsp; %d points &nbsp; detector %s</html>",
+                set.condition(), set.sigmaMin(), set.points().size(), set.detector()));
+        var f = SetDiagnostics.check(set.points());
+        findings.setText(f.isEmpty() ? "No warnings." : "<html>" + f.stream().map(x -> x.severity() + ": " + x.message()).collect(Collectors.joining("<br>")) + "</html>");
+        for (ServoPoint p : set.points())
+            chosen.addRow(new Object[]{p.id(), Ui.fmt(p.u(), 2), Ui.fmt(p.v(), 2), Ui.fmt(p.zM(), 4), p.reason()});
+        if (pick != null) for (Selection.Rejected r : pick.selection().rejected())
+            if (!in.contains(r.candidate().id()))
+                rejected.addRow(new Object[]{r.candidate().id(), Ui.fmt(r.candidate().u(), 1), Ui.fmt(r.candidate().v(), 1), r.reason()});
+    }
+}
