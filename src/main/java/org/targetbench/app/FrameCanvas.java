@@ -111,6 +111,11 @@ public final class FrameCanvas extends JComponent {
         repaint();
     }
 
+    /** Component point showing an image pixel (pixel-centre convention). */
+    java.awt.Point toScreen(double x, double y) {
+        return new java.awt.Point((int) Math.round((x + 0.5) * zoom + panX), (int) Math.round((y + 0.5) * zoom + panY));
+    }
+
     /** Image pixel under a component point, pixel-centre convention. */
     Point2D toImage(double x, double y) {
         return new Point2D.Double((x - panX) / zoom - 0.5, (y - panY) / zoom - 0.5);

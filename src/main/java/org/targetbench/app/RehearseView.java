@@ -40,7 +40,7 @@ final class RehearseView extends JPanel implements Session.Listener {
     private final DefaultTableModel table = new DefaultTableModel(new Object[]{"Figure", "Value"}, 0) {
         @Override public boolean isCellEditable(int r, int c) { return false; }
     };
-    private final JPanel charts = new JPanel(new GridLayout(0, 2, 4, 4));
+    private final JPanel charts = new JPanel(new GridLayout(0, 1, 4, 4));
     private final JLabel warnings = Ui.named(new JLabel(" "), "rehearse.warnings", null);
     private final JButton run;
 
@@ -50,6 +50,11 @@ final class RehearseView extends JPanel implements Session.Listener {
         this.session = ctx.session();
         setName("view.rehearse");
         law.setSelectedItem(ControlLaw.MEAN);
+        law.setRenderer(new javax.swing.DefaultListCellRenderer() {
+            @Override public java.awt.Component getListCellRendererComponent(javax.swing.JList<?> l, Object v, int i, boolean sel, boolean f) {
+                return super.getListCellRendererComponent(l, v instanceof ControlLaw c ? c.cliName() : v, i, sel, f);
+            }
+        });
         run = Ui.button("rehearse.run", "Rehearse", "Simulate the closed loop from every start pose", this::rehearse);
         add(Ui.row(run, new JLabel("Starts"), starts, new JLabel("Lambda 1/s"), lambda, new JLabel("Law"), law), BorderLayout.NORTH);
         JPanel left = new JPanel(new BorderLayout());
@@ -113,7 +118,7 @@ final class RehearseView extends JPanel implements Session.Listener {
             warnings.setText(r.warnings().isEmpty() ? "No warnings." : "<html>" + String.join("<br>", r.warnings()) + "</html>");
             for (JFreeChart ch : new JFreeChart[]{RehearsalReport.errorChart(r), RehearsalReport.pathsChart(r), RehearsalReport.mapChart(r)}) {
                 ChartPanel cp = new ChartPanel(ch);
-                cp.setPreferredSize(new Dimension(480, 300));
+                cp.setPreferredSize(new Dimension(680, 340));
                 charts.add(cp);
             }
         }

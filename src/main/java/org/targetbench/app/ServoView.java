@@ -77,6 +77,8 @@ final class ServoView extends JPanel implements Session.Listener {
         session.addListener(this);
     }
 
+    FrameCanvas canvas() { return canvas; }
+
     void choose() {
         if (!session.hasFrames()) return;
         if (session.scene().isEmpty()) {

@@ -141,4 +141,51 @@ class WorkbenchGuiTest {
         waitFor("ranking filled", () -> window.table("compare.ranking").target().getRowCount() == 5);
         shot("compare-ranked");
     }
+
+    @Test
+    @Order(6)
+    void aServoSetIsChosenEditedRehearsedAndExported(@org.junit.jupiter.api.io.TempDir Path tmp) throws Exception {
+        window.list("nav").selectItem("Servo set");
+        window.button("servo.choose").click();
+        waitFor("servo set chosen", () -> workbench.session().servoSet() != null);
+        var set = GuiActionRunner.execute(() -> workbench.session().servoSet());
+        assertEquals(4, set.points().size());
+        shot("servo-set");
+        // click the first chosen point on the frame: it leaves the set and cond(L*) changes
+        var p = set.points().get(0);
+        java.awt.Point at = GuiActionRunner.execute(() -> workbench.servo().canvas().toScreen(p.u(), p.v()));
+        robot.click(workbench.servo().canvas(), at);
+        waitFor("point removed", () -> workbench.session().servoSet().points().size() == 3);
+        double without = GuiActionRunner.execute(() -> workbench.session().servoSet().condition());
+        assertNotEquals(set.condition(), without, "cond(L*) must change when a point leaves the set");
+        window.label("servo.figures").requireText(java.util.regex.Pattern.compile(".*cond\\(L\\*\\) " + String.format(java.util.Locale.ROOT, "%.2f", without) + ".*"));
+        pause(800); // longer than the double-click interval: a second click soon after would count as a double click
+        robot.click(workbench.servo().canvas(), at);
+        waitFor("point back", () -> workbench.session().servoSet().points().size() == 4);
+        assertEquals(set.condition(), GuiActionRunner.execute(() -> workbench.session().servoSet().condition()), 1e-9);
+
+        window.list("nav").selectItem("Rehearse");
+        window.spinner("rehearse.starts").enterTextAndCommit("20");
+        window.button("rehearse.run").click();
+        waitFor("rehearsed", () -> workbench.session().rehearsal() != null);
+        pause(300);
+        shot("rehearse");
+
+        window.list("nav").selectItem("Export");
+        shot("export");
+        // the safety notice comes first; cancelling it exports nothing
+        window.button("export.write").click();
+        window.optionPane().requireTitle("Before exporting a servo set").cancelButton().click();
+        Path dir = tmp.resolve("exported");
+        Files.createDirectories(dir);
+        window.button("export.write").click();
+        window.optionPane().okButton().click();
+        window.fileChooser().setCurrentDirectory(tmp.toFile()).selectFile(dir.toFile()).approve();
+        waitFor("exported", () -> Files.exists(dir.resolve("servo-set.json")));
+        var current = GuiActionRunner.execute(() -> workbench.session().servoSet());
+        // what the app wrote, read back by the command line's importer, is the same set
+        assertEquals(current, org.targetbench.export.ServoSetFiles.read(dir.resolve("servo-set.json")));
+        assertEquals(current, org.targetbench.export.ServoSetFiles.read(dir.resolve("servo-set.csv")));
+        assertTrue(Files.exists(dir.resolve("rehearsal/rehearsal.html")));
+    }
 }
