@@ -6,8 +6,11 @@ public final class SiftConfig extends DetectorConfig {
     public double sigma0 = 1.6;
     /** Scales per octave in which extrema are sought (Lowe 2004 uses 3). */
     public int scalesPerOctave = 3;
-    /** First octave; -1 doubles the image first, as Lowe 2004 recommends. */
-    public int firstOctave = -1;
+    /**
+     * First octave; -1 doubles the image first, as Lowe 2004 recommends (about twice the stable points at the finest
+     * scales, at about four times the cost). 0, the default, keeps the bench fast enough for sweeps on a laptop.
+     */
+    public int firstOctave = 0;
     /** Last octave. */
     public int lastOctave = 5;
     /** Edge-response limit r on the Hessian ratio (Lowe 2004 uses 10). */
