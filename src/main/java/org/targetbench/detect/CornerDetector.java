@@ -1,12 +1,12 @@
 package org.targetbench.detect;
 
-import boofcv.abst.feature.detect.interest.ConfigGeneralDetector;
-import boofcv.abst.feature.detect.interest.ConfigHarrisCorner;
-import boofcv.abst.feature.detect.interest.ConfigShiTomasi;
+import boofcv.abst.feature.detect.extract.ConfigExtract;
+import boofcv.abst.feature.detect.extract.NonMaxSuppression;
 import boofcv.abst.filter.derivative.ImageGradient;
-import boofcv.alg.feature.detect.interest.GeneralFeatureDetector;
+import boofcv.alg.feature.detect.intensity.GradientCornerIntensity;
 import boofcv.alg.misc.ImageStatistics;
-import boofcv.factory.feature.detect.interest.FactoryDetectPoint;
+import boofcv.factory.feature.detect.extract.FactoryFeatureExtractor;
+import boofcv.factory.feature.detect.intensity.FactoryIntensityPointAlg;
 import boofcv.factory.filter.derivative.FactoryDerivative;
 import boofcv.struct.QueueCorner;
 import boofcv.struct.image.GrayF32;
@@ -32,20 +32,20 @@ import java.util.List;
  */
 final class CornerDetector implements PointDetector {
     private final CornerConfig config;
-    private final GeneralFeatureDetector<GrayF32, GrayF32> detector;
+    private final GradientCornerIntensity<GrayF32> intensity;
+    private final NonMaxSuppression nonMax;
     private final ImageGradient<GrayF32, GrayF32> gradient = FactoryDerivative.sobel(GrayF32.class, GrayF32.class);
-    private final GrayF32 dx = new GrayF32(1, 1), dy = new GrayF32(1, 1);
+    private final GrayF32 dx = new GrayF32(1, 1), dy = new GrayF32(1, 1), response = new GrayF32(1, 1);
+    private final QueueCorner peaks = new QueueCorner();
 
     CornerDetector(CornerConfig config) {
         this.config = config;
-        ConfigGeneralDetector general = new ConfigGeneralDetector(-1, config.nmsRadius, 0f);
-        general.useStrictRule = false;
-        if (config instanceof HarrisConfig h) {
-            detector = FactoryDetectPoint.createHarris(general, new ConfigHarrisCorner(h.weighted, h.windowRadius, h.kappa), GrayF32.class);
-        } else {
-            detector = FactoryDetectPoint.createShiTomasi(general, new ConfigShiTomasi(config.weighted, config.windowRadius), GrayF32.class);
-        }
-        detector.setFeatureLimit(-1);
+        intensity = config instanceof HarrisConfig h
+                ? FactoryIntensityPointAlg.harris(h.windowRadius, (float) h.kappa, h.weighted, GrayF32.class)
+                : FactoryIntensityPointAlg.shiTomasi(config.windowRadius, config.weighted, GrayF32.class);
+        // non-strict, so flat-topped peaks are kept; maxima only; the border the window cannot see is skipped
+        nonMax = FactoryFeatureExtractor.nonmax(new ConfigExtract(config.nmsRadius, 0f,
+                Math.max(config.nmsRadius, intensity.getIgnoreBorder()), false, false, true));
     }
 
     @Override public DetectorType type() { return config.type(); }
@@ -55,12 +55,16 @@ final class CornerDetector implements PointDetector {
         dx.reshape(image.width, image.height);
         dy.reshape(image.width, image.height);
         gradient.process(image, dx, dy);
-        detector.process(image, dx, dy, null, null, null);
-        GrayF32 r = detector.getIntensity();
+        response.reshape(image.width, image.height);
+        intensity.process(dx, dy, response);
+        GrayF32 r = response;
         double strongest = ImageStatistics.max(r);
         double cut = Math.max(config.minResponse,
                 config.thresholdMode == ThresholdMode.RELATIVE ? config.threshold * strongest : config.threshold);
-        QueueCorner peaks = detector.getMaximums();
+        // thresholding inside the suppression spares it the many weak maxima of texture and noise
+        nonMax.setThresholdMaximum((float) Math.max(cut, Float.MIN_VALUE));
+        peaks.reset();
+        nonMax.process(r, null, null, null, peaks);
         List<Detection> candidates = new ArrayList<>(peaks.size);
         for (int i = 0; i < peaks.size; i++) {
             Point2D_I16 p = peaks.get(i);

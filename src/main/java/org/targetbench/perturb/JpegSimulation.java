@@ -66,24 +66,39 @@ public final class JpegSimulation {
         return out;
     }
 
-    /** F(u,v) = 1/4 C(u) C(v) Σ f(x,y) cos((2x+1)uπ/16) cos((2y+1)vπ/16), T.81 eq. A.3.3. */
+    /**
+     * F(u,v) = 1/4 C(u) C(v) Σ f(x,y) cos((2x+1)uπ/16) cos((2y+1)vπ/16), T.81 eq. A.3.3, computed separably
+     * (rows, then columns).
+     */
     static void forward(double[] f, double[] out) {
+        double[] tmp = new double[64];
+        for (int y = 0; y < 8; y++)
+            for (int u = 0; u < 8; u++) {
+                double s = 0;
+                for (int x = 0; x < 8; x++) s += f[y * 8 + x] * COS[x][u];
+                tmp[y * 8 + u] = s;
+            }
         for (int v = 0; v < 8; v++)
             for (int u = 0; u < 8; u++) {
                 double s = 0;
-                for (int y = 0; y < 8; y++)
-                    for (int x = 0; x < 8; x++) s += f[y * 8 + x] * COS[x][u] * COS[y][v];
+                for (int y = 0; y < 8; y++) s += tmp[y * 8 + u] * COS[y][v];
                 out[v * 8 + u] = 0.25 * c(u) * c(v) * s;
             }
     }
 
-    /** f(x,y) = 1/4 Σ C(u) C(v) F(u,v) cos((2x+1)uπ/16) cos((2y+1)vπ/16), T.81 eq. A.3.3. */
+    /** f(x,y) = 1/4 Σ C(u) C(v) F(u,v) cos((2x+1)uπ/16) cos((2y+1)vπ/16), T.81 eq. A.3.3, computed separably. */
     static void inverse(double[] coef, double[] out) {
+        double[] tmp = new double[64];
+        for (int v = 0; v < 8; v++)
+            for (int x = 0; x < 8; x++) {
+                double s = 0;
+                for (int u = 0; u < 8; u++) s += c(u) * coef[v * 8 + u] * COS[x][u];
+                tmp[v * 8 + x] = s;
+            }
         for (int y = 0; y < 8; y++)
             for (int x = 0; x < 8; x++) {
                 double s = 0;
-                for (int v = 0; v < 8; v++)
-                    for (int u = 0; u < 8; u++) s += c(u) * c(v) * coef[v * 8 + u] * COS[x][u] * COS[y][v];
+                for (int v = 0; v < 8; v++) s += c(v) * tmp[v * 8 + x] * COS[y][v];
                 out[y * 8 + x] = 0.25 * s;
             }
     }

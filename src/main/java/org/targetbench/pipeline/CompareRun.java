@@ -55,6 +55,7 @@ public final class CompareRun {
         if (threads < 1) throw new IllegalArgumentException("threads must be >= 1, got " + threads);
         for (DetectorConfig c : configs) c.checkValidity();
         this.configs = configs.stream().map(DetectorConfig::copy).toList();
+        Threads.coarseOnly();
         this.epsilon = epsilon;
         this.threads = threads;
     }

@@ -49,6 +49,7 @@ public final class SweepRun {
     public SweepRun(SweepConfig config) {
         config.checkValidity();
         this.config = config;
+        Threads.coarseOnly();
     }
 
     /** Cells in a sweep of {@code base}. */
