@@ -1,9 +1,7 @@
 package org.targetbench.detect;
 
 import boofcv.alg.feature.detect.extract.NonMaxCandidate;
-import boofcv.alg.feature.detect.intensity.FastCornerDetector;
 import boofcv.alg.misc.ImageMiscOps;
-import boofcv.factory.feature.detect.intensity.FactoryIntensityPointAlg;
 import boofcv.struct.QueueCorner;
 import boofcv.struct.image.GrayF32;
 import boofcv.struct.image.GrayU8;
@@ -20,21 +18,23 @@ import java.util.List;
  * without a cap, their score magnitudes compared on one scale, and the strongest {@code maxFeatures} kept
  * whatever their polarity. Non-maximum suppression runs within each polarity.
  *
- * <p>Non-maximum suppression (strict: a point must beat every other score within {@code nmsRadius}) visits only the
- * pixels that passed the segment test, not the whole score image. Every other pixel scores exactly 0 and is never
- * reported, so the result is the same as a full-image search, at a fraction of the cost.
+ * <p>Speed without changing the result: the segment test skips pixels that fail a necessary compass-point check
+ * ({@link FastSegmentTest}), and non-maximum suppression (strict: a point must beat every other score within
+ * {@code nmsRadius}) visits only the pixels that passed the segment test rather than the whole score image. Every
+ * other pixel scores exactly 0 and is never reported, so both shortcuts find the same points as BoofCV's general
+ * FAST detector.
  *
  * <p>Caveats: integer-pixel positions (the segment test gives no sub-pixel information); no smoothing, so noise
- * creates corners. Works on the 8-bit rounding of the frame.
+ * creates corners. Works on the 8-bit rounding of the frame. Single threaded.
  *
  * <p>Reference: [1] E. Rosten, T. Drummond, "Machine learning for high-speed corner detection", ECCV 2006.
  */
 final class FastDetector implements PointDetector {
     /** Radius of the Bresenham circle of 16 pixels, pixels. */
-    static final double CIRCLE_RADIUS = 3;
+    static final double CIRCLE_RADIUS = FastSegmentTest.RADIUS;
 
     private final FastConfig config;
-    private final FastCornerDetector<GrayU8> segmentTest;
+    private final FastSegmentTest segmentTest;
     private final NonMaxCandidate nonMax = new NonMaxCandidate(new NonMaxCandidate.Strict());
     private final GrayU8 bytes = new GrayU8(1, 1);
     /** Signed FAST score per pixel: negative for the one polarity, positive for the other, 0 for no corner. */
@@ -43,12 +43,12 @@ final class FastDetector implements PointDetector {
 
     FastDetector(FastConfig config) {
         this.config = config;
-        segmentTest = FactoryIntensityPointAlg.fast(config.pixelTolerance, config.minContinuous, GrayU8.class);
+        segmentTest = new FastSegmentTest(config.pixelTolerance, config.minContinuous);
         nonMax.setSearchRadius(config.nmsRadius);
         nonMax.setThresholdMin(0f);
         nonMax.setThresholdMax(0f);
         // peaks closer to the edge than the search radius or the circle are ignored, as in BoofCV's general detector
-        nonMax.setBorder(Math.max(config.nmsRadius, segmentTest.getIgnoreBorder()));
+        nonMax.setBorder(Math.max(config.nmsRadius, FastSegmentTest.RADIUS));
     }
 
     @Override public DetectorType type() { return DetectorType.FAST; }
@@ -61,7 +61,7 @@ final class FastDetector implements PointDetector {
             ImageMiscOps.fill(score, 0); // the segment test never writes the border; it must read as "no corner"
         }
         segmentTest.process(u8, score);
-        nonMax.process(score, segmentTest.getCandidatesLow(), segmentTest.getCandidatesHigh(), negativePeaks, positivePeaks);
+        nonMax.process(score, segmentTest.negative, segmentTest.positive, negativePeaks, positivePeaks);
         List<Detection> candidates = new ArrayList<>(negativePeaks.size + positivePeaks.size);
         double strongest = 0;
         for (QueueCorner set : new QueueCorner[]{negativePeaks, positivePeaks}) {

@@ -2,8 +2,11 @@ package org.targetbench.detect;
 
 import boofcv.abst.feature.detect.interest.ConfigFastCorner;
 import boofcv.abst.feature.detect.interest.ConfigGeneralDetector;
+import boofcv.alg.feature.detect.intensity.FastCornerDetector;
 import boofcv.alg.feature.detect.interest.GeneralFeatureDetector;
+import boofcv.factory.feature.detect.intensity.FactoryIntensityPointAlg;
 import boofcv.factory.feature.detect.interest.FactoryDetectPoint;
+import boofcv.struct.ListIntPoint2D;
 import boofcv.struct.QueueCorner;
 import boofcv.struct.image.GrayF32;
 import boofcv.struct.image.GrayS16;
@@ -15,16 +18,20 @@ import org.targetbench.source.SourceFrame;
 import org.targetbench.source.SyntheticSource;
 
 import java.util.ArrayList;
+import java.util.HashSet;
 import java.util.List;
 import java.util.Optional;
 import java.util.Random;
+import java.util.Set;
 
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
 /**
  * {@link FastDetector} must find exactly what BoofCV's general FAST detector finds (segment test, full-image strict
  * non-maximum suppression per polarity), merged by |score| and cut to maxFeatures. The reference below is that
- * straightforward pipeline; the detector takes shortcuts that must not change a single point.
+ * straightforward pipeline; the detector takes shortcuts that must not change a single point. The segment test on its
+ * own must reproduce BoofCV's score image exactly.
  */
 class FastDetectorTest {
     @Test
@@ -53,6 +60,38 @@ class FastDetectorTest {
                             c.maxFeatures = max;
                             assertSame(c, image);
                         }
+    }
+
+    @Test
+    void segmentTestMatchesBoofCvScoreForScore() {
+        Random random = new Random(7);
+        List<GrayF32> images = List.of(noise(random, 90, 64, 0), noise(random, 90, 64, 1), noise(random, 90, 64, 3),
+                checkerboard(random, 90, 64));
+        for (GrayF32 image : images) {
+            GrayU8 u8 = Detectors.toU8(image, new GrayU8(1, 1));
+            for (int tolerance : new int[]{1, 10, 20, 40, 90})
+                for (int contiguous = 9; contiguous <= 12; contiguous++) {
+                    FastCornerDetector<GrayU8> boof = FactoryIntensityPointAlg.fast(tolerance, contiguous, GrayU8.class);
+                    GrayF32 expected = new GrayF32(u8.width, u8.height), actual = new GrayF32(u8.width, u8.height);
+                    boof.process(u8, expected);
+                    FastSegmentTest ours = new FastSegmentTest(tolerance, contiguous);
+                    ours.process(u8, actual);
+                    String what = "tolerance " + tolerance + ", n " + contiguous;
+                    assertArrayEquals(expected.data, actual.data, what);
+                    assertEquals(points(boof.getCandidatesLow()), points(ours.negative), what);
+                    assertEquals(points(boof.getCandidatesHigh()), points(ours.positive), what);
+                }
+        }
+    }
+
+    private static Set<Point2D_I16> points(ListIntPoint2D list) {
+        Set<Point2D_I16> out = new HashSet<>();
+        for (int i = 0; i < list.size(); i++) {
+            Point2D_I16 p = new Point2D_I16();
+            list.get(i, p);
+            out.add(p);
+        }
+        return out;
     }
 
     private static void assertSame(FastConfig config, GrayF32 image) {
