@@ -32,6 +32,9 @@ final class BenchEnvironment {
                 frames.count(), frames.width(), frames.height());
         out.printf(Locale.ROOT, "Runs     %d timed runs after %d warm-up runs per measurement (per thread when all cores)%n",
                 options.runs(), options.warmup());
+        out.printf(Locale.ROOT, "Load     %s%n", loadAverage()
+                .map(l -> "1-min load average " + l + " at start (above about 0.5, other processes share the cores and slow every column)")
+                .orElse("unknown"));
         if (options.quick()) out.println("QUICK SMOKE RUN: too few runs for a measurement; do not quote these numbers.");
         out.println();
     }
@@ -39,6 +42,16 @@ final class BenchEnvironment {
     private static String env(String name) {
         String v = System.getenv(name);
         return v == null ? "(unset)" : v;
+    }
+
+    /** The 1-minute load average from /proc/loadavg, where there is one. */
+    private static Optional<String> loadAverage() {
+        try {
+            String[] f = Files.readString(Path.of("/proc/loadavg")).trim().split("\\s+");
+            return f.length > 0 ? Optional.of(f[0]) : Optional.empty();
+        } catch (IOException | RuntimeException e) {
+            return Optional.empty();
+        }
     }
 
     /** The first "model name" of /proc/cpuinfo, where there is one. */
