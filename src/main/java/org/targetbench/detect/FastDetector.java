@@ -1,12 +1,9 @@
 package org.targetbench.detect;
 
-import boofcv.abst.feature.detect.interest.ConfigGeneralDetector;
-import boofcv.alg.feature.detect.interest.GeneralFeatureDetector;
-import boofcv.abst.feature.detect.interest.ConfigFastCorner;
-import boofcv.factory.feature.detect.interest.FactoryDetectPoint;
+import boofcv.alg.feature.detect.extract.NonMaxCandidate;
+import boofcv.alg.misc.ImageMiscOps;
 import boofcv.struct.QueueCorner;
 import boofcv.struct.image.GrayF32;
-import boofcv.struct.image.GrayS16;
 import boofcv.struct.image.GrayU8;
 import georegression.struct.point.Point2D_I16;
 
@@ -21,35 +18,53 @@ import java.util.List;
  * without a cap, their score magnitudes compared on one scale, and the strongest {@code maxFeatures} kept
  * whatever their polarity. Non-maximum suppression runs within each polarity.
  *
+ * <p>Speed without changing the result: the segment test skips pixels that fail a necessary compass-point check
+ * ({@link FastSegmentTest}), and non-maximum suppression (strict: a point must beat every other score within
+ * {@code nmsRadius}) visits only the pixels that passed the segment test rather than the whole score image. Every
+ * other pixel scores exactly 0 and is never reported, so both shortcuts find the same points as BoofCV's general
+ * FAST detector.
+ *
  * <p>Caveats: integer-pixel positions (the segment test gives no sub-pixel information); no smoothing, so noise
- * creates corners. Works on the 8-bit rounding of the frame.
+ * creates corners. Works on the 8-bit rounding of the frame. Single threaded.
  *
  * <p>Reference: [1] E. Rosten, T. Drummond, "Machine learning for high-speed corner detection", ECCV 2006.
  */
 final class FastDetector implements PointDetector {
     /** Radius of the Bresenham circle of 16 pixels, pixels. */
-    static final double CIRCLE_RADIUS = 3;
+    static final double CIRCLE_RADIUS = FastSegmentTest.RADIUS;
 
     private final FastConfig config;
-    private final GeneralFeatureDetector<GrayU8, GrayS16> detector;
+    private final FastSegmentTest segmentTest;
+    private final NonMaxCandidate nonMax = new NonMaxCandidate(new NonMaxCandidate.Strict());
     private final GrayU8 bytes = new GrayU8(1, 1);
+    /** Signed FAST score per pixel: negative for the one polarity, positive for the other, 0 for no corner. */
+    private final GrayF32 score = new GrayF32(1, 1);
+    private final QueueCorner negativePeaks = new QueueCorner(), positivePeaks = new QueueCorner();
 
     FastDetector(FastConfig config) {
         this.config = config;
-        ConfigGeneralDetector general = new ConfigGeneralDetector(-1, config.nmsRadius, 0f);
-        detector = FactoryDetectPoint.createFast(general, new ConfigFastCorner(config.pixelTolerance, config.minContinuous), GrayU8.class);
-        detector.setFeatureLimit(-1);
+        segmentTest = new FastSegmentTest(config.pixelTolerance, config.minContinuous);
+        nonMax.setSearchRadius(config.nmsRadius);
+        nonMax.setThresholdMin(0f);
+        nonMax.setThresholdMax(0f);
+        // peaks closer to the edge than the search radius or the circle are ignored, as in BoofCV's general detector
+        nonMax.setBorder(Math.max(config.nmsRadius, FastSegmentTest.RADIUS));
     }
 
     @Override public DetectorType type() { return DetectorType.FAST; }
 
     @Override
     public List<Detection> detect(GrayF32 image) {
-        detector.process(Detectors.toU8(image, bytes), null, null, null, null, null);
-        GrayF32 score = detector.getIntensity();
-        List<Detection> candidates = new ArrayList<>();
+        GrayU8 u8 = Detectors.toU8(image, bytes);
+        if (score.width != u8.width || score.height != u8.height) {
+            score.reshape(u8.width, u8.height);
+            ImageMiscOps.fill(score, 0); // the segment test never writes the border; it must read as "no corner"
+        }
+        segmentTest.process(u8, score);
+        nonMax.process(score, segmentTest.negative, segmentTest.positive, negativePeaks, positivePeaks);
+        List<Detection> candidates = new ArrayList<>(negativePeaks.size + positivePeaks.size);
         double strongest = 0;
-        for (QueueCorner set : new QueueCorner[]{detector.getMinimums(), detector.getMaximums()}) {
+        for (QueueCorner set : new QueueCorner[]{negativePeaks, positivePeaks}) {
             for (int i = 0; i < set.size; i++) {
                 Point2D_I16 p = set.get(i);
                 double s = Math.abs(score.unsafe_get(p.x, p.y));
