@@ -1,0 +1,179 @@
+package org.targetbench.pipeline;
+
+import org.targetbench.camera.CameraModel;
+import org.targetbench.camera.Feasibility;
+import org.targetbench.camera.FeasibilityConfig;
+import org.targetbench.camera.FeasibilityReport;
+import org.targetbench.camera.Pose;
+import org.targetbench.detect.Detection;
+import org.targetbench.detect.DetectorConfig;
+import org.targetbench.detect.DetectorType;
+import org.targetbench.detect.Detectors;
+import org.targetbench.detect.PointDetector;
+import org.targetbench.perturb.Perturbation;
+import org.targetbench.perturb.Perturbed;
+import org.targetbench.perturb.Perturber;
+import org.targetbench.score.Repeatability;
+import org.targetbench.select.Candidate;
+import org.targetbench.select.CandidateConfig;
+import org.targetbench.select.Candidates;
+import org.targetbench.select.SelectConfig;
+import org.targetbench.select.Selection;
+import org.targetbench.select.ServoPointSelector;
+import org.targetbench.source.RenderConfig;
+import org.targetbench.source.SyntheticRenderer;
+import org.targetbench.target.TargetDesign;
+
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.function.BooleanSupplier;
+
+/**
+ * Target shoot-out: the same questions asked of several candidate designs under the same camera, stand-off and
+ * conditions, so the one for the fixture can be chosen on what matters to a servo cell.
+ *
+ * <p>Per design: (1) the feasibility check; (2) a stress sweep at the stand-off, whose envelope ranking names the best
+ * detector for the design; (3) for that detector, how many points of the square-on view stay robust across the
+ * envelope: a point counts when it is found again within ε in at least {@value #ROBUST_SHARE} of the envelope's
+ * conditions (every swept parameter at each of its levels inside the envelope); (4) the best 4-point servo set the
+ * servo-aware selection finds, trying every detector on views at the stand-off, and its cond(L*); (5) image
+ * coverage of the best detector's points (share of 4 x 4 cells).
+ *
+ * <p>Ranking: designs that fail the feasibility check go last; then designs with at least 4 robust points before
+ * those without; then the lower best cond(L*); then more robust points; then more coverage. The figures are shown
+ * side by side, so a reader can weigh them differently.
+ */
+public final class ShootoutRun {
+    /** Share of the envelope's conditions in which a point must be found again to count as robust. */
+    public static final double ROBUST_SHARE = 0.8;
+    /** Tilts and rolls of the views the servo choice compares, degrees {tiltX, tiltY, roll}. */
+    static final double[][] VIEWS = {{0, 0, 0}, {10, 0, 0}, {0, 15, 0}, {-10, 10, 0}, {0, 0, 20}, {0, 0, -30}, {20, 0, 5}, {0, -20, 0}};
+    /** Seed of the perturbations behind the robust-point count. */
+    static final long SEED = 7;
+
+    /** One design's figures. {@code bestCondition} is NaN when no acceptable 4-point set exists. */
+    public record Entry(TargetDesign design, FeasibilityReport feasibility, SweepResult sweep, DetectorType bestDetector,
+                        double envelopeScore, int points, int robustPoints, double bestCondition, double bestSigmaMin,
+                        String servoNote, double coverage, int rank) {}
+
+    private final CameraModel camera;
+    private final double standoffM;
+    private final double tiltDeg;
+    private final SweepConfig sweep;
+    private final Map<Perturbation, Double> envelope;
+
+    public ShootoutRun(CameraModel camera, double standoffM, double tiltDeg, SweepConfig sweep, Map<Perturbation, Double> envelope) {
+        if (!(standoffM > 0)) throw new IllegalArgumentException("stand-off must be > 0 m, got " + standoffM);
+        sweep.checkValidity();
+        this.camera = camera;
+        this.standoffM = standoffM;
+        this.tiltDeg = tiltDeg;
+        this.sweep = sweep;
+        this.envelope = Map.copyOf(envelope);
+        Threads.coarseOnly();
+    }
+
+    public List<Entry> run(List<TargetDesign> designs, RenderConfig lighting, Progress progress, BooleanSupplier cancelled) throws InterruptedException {
+        List<Entry> out = new ArrayList<>();
+        int i = 0;
+        for (TargetDesign d : designs) {
+            if (cancelled.getAsBoolean()) break;
+            progress.update(i++, designs.size(), d.id());
+            out.add(one(d, lighting, cancelled));
+        }
+        progress.update(designs.size(), designs.size(), "done");
+        return rank(out);
+    }
+
+    private Entry one(TargetDesign d, RenderConfig lighting, BooleanSupplier cancelled) throws InterruptedException {
+        FeasibilityReport f = Feasibility.check(d, camera, standoffM, tiltDeg, new FeasibilityConfig());
+        SweepBase base = SweepBase.render(d, camera, lighting, standoffM, sweep.syntheticFrames, sweep.seed);
+        SweepResult s = new SweepRun(sweep).run(base, Progress.NONE, cancelled);
+        var top = SweepSummary.rankEnvelope(s, envelope).get(0);
+        DetectorConfig dc = sweep.detectors.stream().filter(c -> c.type() == top.detector()).findFirst().orElseThrow();
+        PointDetector det = Detectors.create(dc);
+        SyntheticRenderer renderer = new SyntheticRenderer(camera, lighting);
+        List<Pose> poses = new ArrayList<>();
+        for (double[] v : VIEWS) poses.add(Pose.facing(d.widthMm(), d.heightMm(), standoffM, v[0], v[1], v[2], 0, 0));
+        List<SyntheticRenderer.Rendered> views = new ArrayList<>();
+        for (int k = 0; k < poses.size(); k++) views.add(renderer.render(d, poses.get(k), SEED + k));
+        List<Detection> ref = det.detect(views.get(0).image());
+        int robust = robustPoints(det, views.get(0).image(), ref);
+        double coverage = org.targetbench.score.Spread.score(ref, camera.width(), camera.height()).cellOccupancy();
+        // the servo choice, as 'pick' makes it, on views at the stand-off with their exact homographies; every detector
+        // is tried and the best-conditioned acceptable set kept
+        Selection best = null;
+        DetectorType bestServo = null;
+        String why = "";
+        for (DetectorConfig c : sweep.detectors) {
+            PointDetector sd = Detectors.create(c);
+            List<Detection> sref = c.type() == dc.type() ? ref : sd.detect(views.get(0).image());
+            List<Candidates.Frame> others = new ArrayList<>();
+            for (int k = 1; k < views.size(); k++)
+                others.add(new Candidates.Frame("view_" + k, sd.detect(views.get(k).image()),
+                        camera.isDistorted() ? Optional.empty() : Optional.of(org.targetbench.camera.Projection.referenceToFrame(camera, poses.get(0), poses.get(k))),
+                        views.get(k).features()));
+            List<Candidate> cands = Candidates.build(new Candidates.Frame("view_0", sref, Optional.empty(), views.get(0).features()), others,
+                    camera, d, poses.get(0), new CandidateConfig());
+            SelectConfig sc = new SelectConfig();
+            sc.count = 4;
+            Selection sel = ServoPointSelector.select(cands, camera.width(), camera.height(), sc);
+            if (sel.outcome() == Selection.Outcome.SELECTED && (best == null || sel.condition() < best.condition())) {
+                best = sel;
+                bestServo = c.type();
+            } else if (sel.outcome() != Selection.Outcome.SELECTED && why.isEmpty()) {
+                why = c.type().label() + ": " + sel.message();
+            }
+        }
+        boolean ok = best != null;
+        return new Entry(d, f, s, top.detector(), top.score(), ref.size(), robust, ok ? best.condition() : Double.NaN,
+                ok ? best.sigmaMin() : Double.NaN, ok ? "4 points from " + bestServo.label() : "no acceptable set (" + why + ")", coverage, 0);
+    }
+
+    /** Points of the square-on view found again within ε in at least {@link #ROBUST_SHARE} of the envelope's conditions. */
+    private int robustPoints(PointDetector det, boofcv.struct.image.GrayF32 image, List<Detection> ref) {
+        Perturber perturber = new Perturber(sweep.perturb);
+        int[] found = new int[ref.size()];
+        int conditions = 0;
+        for (Perturbation p : sweep.parameters) {
+            for (double v : sweep.valuesOf(p)) {
+                Double limit = envelope.get(p);
+                if (limit != null && !SweepSummary.inEnvelope(p, v, limit)) continue;
+                if (p.geometric() && v == p.neutral()) continue;
+                conditions++;
+                Perturbed q = perturber.apply(p, v, image, SEED);
+                List<Detection> got = det.detect(q.image());
+                for (int i = 0; i < ref.size(); i++) {
+                    double[] m = q.warp().apply(ref.get(i).x(), ref.get(i).y());
+                    for (Detection g : got)
+                        if (Math.hypot(g.x() - m[0], g.y() - m[1]) <= Repeatability.DEFAULT_EPSILON) {
+                            found[i]++;
+                            break;
+                        }
+                }
+            }
+        }
+        int robust = 0;
+        for (int c : found) if (conditions > 0 && c >= ROBUST_SHARE * conditions) robust++;
+        return robust;
+    }
+
+    static List<Entry> rank(List<Entry> entries) {
+        List<Entry> sorted = new ArrayList<>(entries);
+        sorted.sort(Comparator.comparing((Entry e) -> e.feasibility().overall() == FeasibilityReport.Status.FAIL)
+                .thenComparing(e -> e.robustPoints() < 4)
+                .thenComparingDouble(e -> Double.isNaN(e.bestCondition()) ? Double.POSITIVE_INFINITY : e.bestCondition())
+                .thenComparing(Comparator.comparingInt(Entry::robustPoints).reversed())
+                .thenComparing(Comparator.comparingDouble(Entry::coverage).reversed()));
+        List<Entry> out = new ArrayList<>();
+        for (int i = 0; i < sorted.size(); i++) {
+            Entry e = sorted.get(i);
+            out.add(new Entry(e.design(), e.feasibility(), e.sweep(), e.bestDetector(), e.envelopeScore(), e.points(), e.robustPoints(),
+                    e.bestCondition(), e.bestSigmaMin(), e.servoNote(), e.coverage(), i + 1));
+        }
+        return out;
+    }
+}
