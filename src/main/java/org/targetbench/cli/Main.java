@@ -15,7 +15,8 @@ import java.io.PrintWriter;
  */
 @Command(name = "targetbench", mixinStandardHelpOptions = true, versionProvider = Main.VersionProvider.class,
         description = "Bench for fiducial targets, point detectors and servo point sets of eye-in-hand visual servoing cells.",
-        subcommands = {DemoCommand.class, CompareCommand.class, SweepCommand.class, RenderCommand.class, CommandLine.HelpCommand.class})
+        subcommands = {DemoCommand.class, CompareCommand.class, SweepCommand.class, RenderCommand.class, TrackCommand.class, RecordCommand.class,
+                DevicesCommand.class, CommandLine.HelpCommand.class})
 public final class Main implements Runnable {
     public static final int EXIT_BAD_INPUT = 2;
     public static final int EXIT_INTERNAL = 3;
