@@ -72,7 +72,7 @@ final class RecordCommand implements Callable<Integer> {
                 }
             }
             if (n == 0) throw new org.targetbench.source.SourceException("the source delivered no frames: " + src.description());
-            if (!truth.isEmpty()) TruthFile.write(src.referenceName(), truth, output.file(truthName));
+            if (!truth.isEmpty()) TruthFile.write(src.referenceName(), truth, output.file(truthName), false);
             output.commit();
             PrintWriter w = spec.commandLine().getOut();
             w.println("Recorded " + n + " frames of " + src.description() + " to " + out + " (" + Files.size(out) / 1024 + " KB)"

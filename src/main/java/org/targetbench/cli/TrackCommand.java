@@ -72,10 +72,14 @@ final class TrackCommand implements Callable<Integer> {
         k.fbThreshold = fbThreshold;
         try {
             k.respawn = RespawnPolicy.parse(respawn);
+        } catch (IllegalArgumentException e) {
+            throw new UserError("--respawn: " + e.getMessage());
+        }
+        try {
             k.checkValidity();
         } catch (IllegalArgumentException e) {
             throw new UserError(e.getMessage().replace("maxTracks", "--max-tracks").replace("windowRadius", "--window")
-                    .replace("pyramidLevels", "--levels").replace("fbThreshold", "--fb-threshold").replace("respawn policy", "--respawn policy"));
+                    .replace("pyramidLevels", "--levels").replace("fbThreshold", "--fb-threshold"));
         }
         return k;
     }

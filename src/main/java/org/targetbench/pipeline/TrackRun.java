@@ -78,7 +78,8 @@ public final class TrackRun {
             long t0 = System.nanoTime();
             TrackFrame rows = klt.process(f.image(), f.index());
             trackerNanos += System.nanoTime() - t0;
-            truth |= f.truth().fromReference().isPresent() || !f.truth().features().isEmpty();
+            // the reference frame's identity homography is no truth by itself
+            truth |= !f.name().equals(source.referenceName()) && (f.truth().fromReference().isPresent() || !f.truth().features().isEmpty());
             FrameTracking figures = metrics.add(rows, f.truth().fromReference(), f.truth().features());
             sink.frame(rows, figures);
             done++;

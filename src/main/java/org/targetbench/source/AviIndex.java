@@ -28,6 +28,7 @@ final class AviIndex {
     static List<Chunk> read(Path file) throws SourceException {
         try (FileChannel ch = FileChannel.open(file, StandardOpenOption.READ)) {
             long size = ch.size();
+            if (size == 0) throw new SourceException("empty video: " + file + " is an empty file");
             if (size < 12) throw new SourceException("not an AVI file (too short): " + file);
             String riff = fourcc(ch, 0), type = fourcc(ch, 8);
             if (!riff.equals("RIFF") || !type.equals("AVI ")) throw new SourceException("not an AVI file (no RIFF AVI header): " + file);

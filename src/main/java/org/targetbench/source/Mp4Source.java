@@ -89,6 +89,9 @@ public final class Mp4Source implements FrameSource {
         }
     }
 
+    /** Box types an MP4 or QuickTime file starts with (ISO/IEC 14496-12 and the QuickTime format; from memory). */
+    private static final java.util.Set<String> FIRST_BOXES = java.util.Set.of("ftyp", "styp", "moov", "mdat", "free", "skip", "wide", "pnot", "uuid");
+
     /** Refuses a file whose top-level boxes do not fit it, or that has no movie header. */
     private static void checkBoxes(Path file) throws SourceException {
         try (FileChannel ch = FileChannel.open(file, StandardOpenOption.READ)) {
@@ -102,8 +105,9 @@ public final class Mp4Source implements FrameSource {
                 AviIndex.readFully(ch, h, pos);
                 long len = h.getInt(0) & 0xFFFFFFFFL;
                 String type = new String(h.array(), 4, 4, StandardCharsets.ISO_8859_1);
+                if (!any && !FIRST_BOXES.contains(type)) throw new SourceException("not an MP4 video (it does not start with an MP4 box): " + file);
                 if (!type.chars().allMatch(c -> c >= 32 && c < 127))
-                    throw new SourceException(any ? "corrupt MP4 video " + file + ": unreadable box at byte " + pos : "not an MP4 video: " + file);
+                    throw new SourceException("corrupt MP4 video " + file + ": unreadable box at byte " + pos);
                 if (len == 1) {
                     if (h.limit() < 16) throw new SourceException("truncated MP4 video " + file + ": the " + type + " box header is cut short");
                     len = h.getLong(8);

@@ -86,7 +86,8 @@ public final class Webcams {
     public static WebcamSource open(int index, Duration timeout) throws SourceException {
         if (index < 0) throw new SourceException("webcam index must be >= 0, got " + index);
         Discovery d = discover(timeout);
-        if (d.cameras().isEmpty()) throw new SourceException("no camera found: " + d.problem());
+        if (d.cameras().isEmpty())
+            throw new SourceException(index == 0 ? "no camera found: " + d.problem() : "webcam " + index + " does not exist: no camera found (" + d.problem() + ")");
         if (index >= d.cameras().size())
             throw new SourceException("webcam " + index + " does not exist; found " + d.cameras().size() + " camera"
                     + (d.cameras().size() == 1 ? "" : "s") + ": " + String.join(", ", d.cameras().stream().map(c -> c.index() + " = " + c.name()).toList()));
