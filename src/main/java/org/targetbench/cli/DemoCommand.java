@@ -37,6 +37,8 @@ import org.targetbench.pipeline.SweepRun;
 final class DemoCommand implements Callable<Integer> {
     /** Size of the demo's short stress sweep: every kind's main parameter at this many levels on this many views. */
     static final int SWEEP_LEVELS = 5, SWEEP_VIEWS = 3;
+    /** The demo's tracking run: the arm's approach to the target and a short hold (3 s at 30 fps). */
+    static final String TRACK_MOTION = "approach,frames=90";
 
     @Spec CommandSpec spec;
 
@@ -79,6 +81,12 @@ final class DemoCommand implements Callable<Integer> {
                         DemoScenario.lighting(), DemoScenario.STANDOFF_M, SWEEP_VIEWS, 1), new ConsoleProgress("stress sweep"), job::cancelled);
                 SweepCommand.write(sweep, Map.of(), output.sub("sweep"));
             }
+            org.targetbench.pipeline.TrackResult tracking;
+            try (org.targetbench.export.TrackWriter tw = new org.targetbench.export.TrackWriter(output.sub("tracking"))) {
+                tracking = new org.targetbench.pipeline.TrackRun(new org.targetbench.track.KltConfig(), TrackCommand.seeding("shi-tomasi"), 30, false, 0)
+                        .run(org.targetbench.pipeline.MotionScenarios.open(TRACK_MOTION), tw, new ConsoleProgress("tracking"), () -> false);
+                tw.finish(tracking);
+            }
             output.commit();
             Path target = output.target();
             ConsoleTable.print(result, w);
@@ -90,8 +98,11 @@ final class DemoCommand implements Callable<Integer> {
             w.println("  target.json, camera.json, poses.json (inputs for 'targetbench render')");
             w.println("  sweep/report.html    stress sweep: " + sweep.parameters().size() + " conditions x " + SWEEP_LEVELS + " levels x "
                     + SWEEP_VIEWS + " views (full sweep: targetbench sweep --target " + target.resolve("target.json") + " --out results/sweep)");
+            w.println("  tracking/            KLT tracks of the arm's approach: tracks.csv, survival.csv, drift.csv, summary.json (try: targetbench track --source synthetic:orbit --out results/orbit)");
             w.println();
             SweepCommand.print(sweep, Map.of(), w);
+            w.println();
+            TrackConsole.print(tracking, w);
             w.println();
             w.println("Safety: " + Safety.NOTICE);
             w.flush();

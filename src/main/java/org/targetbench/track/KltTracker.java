@@ -5,7 +5,7 @@ import boofcv.alg.tracker.klt.KltFeature;
 import boofcv.alg.tracker.klt.KltTrackFault;
 import boofcv.alg.tracker.klt.PyramidKltFeature;
 import boofcv.alg.tracker.klt.PyramidKltTracker;
-import boofcv.factory.tracker.FactoryTrackerAlg;
+import boofcv.factory.interpolate.FactoryInterpolation;
 import boofcv.factory.transform.pyramid.FactoryPyramid;
 import boofcv.struct.image.GrayF32;
 import boofcv.struct.image.ImageType;
@@ -93,7 +93,8 @@ public final class KltTracker {
         k.maxPerPixelError = (float) this.config.maxResidual;
         k.minDeterminant = MIN_DETERMINANT;
         k.driftFracTol = 1.0f;
-        klt = FactoryTrackerAlg.kltPyramid(k, GrayF32.class, GrayF32.class);
+        klt = new PyramidKltTracker<>(new CornerCheckedKlt(FactoryInterpolation.bilinearRectangle(GrayF32.class),
+                FactoryInterpolation.bilinearRectangle(GrayF32.class), k));
         current = pyramid();
         previous = pyramid();
     }

@@ -27,13 +27,21 @@ final class ScharrGradient {
             int row = in.startIndex + y * in.stride;
             int rowD = in.startIndex + Math.min(h - 1, y + 1) * in.stride;
             int ix = dx.startIndex + y * dx.stride, iy = dy.startIndex + y * dy.stride;
-            for (int x = 0; x < w; x++) {
-                int xl = x == 0 ? 0 : x - 1, xr = x == w - 1 ? w - 1 : x + 1;
-                float gx = SIDE * (d[rowU + xr] - d[rowU + xl] + d[rowD + xr] - d[rowD + xl]) + CENTRE * (d[row + xr] - d[row + xl]);
-                float gy = SIDE * (d[rowD + xl] - d[rowU + xl] + d[rowD + xr] - d[rowU + xr]) + CENTRE * (d[rowD + x] - d[rowU + x]);
-                ox[ix + x] = gx;
-                oy[iy + x] = gy;
+            // interior columns without border tests (the hot loop), then the two border columns
+            for (int x = 1; x < w - 1; x++) {
+                float ul = d[rowU + x - 1], ur = d[rowU + x + 1], dl = d[rowD + x - 1], dr = d[rowD + x + 1];
+                ox[ix + x] = SIDE * (ur - ul + dr - dl) + CENTRE * (d[row + x + 1] - d[row + x - 1]);
+                oy[iy + x] = SIDE * (dl - ul + dr - ur) + CENTRE * (d[rowD + x] - d[rowU + x]);
             }
+            edge(d, ox, oy, 0, w, rowU, row, rowD, ix, iy);
+            if (w > 1) edge(d, ox, oy, w - 1, w, rowU, row, rowD, ix, iy);
         }
+    }
+
+    /** One border column, where the neighbour outside the image repeats the border pixel. */
+    private static void edge(float[] d, float[] ox, float[] oy, int x, int w, int rowU, int row, int rowD, int ix, int iy) {
+        int xl = Math.max(0, x - 1), xr = Math.min(w - 1, x + 1);
+        ox[ix + x] = SIDE * (d[rowU + xr] - d[rowU + xl] + d[rowD + xr] - d[rowD + xl]) + CENTRE * (d[row + xr] - d[row + xl]);
+        oy[iy + x] = SIDE * (d[rowD + xl] - d[rowU + xl] + d[rowD + xr] - d[rowU + xr]) + CENTRE * (d[rowD + x] - d[rowU + x]);
     }
 }
