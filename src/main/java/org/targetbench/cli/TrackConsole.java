@@ -17,7 +17,7 @@ final class TrackConsole {
     static void print(TrackResult r, PrintWriter w) {
         TrackingScore s = r.score();
         w.println("Tracked " + r.source() + " (" + r.width() + "x" + r.height() + ")");
-        w.printf(Locale.ROOT, "  frames: %d (%d..%d)%s; stopped by %s%n", s.frames(), s.firstFrame(), s.lastFrame(),
+        w.printf(Locale.ROOT, "  frames: %d (%d..%d)%s; %s%n", s.frames(), s.firstFrame(), s.lastFrame(),
                 r.skippedFrames() > 0 ? ", " + r.skippedFrames() + " undecodable frame" + (r.skippedFrames() == 1 ? "" : "s") + " skipped" : "",
                 r.stop().label());
         r.endNote().ifPresent(n -> w.println("  note: " + n));

@@ -85,7 +85,7 @@ public final class TrackWriter implements TrackSink, Closeable {
         root.put("image_width", r.width()).put("image_height", r.height());
         root.put("frames", s.frames()).put("first_frame", s.firstFrame()).put("last_frame", s.lastFrame());
         root.put("skipped_frames", r.skippedFrames());
-        root.put("stopped_by", r.stop().label());
+        root.put("stopped_by", r.stop().code());
         if (r.endNote().isPresent()) root.put("end_note", r.endNote().get());
         else root.putNull("end_note");
         root.put("seeding_detector", r.seeding().cliName());

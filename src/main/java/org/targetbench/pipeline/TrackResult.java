@@ -29,18 +29,25 @@ public record TrackResult(String source, int width, int height, TrackingScore sc
     /** Why a run ended. */
     public enum Stop {
         /** The source had no more frames. */
-        END_OF_SOURCE("end of source"),
+        END_OF_SOURCE("end_of_source", "the source ended"),
         /** The frame limit was reached. */
-        FRAME_LIMIT("frame limit"),
+        FRAME_LIMIT("frame_limit", "the frame limit was reached"),
         /** The user stopped it (Ctrl-C). */
-        CANCELLED("stopped by the user"),
+        CANCELLED("user", "stopped by the user"),
         /** A live source ended on its own. */
-        SOURCE_LOST("source lost");
+        SOURCE_LOST("source_lost", "the source went away");
 
-        private final String label;
+        private final String code, label;
 
-        Stop(String label) { this.label = label; }
+        Stop(String code, String label) {
+            this.code = code;
+            this.label = label;
+        }
 
+        /** Name used in summary.json. */
+        public String code() { return code; }
+
+        /** Phrase shown to people. */
         public String label() { return label; }
     }
 }

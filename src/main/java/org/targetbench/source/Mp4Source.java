@@ -165,7 +165,7 @@ public final class Mp4Source implements FrameSource {
                 try {
                     p = grab.getNativeFrame();
                 } catch (Exception | LinkageError | AssertionError e) {
-                    p = null;
+                    // JCodec reports a frame it cannot decode by throwing: skip it and count it
                     skipped++;
                     VideoFrames.checkSkipped(skipped, frameCount, file);
                     continue;

@@ -44,7 +44,7 @@ class TrackRunTest {
             List<String> survival = Files.readAllLines(out.resolve("survival.csv"));
             assertEquals(1 + 9, survival.size());
             JsonNode s = new ObjectMapper().readTree(out.resolve("summary.json").toFile());
-            assertEquals("source lost", s.get("stopped_by").asText());
+            assertEquals("source_lost", s.get("stopped_by").asText());
             assertTrue(s.get("end_note").asText().contains("simulated camera"), s.toString());
             assertTrue(s.get("drift_px").isNull(), "a camera has no truth");
         }
