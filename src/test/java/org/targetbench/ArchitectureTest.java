@@ -45,7 +45,7 @@ class ArchitectureTest {
     }
 
     @ParameterizedTest
-    @ValueSource(strings = {"target", "camera", "detect", "score", "source", "export"})
+    @ValueSource(strings = {"target", "camera", "detect", "track", "score", "source", "export"})
     void packagesExistWithClasses(String pkg) throws IOException {
         try (Stream<Path> s = Files.list(MAIN.resolve(pkg))) {
             assertTrue(s.anyMatch(p -> p.toString().endsWith(".java")));

@@ -48,6 +48,8 @@ final class DemoCommand implements Callable<Integer> {
     static final int SWEEP_LEVELS = 5, SWEEP_VIEWS = 3;
     /** Rehearsal starts in the demo: enough for a convergence rate, few enough to keep the demo quick. */
     static final int REHEARSAL_STARTS = 100;
+    /** The demo's tracking run: the arm's approach to the target and a short hold (3 s at 30 fps). */
+    static final String TRACK_MOTION = "approach,frames=90";
 
     @Spec CommandSpec spec;
 
@@ -100,6 +102,12 @@ final class DemoCommand implements Callable<Integer> {
             rc.starts = REHEARSAL_STARTS;
             String setName = out.resolve("servo-set.json").toString();
             RehearsalResult rehearsal = ServoSteps.rehearse(pick.set().orElseThrow(), setName, rc, output, "rehearsal/");
+            org.targetbench.pipeline.TrackResult tracking;
+            try (org.targetbench.export.TrackWriter tw = new org.targetbench.export.TrackWriter(output.sub("tracking"))) {
+                tracking = new org.targetbench.pipeline.TrackRun(new org.targetbench.track.KltConfig(), TrackCommand.seeding("shi-tomasi"), 30, false, 0)
+                        .run(org.targetbench.pipeline.MotionScenarios.open(TRACK_MOTION), tw, new ConsoleProgress("tracking"), () -> false);
+                tw.finish(tracking);
+            }
             output.commit();
             Path target = output.target();
             ConsoleTable.print(result, w);
@@ -115,6 +123,7 @@ final class DemoCommand implements Callable<Integer> {
             w.println("  target.json, camera.json, poses.json (inputs for 'targetbench render')");
             w.println("  sweep/report.html    stress sweep: " + sweep.parameters().size() + " conditions x " + SWEEP_LEVELS + " levels x "
                     + SWEEP_VIEWS + " views (full sweep: targetbench sweep --target " + target.resolve("target.json") + " --out results/sweep)");
+            w.println("  tracking/            KLT tracks of the arm's approach: tracks.csv, survival.csv, drift.csv, summary.json (try: targetbench track --source synthetic:orbit --out results/orbit)");
             w.println();
             SweepCommand.print(sweep, Map.of(), w);
             w.println();
@@ -126,6 +135,7 @@ final class DemoCommand implements Callable<Integer> {
             w.println("             " + target.resolve(setFiles.get(1)) + " (flat), " + target.resolve(setFiles.get(2)) + " (every candidate and why)");
             w.println("Rehearsal:   " + target.resolve("rehearsal/rehearsal.html") + " (charts), rehearsal.csv, rehearsal-summary.json");
             w.println("Try:         targetbench rehearse --set " + target.resolve(setFiles.get(0)) + " --law current --envelope 20,20,20,5,5,170 --out results/what-if");
+            TrackConsole.print(tracking, w);
             w.println();
             w.println("Safety: " + Safety.NOTICE);
             w.flush();

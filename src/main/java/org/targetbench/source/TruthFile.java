@@ -98,6 +98,11 @@ public final class TruthFile {
 
     /** Writes a truth file; frames whose truth has neither homography nor points are left out. */
     public static void write(String reference, Map<String, FrameTruth> frames, Path file) throws IOException {
+        write(reference, frames, file, true);
+    }
+
+    /** As {@link #write(String, Map, Path)}; {@code pretty} false writes one compact line (for long videos). */
+    public static void write(String reference, Map<String, FrameTruth> frames, Path file, boolean pretty) throws IOException {
         ObjectNode root = JsonIn.MAPPER.createObjectNode();
         root.put("reference", reference);
         root.put("convention", "H maps reference-frame pixels to frame pixels; integer coordinates are pixel centres");
@@ -114,6 +119,6 @@ public final class TruthFile {
                     a.addObject().put("id", f.featureId()).put("u", f.u()).put("v", f.v()).put("z_m", f.depthM());
             }
         }
-        JsonIn.MAPPER.writerWithDefaultPrettyPrinter().writeValue(file.toFile(), root);
+        (pretty ? JsonIn.MAPPER.writerWithDefaultPrettyPrinter() : JsonIn.MAPPER.writer()).writeValue(file.toFile(), root);
     }
 }

@@ -30,7 +30,8 @@ class DemoEndToEndTest {
         assertTrue(r.out().contains("Feasibility at 250 mm stand-off"), r.out()); // the same check as 'check'
         assertTrue(r.out().contains("smallest feature"), r.out());
         for (String f : List.of("detections.csv", "repeatability.csv", "summary.json", "target.json", "camera.json", "poses.json",
-                "frames/truth.json", "frames/frame_000.png", "frames/frame_011.png", "overlays/frame_000_all.png", "overlays/frame_000_shi-tomasi.png"))
+                "frames/truth.json", "frames/frame_000.png", "frames/frame_011.png", "overlays/frame_000_all.png", "overlays/frame_000_shi-tomasi.png",
+                "tracking/tracks.csv", "tracking/survival.csv", "tracking/drift.csv", "tracking/summary.json"))
             assertTrue(Files.isRegularFile(demo.resolve(f)), "missing " + f);
         JsonNode summary = new ObjectMapper().readTree(demo.resolve("summary.json").toFile());
         assertEquals(5, summary.get("ranking").size());

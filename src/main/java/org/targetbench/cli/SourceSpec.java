@@ -1,0 +1,69 @@
+package org.targetbench.cli;
+
+import org.targetbench.pipeline.MotionScenarios;
+import org.targetbench.source.FrameSource;
+import org.targetbench.source.ImageFolderSource;
+import org.targetbench.source.MjpegSource;
+import org.targetbench.source.Mp4Source;
+import org.targetbench.source.SourceException;
+import org.targetbench.source.Webcams;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Locale;
+import java.util.regex.Pattern;
+
+/**
+ * What {@code --source} names: a folder of frames, a video file, {@code webcam[:INDEX]} or {@code synthetic:NAME}.
+ */
+final class SourceSpec {
+    /** Kept in step with {@link MotionScenarios#NAMES} (a constant, for annotations). */
+    static final String HELP = "a folder of PNG/JPEG frames, a video (.mp4, .avi, .mjpeg, .mjpg), webcam[:INDEX] or synthetic:NAME[,key=value...] "
+            + "with NAME one of approach, orbit, shake, vibration, still";
+    private static final Pattern SCHEME = Pattern.compile("^([A-Za-z][A-Za-z0-9+.-]*):.*");
+
+    private SourceSpec() {}
+
+    static boolean isLive(String spec) {
+        String s = spec.trim().toLowerCase(Locale.ROOT);
+        return s.equals("webcam") || s.startsWith("webcam:");
+    }
+
+    static FrameSource open(String spec, Path truth) throws SourceException {
+        String s = spec.trim();
+        String lower = s.toLowerCase(Locale.ROOT);
+        if (lower.startsWith("synthetic:")) {
+            if (truth != null) throw new UserError("--truth goes with folders and videos; synthetic sources carry their own truth");
+            try {
+                return MotionScenarios.open(s.substring("synthetic:".length()));
+            } catch (IllegalArgumentException e) {
+                throw new UserError(e.getMessage());
+            }
+        }
+        if (isLive(s)) {
+            if (truth != null) throw new UserError("--truth goes with folders and videos, not with a live camera");
+            int index = 0;
+            if (lower.startsWith("webcam:")) {
+                String n = s.substring("webcam:".length()).trim();
+                try {
+                    index = Integer.parseInt(n);
+                } catch (NumberFormatException e) {
+                    throw new UserError("webcam index must be a whole number, got \"" + n + "\" (use webcam or webcam:0)");
+                }
+            }
+            return Webcams.open(index, Webcams.DISCOVERY_TIMEOUT);
+        }
+        Path p = Path.of(s);
+        if (!Files.exists(p)) {
+            var m = SCHEME.matcher(s);
+            if (m.matches() && m.group(1).length() > 1)
+                throw new UserError("unknown source scheme \"" + m.group(1) + ":\"; use " + HELP);
+            throw new SourceException("source not found: " + s);
+        }
+        if (Files.isDirectory(p)) return ImageFolderSource.open(p, truth);
+        String n = p.getFileName().toString().toLowerCase(Locale.ROOT);
+        if (n.endsWith(".mp4") || n.endsWith(".mov") || n.endsWith(".m4v")) return Mp4Source.open(p, truth);
+        if (n.endsWith(".avi") || n.endsWith(".mjpeg") || n.endsWith(".mjpg")) return MjpegSource.open(p, truth);
+        throw new SourceException("unsupported source file " + p + ": use " + HELP);
+    }
+}

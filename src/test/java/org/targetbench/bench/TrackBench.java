@@ -1,0 +1,226 @@
+package org.targetbench.bench;
+
+import boofcv.struct.image.GrayF32;
+import org.opencv.core.Core;
+import org.opencv.core.CvType;
+import org.opencv.core.Mat;
+import org.opencv.core.MatOfByte;
+import org.opencv.core.MatOfFloat;
+import org.opencv.core.MatOfPoint2f;
+import org.opencv.core.Point;
+import org.opencv.core.Size;
+import org.opencv.core.TermCriteria;
+import org.opencv.video.Video;
+import org.targetbench.camera.CameraModel;
+import org.targetbench.camera.Trajectories;
+import org.targetbench.detect.Detection;
+import org.targetbench.detect.Detectors;
+import org.targetbench.detect.ShiTomasiConfig;
+import org.targetbench.export.AtomicOutput;
+import org.targetbench.export.TrackWriter;
+import org.targetbench.pipeline.DemoScenario;
+import org.targetbench.pipeline.TrackResult;
+import org.targetbench.pipeline.TrackRun;
+import org.targetbench.source.MotionConfig;
+import org.targetbench.source.MotionSource;
+import org.targetbench.target.TargetDesign;
+import org.targetbench.track.KltConfig;
+import org.targetbench.track.KltTracker;
+import org.targetbench.track.RespawnPolicy;
+import org.targetbench.track.TrackFrame;
+import org.targetbench.track.TrackScenes;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.Locale;
+import java.util.SplittableRandom;
+
+/**
+ * Speed and memory of the KLT tracker (a benchmark, not a test; surefire skips this package).
+ *
+ * <p>Speed: 300 points tracked frame to frame through a sequence of 640 x 480 8-bit frames of a smooth texture drifting
+ * by up to a few pixels per frame, one thread, side by side with OpenCV 4.9's {@code calcOpticalFlowPyrLK} on the same
+ * frames with the same window (15 x 15), pyramid (4 levels) and stopping rule (20 iterations or 0.01 px). Ours keeps
+ * each frame's pyramid for the next; OpenCV's Java binding rebuilds both pyramids on every call. Reported: median
+ * time per frame, frames per second and the ratio, for forward tracking alone and with the forward-backward check
+ * (OpenCV: a second, backward call).
+ *
+ * <p>Memory: a 10,000-frame synthetic run (320 x 240, strong vibration so tracks die and are topped up) through the
+ * whole pipeline with the CSV writer; heap in use after a full GC before the run, early in it (frame 500), at its
+ * last frame (tracker, metrics and writer all live) and after it.
+ *
+ * <p>Run (time OpenCV with glibc's mmap and trim thresholds raised, as the detector benchmark does):
+ * <pre>
+ * mvn -q -DskipTests test-compile dependency:build-classpath -Dmdep.outputFile=target/cp.txt -Dmdep.includeScope=test
+ * MALLOC_MMAP_THRESHOLD_=268435456 MALLOC_TRIM_THRESHOLD_=268435456 \
+ *   java -cp target/classes:target/test-classes:$(cat target/cp.txt) org.targetbench.bench.TrackBench [--frames N] [--no-heap]
+ * </pre>
+ */
+public final class TrackBench {
+    static final int W = 640, H = 480, POINTS = 300, SEQUENCE = 40, ROUNDS = 12;
+
+    public static void main(String[] args) throws Exception {
+        int heapFrames = 10_000;
+        boolean heap = true;
+        for (int i = 0; i < args.length; i++) {
+            if (args[i].equals("--frames")) heapFrames = Integer.parseInt(args[++i]);
+            else if (args[i].equals("--no-heap")) heap = false;
+        }
+        if (System.getenv("MALLOC_MMAP_THRESHOLD_") == null || System.getenv("MALLOC_TRIM_THRESHOLD_") == null)
+            System.out.println("note: MALLOC_MMAP_THRESHOLD_ / MALLOC_TRIM_THRESHOLD_ not set; OpenCV will look slower than it is");
+        nu.pattern.OpenCV.loadLocally();
+        Core.setNumThreads(1);
+        speed();
+        if (heap) heap(heapFrames);
+    }
+
+    /** A drifting texture: each frame moves by a seeded random step of up to 3 px. */
+    static List<GrayF32> frames() {
+        SplittableRandom rng = new SplittableRandom(5);
+        List<GrayF32> out = new ArrayList<>();
+        double x = 0, y = 0;
+        for (int i = 0; i < SEQUENCE; i++) {
+            out.add(TrackScenes.quantised(TrackScenes.texture(W, H, 9, x, y)));
+            x += rng.nextDouble() * 6 - 3;
+            y += rng.nextDouble() * 6 - 3;
+        }
+        return out;
+    }
+
+    static Mat mat(GrayF32 g) {
+        Mat m = new Mat(g.height, g.width, CvType.CV_8UC1);
+        byte[] b = new byte[g.width * g.height];
+        for (int i = 0; i < b.length; i++) b[i] = (byte) Math.round(g.data[i]);
+        m.put(0, 0, b);
+        return m;
+    }
+
+    static void speed() {
+        List<GrayF32> frames = frames();
+        List<Mat> mats = frames.stream().map(TrackBench::mat).toList();
+        ShiTomasiConfig st = new ShiTomasiConfig();
+        st.maxFeatures = 2000;
+        List<double[]> seeds = new ArrayList<>();
+        for (Detection d : Detectors.create(st).detect(frames.get(0))) {
+            boolean far = d.x() > 40 && d.y() > 40 && d.x() < W - 40 && d.y() < H - 40;
+            for (double[] s : seeds) far &= Math.hypot(s[0] - d.x(), s[1] - d.y()) >= 8;
+            if (far) seeds.add(new double[]{d.x(), d.y()});
+            if (seeds.size() == POINTS) break;
+        }
+        System.out.printf(Locale.ROOT, "KLT speed: %d points, %dx%d, %d-frame sequence x %d rounds, one thread%n", seeds.size(), W, H, SEQUENCE, ROUNDS);
+        for (boolean fb : new boolean[]{false, true}) {
+            double[] ours = ours(frames, seeds, fb), cv = opencv(mats, seeds, fb);
+            double mo = median(ours), mc = median(cv);
+            System.out.printf(Locale.ROOT, "  %-22s ours %6.2f ms/frame (%5.0f fps)   OpenCV %6.2f ms/frame (%5.0f fps)   ratio %.2fx%n",
+                    fb ? "forward-backward:" : "forward only:", mo, 1000 / mo, mc, 1000 / mc, mo / mc);
+        }
+    }
+
+    static double[] ours(List<GrayF32> frames, List<double[]> seeds, boolean fb) {
+        KltConfig k = new KltConfig();
+        k.maxTracks = POINTS;
+        k.minSpacing = 0;
+        k.forwardBackward = fb;
+        List<Double> ms = new ArrayList<>();
+        int alive = 0;
+        for (int round = 0; round < ROUNDS; round++) {
+            KltTracker t = new KltTracker(k, null);
+            t.start(frames.get(0), 0, seeds);
+            for (int i = 1; i < frames.size(); i++) {
+                long t0 = System.nanoTime();
+                TrackFrame f = t.process(frames.get(i), i);
+                long dt = System.nanoTime() - t0;
+                if (round >= 2) ms.add(dt / 1e6);
+                alive = f.alive();
+            }
+        }
+        System.out.printf(Locale.ROOT, "  (ours: %d of %d points alive at the end of the sequence)%n", alive, seeds.size());
+        return ms.stream().mapToDouble(Double::doubleValue).toArray();
+    }
+
+    static double[] opencv(List<Mat> mats, List<double[]> seeds, boolean fb) {
+        TermCriteria crit = new TermCriteria(TermCriteria.COUNT + TermCriteria.EPS, 20, 0.01);
+        Size win = new Size(15, 15);
+        List<Double> ms = new ArrayList<>();
+        Point[] start = seeds.stream().map(s -> new Point(s[0], s[1])).toArray(Point[]::new);
+        for (int round = 0; round < ROUNDS; round++) {
+            MatOfPoint2f prev = new MatOfPoint2f(start);
+            for (int i = 1; i < mats.size(); i++) {
+                MatOfPoint2f next = new MatOfPoint2f(), back = new MatOfPoint2f();
+                MatOfByte status = new MatOfByte(), status2 = new MatOfByte();
+                MatOfFloat err = new MatOfFloat(), err2 = new MatOfFloat();
+                long t0 = System.nanoTime();
+                Video.calcOpticalFlowPyrLK(mats.get(i - 1), mats.get(i), prev, next, status, err, win, 3, crit, 0, 1e-4);
+                if (fb) Video.calcOpticalFlowPyrLK(mats.get(i), mats.get(i - 1), next, back, status2, err2, win, 3, crit, 0, 1e-4);
+                long dt = System.nanoTime() - t0;
+                if (round >= 2) ms.add(dt / 1e6);
+                prev = next;
+            }
+        }
+        return ms.stream().mapToDouble(Double::doubleValue).toArray();
+    }
+
+    static double median(double[] v) {
+        double[] s = v.clone();
+        Arrays.sort(s);
+        return s[s.length / 2];
+    }
+
+    static long heapAfterGc() throws InterruptedException {
+        Runtime rt = Runtime.getRuntime();
+        for (int i = 0; i < 3; i++) {
+            System.gc();
+            Thread.sleep(50);
+        }
+        return rt.totalMemory() - rt.freeMemory();
+    }
+
+    static void heap(int frames) throws Exception {
+        TargetDesign d = DemoScenario.target();
+        CameraModel cam = CameraModel.pinhole(320, 240, 266, 266, 159.5, 119.5);
+        MotionConfig c = new MotionConfig();
+        c.frames = frames;
+        c.exposureMs = 24;
+        c.lightingDrift = 0.15;
+        // at half the demo's focal length, 30 mm of ringing moves the image as 15 mm does at full size: blur that changes
+        // from frame to frame ends tracks, and top-up replaces them
+        c.exposureMs = 28;
+        MotionSource src = new MotionSource("vibration", d, cam, Trajectories.vibration(d.widthMm(), d.heightMm(), DemoScenario.STANDOFF_M, 30, 3),
+                DemoScenario.lighting(), c);
+        KltConfig k = new KltConfig();
+        k.respawn = RespawnPolicy.TOP_UP;
+        k.maxTracks = 100;
+        Path dir = Files.createTempDirectory("trackbench");
+        long before = heapAfterGc();
+        long[] mid = new long[2];
+        int early = Math.min(500, frames - 1);
+        long t0 = System.nanoTime();
+        TrackResult r;
+        try (AtomicOutput out = AtomicOutput.open(dir.resolve("run")); TrackWriter w = new TrackWriter(out)) {
+            r = new TrackRun(k, new ShiTomasiConfig(), 30, false, 0).run(src, (rows, fig) -> {
+                w.frame(rows, fig);
+                if (rows.frame() == early || rows.frame() == frames - 1) {
+                    try {
+                        mid[rows.frame() == early ? 0 : 1] = heapAfterGc();
+                    } catch (InterruptedException e) {
+                        Thread.currentThread().interrupt();
+                    }
+                }
+            }, (done, total, what) -> { }, () -> false);
+            w.finish(r);
+            out.commit();
+        }
+        long after = heapAfterGc();
+        long csv = Files.size(dir.resolve("run/tracks.csv"));
+        System.out.printf(Locale.ROOT, "Heap over a %d-frame synthetic run (320x240 vibration, top-up to %d tracks, %d tracks started, tracks.csv %d MB) in %.0f s:%n",
+                r.score().frames(), k.maxTracks, r.score().tracksStarted(), csv >> 20, (System.nanoTime() - t0) / 1e9);
+        System.out.printf(Locale.ROOT, "  heap after GC: before the run %.1f MB; during it, at frame %d %.1f MB and at the last frame %d %.1f MB; after it %.1f MB%n",
+                before / 1e6, early, mid[0] / 1e6, frames - 1, mid[1] / 1e6, after / 1e6);
+        try (var s = Files.walk(dir)) {
+            s.sorted(java.util.Comparator.reverseOrder()).forEach(p -> p.toFile().delete());
+        }
+    }
+}

@@ -1,0 +1,41 @@
+package org.targetbench.source;
+
+import org.targetbench.track.TrackScenes;
+
+import java.awt.image.BufferedImage;
+
+/**
+ * A simulated camera for tests: delivers {@code frames} images of a slowly moving texture, then behaves as if
+ * unplugged (returns null, or throws when {@code failHard}).
+ */
+public final class FakeCamera implements Camera {
+    private final int width, height, frames;
+    private final boolean failHard;
+    private int delivered;
+    private boolean closed;
+
+    public FakeCamera(int width, int height, int frames, boolean failHard) {
+        this.width = width;
+        this.height = height;
+        this.frames = frames;
+        this.failHard = failHard;
+    }
+
+    @Override public String name() { return "simulated camera"; }
+    @Override public int width() { return width; }
+    @Override public int height() { return height; }
+
+    @Override
+    public BufferedImage grab() {
+        if (closed) return null;
+        if (delivered >= frames) {
+            if (failHard) throw new IllegalStateException("device /dev/video0 vanished");
+            return null;
+        }
+        return ImageFiles.toBuffered(TrackScenes.texture(width, height, 5, 0.5 * delivered++, 0.25 * delivered));
+    }
+
+    public boolean closed() { return closed; }
+
+    @Override public void close() { closed = true; }
+}
