@@ -29,6 +29,20 @@ final class SourceLoader {
         }
     }
 
+    /** A video file (MP4, AVI, MJPEG), with its NAME.truth.json when present. */
+    static Loaded video(Path file) throws SourceException {
+        try (FrameSource s = org.targetbench.cli.SourceSpec.open(file.toString(), null)) {
+            return read(file.getFileName().toString(), s, Optional.empty());
+        }
+    }
+
+    /** A short clip from a camera, {@code frames} frames long. */
+    static Loaded camera(int index, int frames) throws SourceException {
+        try (FrameSource s = org.targetbench.source.Webcams.open(index, org.targetbench.source.Webcams.DISCOVERY_TIMEOUT)) {
+            return read("camera " + index + " clip", s, Optional.empty(), frames);
+        }
+    }
+
     static Loaded folder(Path dir) throws SourceException {
         try (FrameSource s = ImageFolderSource.open(dir, null)) {
             return read(dir.getFileName() + " (" + dir + ")", s, Optional.empty());
@@ -36,11 +50,16 @@ final class SourceLoader {
     }
 
     static Loaded read(String name, FrameSource s, Optional<Session.Scene> scene) throws SourceException {
+        return read(name, s, scene, MAX_FRAMES);
+    }
+
+    /** Reads at most {@code most} frames of a source into memory. */
+    static Loaded read(String name, FrameSource s, Optional<Session.Scene> scene, int most) throws SourceException {
         List<SourceFrame> frames = new ArrayList<>();
         Optional<SourceFrame> f;
         boolean truncated = false;
         while ((f = s.next()).isPresent()) {
-            if (frames.size() >= MAX_FRAMES) {
+            if (frames.size() >= most) {
                 truncated = true;
                 break;
             }

@@ -59,6 +59,7 @@ public final class Workbench extends JFrame {
         views.put("Live", live);
         views.put("Compare", new CompareView(ctx));
         views.put("Stress", new StressView(ctx));
+        views.put("Track", new TrackView(ctx));
         views.put("Servo set", servo = new ServoView(ctx));
         views.put("Rehearse", new RehearseView(ctx));
         views.put("Export", exportView = new ExportView(ctx));

@@ -16,7 +16,7 @@ import java.util.regex.Pattern;
 /**
  * What {@code --source} names: a folder of frames, a video file, {@code webcam[:INDEX]} or {@code synthetic:NAME}.
  */
-final class SourceSpec {
+public final class SourceSpec {
     /** Kept in step with {@link MotionScenarios#NAMES} (a constant, for annotations). */
     static final String HELP = "a folder of PNG/JPEG frames, a video (.mp4, .avi, .mjpeg, .mjpg), webcam[:INDEX] or synthetic:NAME[,key=value...] "
             + "with NAME one of approach, orbit, shake, vibration, still";
@@ -29,7 +29,7 @@ final class SourceSpec {
         return s.equals("webcam") || s.startsWith("webcam:");
     }
 
-    static FrameSource open(String spec, Path truth) throws SourceException {
+    public static FrameSource open(String spec, Path truth) throws SourceException {
         String s = spec.trim();
         String lower = s.toLowerCase(Locale.ROOT);
         if (lower.startsWith("synthetic:")) {

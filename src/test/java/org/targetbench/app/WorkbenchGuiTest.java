@@ -188,4 +188,40 @@ class WorkbenchGuiTest {
         assertEquals(current, org.targetbench.export.ServoSetFiles.read(dir.resolve("servo-set.csv")));
         assertTrue(Files.exists(dir.resolve("rehearsal/rehearsal.html")));
     }
+
+    @Test
+    @Order(7)
+    void tracksASyntheticMotion() throws Exception {
+        window.list("nav").selectItem("Track");
+        window.comboBox("track.source").selectItem("synthetic: approach");
+        window.button("track.run").click();
+        waitFor("tracking finished", () -> window.table("track.figures").target().getRowCount() > 5);
+        String first = GuiActionRunner.execute(() -> window.table("track.figures").target().getValueAt(0, 0).toString());
+        assertEquals("frames tracked", first);
+        shot("track");
+    }
+
+    @Test
+    @Order(8)
+    void noCameraIsSaidPlainly() throws Exception {
+        var found = org.targetbench.source.Webcams.discover(org.targetbench.source.Webcams.DISCOVERY_TIMEOUT);
+        org.junit.jupiter.api.Assumptions.assumeTrue(found.cameras().isEmpty(), "a camera is connected here");
+        window.list("nav").selectItem("Live");
+        window.button("src.camera").click();
+        window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).requireMessage(java.util.regex.Pattern.compile("No camera found:.*", java.util.regex.Pattern.DOTALL)).okButton().click();
+        window.label("status").requireText(java.util.regex.Pattern.compile("No camera found.*"));
+    }
+
+    @Test
+    @Order(9)
+    void aCorruptVideoGivesAMessageNotADeadWindow(@org.junit.jupiter.api.io.TempDir Path tmp) throws Exception {
+        Path broken = tmp.resolve("broken.mp4");
+        Files.writeString(broken, "this is not a video");
+        String before = GuiActionRunner.execute(() -> workbench.session().sourceName());
+        GuiActionRunner.execute(() -> workbench.live().loadVideo(broken));
+        window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).requireTitle("Could not load the source").okButton().click();
+        assertEquals(before, GuiActionRunner.execute(() -> workbench.session().sourceName()), "the loaded source stays");
+        window.list("nav").selectItem("Compare");
+        waitFor("the window still answers", () -> window.panel(workbench.panelName("Compare")).target().isShowing());
+    }
 }
