@@ -22,9 +22,9 @@ public final class DemoScenario {
 
     private DemoScenario() {}
 
-    /** Fixture target: 9 x 7 squares of 15 mm with a 12 mm quiet zone (159 x 129 mm). */
+    /** Fixture target: 9 x 7 squares of 15 mm with a quiet zone of one square (165 x 135 mm), as target-designs/fixture-cb15. */
     public static TargetDesign target() {
-        return TargetGenerators.checkerboard("fixture-plate-cb15", 7, 9, 15, 12);
+        return TargetGenerators.checkerboard("fixture-cb15", 7, 9, 15, 15);
     }
 
     /**

@@ -34,7 +34,7 @@ class ServoSetFormatTest {
             pts.add(new ServoPoint(p.id(), p.u(), p.v(), p.x(), p.y(), p.zM(), p.targetXMm(), p.targetYMm(), p.id() == 4 ? -1 : p.id(), r,
                     "a reason, with \"quotes\" and commas"));
         }
-        return new ServoSet("0.1.0", "2026-12-02T03:04:05Z", cam, "fixture-plate-cb15", "Checkerboard 9x7 @ 15 mm (target.json)",
+        return new ServoSet("0.1.0", "2026-12-02T03:04:05Z", cam, "fixture-cb15", "Checkerboard 9x7 @ 15 mm (target.json)",
                 Optional.of(pose), "known: pose 0 of poses.json", "shi-tomasi", "{\"maxFeatures\":500,\"threshold\":0.01,\"k\":\"x,y\"}", "{}",
                 pts, base.condition(), base.sigmaMin());
     }
