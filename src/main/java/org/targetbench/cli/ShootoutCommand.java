@@ -7,10 +7,8 @@ import org.targetbench.perturb.Perturbation;
 import org.targetbench.pipeline.DemoScenario;
 import org.targetbench.pipeline.ShootoutRun;
 import org.targetbench.pipeline.SweepConfig;
-import org.targetbench.pipeline.SweepSummary;
 import org.targetbench.report.ShootoutReport;
 import org.targetbench.source.CameraFiles;
-import org.targetbench.source.EnvelopeFile;
 import org.targetbench.source.TargetFile;
 import org.targetbench.target.TargetDesign;
 import picocli.CommandLine.Command;
@@ -64,25 +62,8 @@ final class ShootoutCommand implements Callable<Integer> {
         if (targets.size() < 2) throw new UserError("--targets needs at least two designs to compare, got " + targets.size());
         if (!(standoffMm > 0) || !Double.isFinite(standoffMm)) throw new UserError("--standoff must be > 0 mm, got " + standoffMm);
         if (!(tiltDeg >= 0 && tiltDeg <= 80)) throw new UserError("--tilt must be within 0..80 degrees, got " + tiltDeg);
-        SweepConfig sc = new SweepConfig();
-        sc.detectors = detectorOptions.configs();
-        sc.parameters = SweepCommand.parameters(kinds);
-        sc.levels = levels;
-        sc.syntheticFrames = views;
-        sc.seed = seed;
-        try {
-            sc.checkValidity();
-        } catch (IllegalArgumentException e) {
-            throw new UserError(e.getMessage().replace("levels must", "--levels must").replace("syntheticFrames must", "--views must"));
-        }
-        Map<Perturbation, Double> env = Map.of();
-        if (envelope != null) {
-            try {
-                env = SweepSummary.envelope(EnvelopeFile.read(envelope));
-            } catch (IllegalArgumentException e) {
-                throw new UserError(envelope + ": " + e.getMessage());
-            }
-        }
+        SweepConfig sc = SweepCommand.config(detectorOptions, kinds, levels, views, seed);
+        Map<Perturbation, Double> env = SweepCommand.envelope(envelope);
         List<TargetDesign> designs = new ArrayList<>();
         for (Path t : targets) designs.add(TargetFile.read(t));
         CameraModel cam = CameraFiles.read(camera);

@@ -82,26 +82,8 @@ final class SweepCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws Exception {
-        SweepConfig cfg = new SweepConfig();
-        cfg.detectors = detectorOptions.configs();
-        cfg.parameters = parameters(kinds);
-        cfg.levels = levels;
-        cfg.seed = seed;
-        cfg.epsilon = detectorOptions.epsilon;
-        cfg.syntheticFrames = views;
-        try {
-            cfg.checkValidity();
-        } catch (IllegalArgumentException e) {
-            throw new UserError(e.getMessage().replace("levels must", "--levels must").replace("syntheticFrames must", "--views must"));
-        }
-        Map<Perturbation, Double> env = Map.of();
-        if (envelope != null) {
-            try {
-                env = SweepSummary.envelope(EnvelopeFile.read(envelope));
-            } catch (IllegalArgumentException e) {
-                throw new UserError(envelope + ": " + e.getMessage());
-            }
-        }
+        SweepConfig cfg = config(detectorOptions, kinds, levels, views, seed);
+        Map<Perturbation, Double> env = envelope(envelope);
         SweepBase base = base(cfg);
         try (AtomicOutput output = AtomicOutput.open(out); SweepJob job = new SweepJob()) {
             SweepResult r = new SweepRun(cfg).run(base, new ConsoleProgress("sweeping"), job::cancelled);
@@ -112,6 +94,33 @@ final class SweepCommand implements Callable<Integer> {
             w.println("Report: " + output.target().resolve("report.html"));
             w.flush();
             return r.cancelled() ? SweepJob.EXIT_CANCELLED : 0;
+        }
+    }
+
+    /** Sweep settings from the options shared by sweep and shootout; bad values give one-line errors. */
+    static SweepConfig config(DetectorOptions detectors, List<String> kinds, int levels, int views, long seed) {
+        SweepConfig cfg = new SweepConfig();
+        cfg.detectors = detectors.configs();
+        cfg.parameters = parameters(kinds);
+        cfg.levels = levels;
+        cfg.seed = seed;
+        cfg.epsilon = detectors.epsilon;
+        cfg.syntheticFrames = views;
+        try {
+            cfg.checkValidity();
+        } catch (IllegalArgumentException e) {
+            throw new UserError(e.getMessage().replace("levels must", "--levels must").replace("syntheticFrames must", "--views must"));
+        }
+        return cfg;
+    }
+
+    /** The operating envelope of an --envelope file, or none. */
+    static Map<Perturbation, Double> envelope(Path file) throws org.targetbench.source.SourceException {
+        if (file == null) return Map.of();
+        try {
+            return SweepSummary.envelope(EnvelopeFile.read(file));
+        } catch (IllegalArgumentException e) {
+            throw new UserError(file + ": " + e.getMessage());
         }
     }
 
