@@ -46,6 +46,8 @@ import org.targetbench.pipeline.SweepRun;
 final class DemoCommand implements Callable<Integer> {
     /** Size of the demo's short stress sweep: every kind's main parameter at this many levels on this many views. */
     static final int SWEEP_LEVELS = 5, SWEEP_VIEWS = 3;
+    /** The demo sweep also measures KLT survival over this many frames of slow drift per cell. */
+    static final int SWEEP_TRACK_FRAMES = 4;
     /** Rehearsal starts in the demo: enough for a convergence rate, few enough to keep the demo quick. */
     static final int REHEARSAL_STARTS = 100;
     /** The demo's tracking run: the arm's approach to the target and a short hold (3 s at 30 fps). */
@@ -64,6 +66,7 @@ final class DemoCommand implements Callable<Integer> {
         for (PerturbKind k : PerturbKind.values()) c.parameters.add(Perturbation.primary(k));
         c.levels = SWEEP_LEVELS;
         c.seed = 1;
+        c.trackFrames = SWEEP_TRACK_FRAMES;
         return c;
     }
     /** Tilt range of the demo's feasibility section, degrees: the demo poses tilt the target by up to 40 degrees. */

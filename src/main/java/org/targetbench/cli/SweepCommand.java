@@ -69,6 +69,10 @@ final class SweepCommand implements Callable<Integer> {
     @Option(names = "--views", paramLabel = "N", defaultValue = "30", description = "Rendered base views for --target, or the most frames used from --frames (default: ${DEFAULT-VALUE}).")
     int views;
 
+    @Option(names = "--track-frames", paramLabel = "N", defaultValue = "0",
+            description = "Also measure KLT survival in every cell over a slow motion of N frames, 0..100 (default: ${DEFAULT-VALUE}, off; 4 to 8 is plenty).")
+    int trackFrames;
+
     @Option(names = "--envelope", paramLabel = "FILE", description = "Operating envelope: the harshest value of each parameter your cell will see (JSON).")
     Path envelope;
 
@@ -83,6 +87,12 @@ final class SweepCommand implements Callable<Integer> {
     @Override
     public Integer call() throws Exception {
         SweepConfig cfg = config(detectorOptions, kinds, levels, views, seed);
+        cfg.trackFrames = trackFrames;
+        try {
+            cfg.checkValidity();
+        } catch (IllegalArgumentException e) {
+            throw new UserError(e.getMessage().replace("trackFrames must", "--track-frames must"));
+        }
         Map<Perturbation, Double> env = envelope(envelope);
         SweepBase base = base(cfg);
         try (AtomicOutput output = AtomicOutput.open(out); SweepJob job = new SweepJob()) {

@@ -24,12 +24,12 @@ public final class SweepWriter {
 
     static void writeRows(List<SweepRow> rows, Path file) throws IOException {
         try (BufferedWriter w = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
-            w.write("detector,kind,parameter,level,value,frame,repeatability,localisation_px,count,coverage\n");
+            w.write("detector,kind,parameter,level,value,frame,repeatability,localisation_px,count,coverage,klt_survival\n");
             for (SweepRow r : rows)
                 w.write(r.detector().cliName() + "," + r.parameter().kind().cliName() + "," + r.parameter().parameterName() + ","
                         + r.level() + "," + Csv.num(r.value(), 6) + "," + r.frame() + ","
                         + (r.repeatability().isPresent() ? Csv.num(r.repeatability().getAsDouble(), 4) : "") + ","
-                        + Csv.num(r.localisationPx(), 4) + "," + r.count() + "," + Csv.num(r.coverage(), 4) + "\n");
+                        + Csv.num(r.localisationPx(), 4) + "," + r.count() + "," + Csv.num(r.coverage(), 4) + "," + Csv.num(r.kltSurvival(), 4) + "\n");
         }
     }
 

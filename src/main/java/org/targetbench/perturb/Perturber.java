@@ -193,7 +193,7 @@ public final class Perturber {
     }
 
     /** Warps a frame by a pixel homography with bilinear interpolation; uncovered pixels get the frame's mean. */
-    static GrayF32 warp(GrayF32 in, Homography h) {
+    public static GrayF32 warp(GrayF32 in, Homography h) {
         double mean = 0;
         for (float v : in.data) mean += v;
         mean /= Math.max(1, in.data.length);

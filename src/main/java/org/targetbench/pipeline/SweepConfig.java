@@ -28,6 +28,14 @@ public final class SweepConfig {
     public double epsilon = Repeatability.DEFAULT_EPSILON;
     /** Worker threads; cells are independent. */
     public int threads = Runtime.getRuntime().availableProcessors();
+    /**
+     * Frames of the short slow motion over which KLT survival is measured per cell (0 turns it off): the degraded
+     * view drifts by {@value SweepRun#MOTION_PX_PER_FRAME} px and {@value SweepRun#MOTION_DEG_PER_FRAME} deg per frame,
+     * each frame degraded afresh, and the detector's points are tracked through it.
+     */
+    public int trackFrames = 0;
+    /** Tracker settings for the survival measurement. */
+    public org.targetbench.track.KltConfig tracker = new org.targetbench.track.KltConfig();
     /** Fixed settings of the perturbations. */
     public PerturbConfig perturb = new PerturbConfig();
 
@@ -48,5 +56,7 @@ public final class SweepConfig {
         if (!(epsilon > 0) || !Double.isFinite(epsilon)) throw new IllegalArgumentException("epsilon must be > 0 px, got " + epsilon);
         if (threads < 1) throw new IllegalArgumentException("threads must be >= 1, got " + threads);
         perturb.checkValidity();
+        if (trackFrames < 0 || trackFrames > 100) throw new IllegalArgumentException("trackFrames must be 0..100, got " + trackFrames);
+        tracker.checkValidity();
     }
 }

@@ -44,6 +44,13 @@ import java.util.function.BooleanSupplier;
  * distorted camera, tilt is a homography warp ({@link Perturber}).
  */
 public final class SweepRun {
+    /** Image drift of the survival motion per frame, pixels along x (half of it along y). */
+    public static final double MOTION_PX_PER_FRAME = 1.5;
+    /** In-plane turn of the survival motion per frame, degrees. */
+    public static final double MOTION_DEG_PER_FRAME = 0.4;
+    /** Most tracks started per detector for the survival measurement (the strongest points). */
+    public static final int MAX_SURVIVAL_TRACKS = 100;
+
     private final SweepConfig config;
 
     public SweepRun(SweepConfig config) {
@@ -156,10 +163,39 @@ public final class SweepRun {
             RepeatabilityResult rr = Repeatability.score(ref[d][c.frame()], found, warp, bf.image().width, bf.image().height,
                     image.width, image.height, config.epsilon);
             double loc = truth.isEmpty() ? Double.NaN : Localisation.score(truth, found, Localisation.DEFAULT_RADIUS).rmsPx();
+            double survival = config.trackFrames > 0 ? survival(c, bf, image, found, perturber, seed) : Double.NaN;
             out.add(new SweepRow(det.type(), c.p(), c.level(), c.value(), c.frame(), rr.repeatability(), loc, found.size(),
-                    Spread.score(found, image.width, image.height).cellOccupancy()));
+                    Spread.score(found, image.width, image.height).cellOccupancy(), survival));
         }
         return out;
+    }
+
+    /**
+     * KLT survival at this cell: tracks start at the strongest points found on the degraded view, which then drifts
+     * slowly (a similarity about the image centre, growing per frame); photometric degradations are applied afresh to
+     * every moved frame, geometric ones are already in the view. Returns alive / started at the last frame.
+     */
+    private double survival(Cell c, SweepBase.BaseFrame bf, GrayF32 view, List<Detection> found, Perturber perturber, long seed) {
+        if (found.isEmpty()) return 0;
+        List<double[]> pts = new ArrayList<>();
+        for (Detection d : found.subList(0, Math.min(MAX_SURVIVAL_TRACKS, found.size()))) pts.add(new double[]{d.x(), d.y()});
+        org.targetbench.track.KltTracker klt = new org.targetbench.track.KltTracker(config.tracker, null);
+        int started = klt.start(view, 0, pts).alive();
+        if (started == 0) return 0;
+        double cx = (view.width - 1) / 2.0, cy = (view.height - 1) / 2.0;
+        for (int k = 1; k <= config.trackFrames && klt.alive() > 0; k++) {
+            double a = Math.toRadians(MOTION_DEG_PER_FRAME * k), co = Math.cos(a), si = Math.sin(a);
+            double tx = MOTION_PX_PER_FRAME * k, ty = 0.5 * MOTION_PX_PER_FRAME * k;
+            Homography move = new Homography(new double[]{co, -si, cx - co * cx + si * cy + tx, si, co, cy - si * cx - co * cy + ty, 0, 0, 1});
+            GrayF32 frame;
+            if (c.p().geometric()) {
+                frame = Perturber.warp(view, move);
+            } else {
+                frame = perturber.apply(c.p(), c.value(), Perturber.warp(bf.image(), move), mix(seed, k, 0, 0)).image();
+            }
+            klt.process(frame, k);
+        }
+        return klt.alive() / (double) started;
     }
 
     /** True feature positions carried through a warp; those leaving the image are dropped. */

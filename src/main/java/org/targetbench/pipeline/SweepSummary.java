@@ -23,7 +23,8 @@ public final class SweepSummary {
     private SweepSummary() {}
 
     /** Mean figures of one detector at one level of one parameter. */
-    public record LevelPoint(int level, double value, OptionalDouble repeatability, double localisationPx, double count, double coverage) {}
+    public record LevelPoint(int level, double value, OptionalDouble repeatability, double localisationPx, double count, double coverage,
+                             double kltSurvival) {}
 
     /** A ranking line. */
     public record Rank(int rank, DetectorType detector, double score, Perturbation weakest) {}
@@ -41,7 +42,8 @@ public final class SweepSummary {
             out.add(new LevelPoint(l, values[l], SweepRun.meanRepeatability(cell),
                     cell.stream().mapToDouble(SweepRow::localisationPx).filter(v -> !Double.isNaN(v)).average().orElse(Double.NaN),
                     cell.stream().mapToInt(SweepRow::count).average().orElse(0),
-                    cell.stream().mapToDouble(SweepRow::coverage).average().orElse(0)));
+                    cell.stream().mapToDouble(SweepRow::coverage).average().orElse(0),
+                    cell.stream().mapToDouble(SweepRow::kltSurvival).filter(v -> !Double.isNaN(v)).average().orElse(Double.NaN)));
         }
         return out;
     }

@@ -93,6 +93,10 @@ public final class SweepReport {
             String x = p.id() + (p.unit().isEmpty() ? "" : " (" + p.unit() + ")");
             h.append(Html.img(Charts.inlinePng(Charts.yRange(Charts.lines("Repeatability vs " + p.id(), x, "repeatability (fraction, eps "
                     + Csv.num(r.epsilon(), 2) + " px)", lines(r, p, true), false), 0, 1)), "repeatability vs " + p.id()));
+            List<Charts.Series> surv = lines(r, p, LevelPoint::kltSurvival);
+            if (surv.stream().anyMatch(l -> java.util.Arrays.stream(l.y()).anyMatch(v -> !Double.isNaN(v))))
+                h.append(Html.img(Charts.inlinePng(Charts.yRange(Charts.lines("KLT survival vs " + p.id(), x,
+                        "tracks alive after the slow motion (fraction)", surv, false), 0, 1.05)), "klt survival vs " + p.id()));
             List<Charts.Series> loc = lines(r, p, false);
             if (loc.stream().anyMatch(l -> java.util.Arrays.stream(l.y()).anyMatch(v -> !Double.isNaN(v))))
                 h.append(Html.img(Charts.inlinePng(Charts.lines("Localisation error vs " + p.id(), x,
@@ -103,13 +107,17 @@ public final class SweepReport {
     }
 
     private static List<Charts.Series> lines(SweepResult r, Perturbation p, boolean repeatability) {
+        return lines(r, p, repeatability ? (LevelPoint x) -> x.repeatability().orElse(Double.NaN) : LevelPoint::localisationPx);
+    }
+
+    private static List<Charts.Series> lines(SweepResult r, Perturbation p, java.util.function.ToDoubleFunction<LevelPoint> figure) {
         List<Charts.Series> out = new ArrayList<>();
         for (DetectorType d : r.detectorTypes()) {
             List<LevelPoint> c = SweepSummary.curve(r, d, p);
             double[] xs = new double[c.size()], ys = new double[c.size()];
             for (int i = 0; i < c.size(); i++) {
                 xs[i] = c.get(i).value();
-                ys[i] = repeatability ? c.get(i).repeatability().orElse(Double.NaN) : c.get(i).localisationPx();
+                ys[i] = figure.applyAsDouble(c.get(i));
             }
             out.add(new Charts.Series(d.label(), xs, ys, Palette.of(d)));
         }

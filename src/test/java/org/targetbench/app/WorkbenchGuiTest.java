@@ -70,6 +70,13 @@ class WorkbenchGuiTest {
         }, timeout(WAIT_MS));
     }
 
+    /** True when no dialog of the workbench is on screen (a closed one may take a moment to go). */
+    static boolean noDialogShowing() {
+        for (java.awt.Window w : java.awt.Window.getWindows())
+            if (w instanceof java.awt.Dialog && w.isShowing()) return false;
+        return true;
+    }
+
     static void shot(String name) throws Exception {
         BufferedImage img = GuiActionRunner.execute(() -> {
             BufferedImage b = new BufferedImage(workbench.getWidth(), workbench.getHeight(), BufferedImage.TYPE_INT_RGB);
@@ -176,6 +183,7 @@ class WorkbenchGuiTest {
         // the safety notice comes first; cancelling it exports nothing
         window.button("export.write").click();
         window.optionPane().requireTitle("Before exporting a servo set").cancelButton().click();
+        waitFor("the notice closed", WorkbenchGuiTest::noDialogShowing);
         Path dir = tmp.resolve("exported");
         Files.createDirectories(dir);
         window.button("export.write").click();
@@ -210,6 +218,7 @@ class WorkbenchGuiTest {
         window.button("src.camera").click();
         window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).requireMessage(java.util.regex.Pattern.compile("No camera found:.*", java.util.regex.Pattern.DOTALL)).okButton().click();
         window.label("status").requireText(java.util.regex.Pattern.compile("No camera found.*"));
+        waitFor("the message closed", WorkbenchGuiTest::noDialogShowing);
     }
 
     @Test
@@ -217,6 +226,7 @@ class WorkbenchGuiTest {
     void aCorruptVideoGivesAMessageNotADeadWindow(@org.junit.jupiter.api.io.TempDir Path tmp) throws Exception {
         Path broken = tmp.resolve("broken.mp4");
         Files.writeString(broken, "this is not a video");
+        waitFor("no dialog left from earlier", WorkbenchGuiTest::noDialogShowing);
         String before = GuiActionRunner.execute(() -> workbench.session().sourceName());
         GuiActionRunner.execute(() -> workbench.live().loadVideo(broken));
         window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).requireTitle("Could not load the source").okButton().click();

@@ -44,12 +44,29 @@ class SweepCommandTest {
         for (String f : List.of("sweep.csv", "ranking.csv"))
             assertArrayEquals(Files.readAllBytes(a.resolve(f)), Files.readAllBytes(b.resolve(f)), f + " must be identical on rerun");
         List<String> rows = Files.readAllLines(a.resolve("sweep.csv"));
-        assertEquals("detector,kind,parameter,level,value,frame,repeatability,localisation_px,count,coverage", rows.get(0));
+        assertEquals("detector,kind,parameter,level,value,frame,repeatability,localisation_px,count,coverage,klt_survival", rows.get(0));
+        assertTrue(rows.get(1).endsWith(","), "survival left empty unless asked for: " + rows.get(1));
         assertEquals(1 + 2 * 2 * 3 * 2, rows.size(), "detectors x parameters x levels x frames");
         String html = Files.readString(a.resolve("report.html"));
         for (String s : List.of("Verdict over the operating envelope", "alt=\"repeatability vs noise.gaussian\"", "ISO 10218", "cells/s", "data:image/png;base64"))
             assertTrue(html.contains(s), "report lacks " + s);
         assertFalse(html.contains("src=\"http"), "report must open offline");
+    }
+
+    @Test
+    void measuresKltSurvivalWhenAsked() throws IOException {
+        Path out = tmp.resolve("klt");
+        Cli.Result r = Cli.run(small(out.toString(), "--track-frames", "3"));
+        assertEquals(0, r.exit(), r.err());
+        List<String> rows = Files.readAllLines(out.resolve("sweep.csv"));
+        for (String row : rows.subList(1, rows.size())) {
+            double survival = Double.parseDouble(row.substring(row.lastIndexOf(',') + 1));
+            assertTrue(survival >= 0 && survival <= 1, row);
+            // the mildest level leaves Shi-Tomasi's points trackable through a slow drift
+            if (row.startsWith("shi-tomasi,noise,gaussian,0,")) assertTrue(survival >= 0.9, row);
+        }
+        assertTrue(Files.readString(out.resolve("report.html")).contains("klt survival vs noise.gaussian"));
+        bad("--track-frames must be 0..100", small(tmp.resolve("klt2").toString(), "--track-frames", "500"));
     }
 
     static void bad(String fragment, String... args) throws IOException {
