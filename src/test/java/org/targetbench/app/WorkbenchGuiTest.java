@@ -72,9 +72,41 @@ class WorkbenchGuiTest {
 
     /** True when no dialog of the workbench is on screen (a closed one may take a moment to go). */
     static boolean noDialogShowing() {
+        return showingDialogs().isEmpty();
+    }
+
+    /**
+     * Waits until no dialog shows. A click on a dialog that is still being realised can be lost on a loaded machine;
+     * after a few seconds the option panes still up are answered with OK directly (what their OK button does).
+     */
+    static void awaitDialogsClosed() {
+        try {
+            pause(new Condition("dialogs closed") {
+                @Override public boolean test() { return GuiActionRunner.execute(WorkbenchGuiTest::noDialogShowing); }
+            }, timeout(5_000));
+        } catch (org.assertj.swing.exception.WaitTimedOutError e) {
+            GuiActionRunner.execute(() -> {
+                for (java.awt.Window w : java.awt.Window.getWindows())
+                    if (w instanceof javax.swing.JDialog d && d.isShowing())
+                        for (javax.swing.JOptionPane p : org.assertj.swing.core.BasicComponentFinder.finderWithCurrentAwtHierarchy()
+                                .findAll(d, new org.assertj.swing.core.GenericTypeMatcher<javax.swing.JOptionPane>(javax.swing.JOptionPane.class) {
+                                    @Override protected boolean isMatching(javax.swing.JOptionPane c) { return true; }
+                                }))
+                            p.setValue(javax.swing.JOptionPane.OK_OPTION);
+            });
+            try {
+                waitFor("dialogs closed", WorkbenchGuiTest::noDialogShowing);
+            } catch (org.assertj.swing.exception.WaitTimedOutError e2) {
+                throw new AssertionError("still showing: " + GuiActionRunner.execute(WorkbenchGuiTest::showingDialogs), e2);
+            }
+        }
+    }
+
+    static java.util.List<String> showingDialogs() {
+        java.util.List<String> out = new java.util.ArrayList<>();
         for (java.awt.Window w : java.awt.Window.getWindows())
-            if (w instanceof java.awt.Dialog && w.isShowing()) return false;
-        return true;
+            if (w instanceof java.awt.Dialog d && d.isShowing()) out.add(d.getClass().getName() + " '" + d.getTitle() + "' owner " + d.getOwner());
+        return out;
     }
 
     static void shot(String name) throws Exception {
@@ -183,7 +215,7 @@ class WorkbenchGuiTest {
         // the safety notice comes first; cancelling it exports nothing
         window.button("export.write").click();
         window.optionPane().requireTitle("Before exporting a servo set").cancelButton().click();
-        waitFor("the notice closed", WorkbenchGuiTest::noDialogShowing);
+        awaitDialogsClosed();
         Path dir = tmp.resolve("exported");
         Files.createDirectories(dir);
         window.button("export.write").click();
@@ -218,7 +250,7 @@ class WorkbenchGuiTest {
         window.button("src.camera").click();
         window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).requireMessage(java.util.regex.Pattern.compile("No camera found:.*", java.util.regex.Pattern.DOTALL)).okButton().click();
         window.label("status").requireText(java.util.regex.Pattern.compile("No camera found.*"));
-        waitFor("the message closed", WorkbenchGuiTest::noDialogShowing);
+        awaitDialogsClosed();
     }
 
     @Test
@@ -226,12 +258,19 @@ class WorkbenchGuiTest {
     void aCorruptVideoGivesAMessageNotADeadWindow(@org.junit.jupiter.api.io.TempDir Path tmp) throws Exception {
         Path broken = tmp.resolve("broken.mp4");
         Files.writeString(broken, "this is not a video");
-        waitFor("no dialog left from earlier", WorkbenchGuiTest::noDialogShowing);
+        awaitDialogsClosed();
         String before = GuiActionRunner.execute(() -> workbench.session().sourceName());
         GuiActionRunner.execute(() -> workbench.live().loadVideo(broken));
         window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).requireTitle("Could not load the source").okButton().click();
+        awaitDialogsClosed();
         assertEquals(before, GuiActionRunner.execute(() -> workbench.session().sourceName()), "the loaded source stays");
         window.list("nav").selectItem("Compare");
-        waitFor("the window still answers", () -> window.panel(workbench.panelName("Compare")).target().isShowing());
+        javax.swing.JPanel compare = robot.finder().findByName(workbench.panelName("Compare"), javax.swing.JPanel.class, false);
+        waitFor("the window still answers", compare::isShowing);
+        // and a good video loads, with its truth, and is scored
+        GuiActionRunner.execute(() -> workbench.live().loadVideo(Path.of("sample-video/approach.mp4")));
+        waitFor("video loaded", () -> workbench.session().frames().size() == 90 && workbench.session().detections() != null);
+        assertTrue(GuiActionRunner.execute(() -> workbench.session().frame().truth().fromReference().isPresent()), "truth beside the video is read");
+        shot("live-video");
     }
 }
