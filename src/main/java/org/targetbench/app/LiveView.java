@@ -100,6 +100,7 @@ final class LiveView extends JPanel implements Session.Listener {
             box.addActionListener(e -> session.setShown(t, box.isSelected()));
             side.add(Ui.row(new JLabel(Ui.swatch(t)), box));
         }
+        side.add(Ui.row(Ui.button("det.settings", "Settings...", "Most points, threshold and suppression radius of each detector", () -> DetectorSettings.edit(ctx))));
         side.add(Ui.heading("Preview a condition"));
         degradeKind.addActionListener(e -> applyDegrade());
         degradeLevel.addChangeListener(e -> applyDegrade());

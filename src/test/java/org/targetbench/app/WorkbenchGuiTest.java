@@ -109,6 +109,14 @@ class WorkbenchGuiTest {
         return out;
     }
 
+    /**
+     * Presses a dialog button the way its mnemonic or the keyboard would (doClick on the event-dispatch thread):
+     * mouse clicks on a dialog that a window-manager-less virtual display is still placing can be lost.
+     */
+    static void press(org.assertj.swing.fixture.JButtonFixture b) {
+        GuiActionRunner.execute(() -> b.target().doClick());
+    }
+
     static void shot(String name) throws Exception {
         BufferedImage img = GuiActionRunner.execute(() -> {
             BufferedImage b = new BufferedImage(workbench.getWidth(), workbench.getHeight(), BufferedImage.TYPE_INT_RGB);
@@ -214,13 +222,18 @@ class WorkbenchGuiTest {
         shot("export");
         // the safety notice comes first; cancelling it exports nothing
         window.button("export.write").click();
-        window.optionPane().requireTitle("Before exporting a servo set").cancelButton().click();
+        press(window.optionPane().requireTitle("Before exporting a servo set").cancelButton());
         awaitDialogsClosed();
         Path dir = tmp.resolve("exported");
         Files.createDirectories(dir);
         window.button("export.write").click();
-        window.optionPane().okButton().click();
-        window.fileChooser().setCurrentDirectory(tmp.toFile()).selectFile(dir.toFile()).approve();
+        press(window.optionPane().okButton());
+        var chooser = window.fileChooser(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).target();
+        GuiActionRunner.execute(() -> {
+            chooser.setCurrentDirectory(tmp.toFile());
+            chooser.setSelectedFile(dir.toFile());
+            chooser.approveSelection();
+        });
         waitFor("exported", () -> Files.exists(dir.resolve("servo-set.json")));
         var current = GuiActionRunner.execute(() -> workbench.session().servoSet());
         // what the app wrote, read back by the command line's importer, is the same set
@@ -248,7 +261,7 @@ class WorkbenchGuiTest {
         org.junit.jupiter.api.Assumptions.assumeTrue(found.cameras().isEmpty(), "a camera is connected here");
         window.list("nav").selectItem("Live");
         window.button("src.camera").click();
-        window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).requireMessage(java.util.regex.Pattern.compile("No camera found:.*", java.util.regex.Pattern.DOTALL)).okButton().click();
+        press(window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).requireMessage(java.util.regex.Pattern.compile("No camera found:.*", java.util.regex.Pattern.DOTALL)).okButton());
         window.label("status").requireText(java.util.regex.Pattern.compile("No camera found.*"));
         awaitDialogsClosed();
     }
@@ -261,7 +274,7 @@ class WorkbenchGuiTest {
         awaitDialogsClosed();
         String before = GuiActionRunner.execute(() -> workbench.session().sourceName());
         GuiActionRunner.execute(() -> workbench.live().loadVideo(broken));
-        window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).requireTitle("Could not load the source").okButton().click();
+        press(window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).requireTitle("Could not load the source").okButton());
         awaitDialogsClosed();
         assertEquals(before, GuiActionRunner.execute(() -> workbench.session().sourceName()), "the loaded source stays");
         window.list("nav").selectItem("Compare");
@@ -272,5 +285,20 @@ class WorkbenchGuiTest {
         waitFor("video loaded", () -> workbench.session().frames().size() == 90 && workbench.session().detections() != null);
         assertTrue(GuiActionRunner.execute(() -> workbench.session().frame().truth().fromReference().isPresent()), "truth beside the video is read");
         shot("live-video");
+    }
+
+    @Test
+    @Order(10)
+    void detectorSettingsEditedInTheAppReachTheDetectors() throws Exception {
+        window.list("nav").selectItem("Live");
+        awaitDialogsClosed();
+        window.button("det.settings").click();
+        var pane = window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS));
+        pane.table("settings.table").enterValue(org.assertj.swing.data.TableCell.row(1).column(1), "20");
+        press(pane.okButton());
+        awaitDialogsClosed();
+        waitFor("Shi-Tomasi capped at 20", () -> workbench.session().config(org.targetbench.detect.DetectorType.SHI_TOMASI).maxFeatures == 20
+                && workbench.session().detections() != null
+                && workbench.session().detections().points().get(org.targetbench.detect.DetectorType.SHI_TOMASI).size() == 20);
     }
 }
