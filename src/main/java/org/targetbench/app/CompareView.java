@@ -178,6 +178,5 @@ final class CompareView extends JPanel implements Session.Listener {
         };
     }
 
-    boolean running() { return worker != null; }
 
 }

@@ -11,6 +11,7 @@ import org.targetbench.detect.PointDetector;
 import org.targetbench.perturb.Perturbation;
 import org.targetbench.perturb.Perturbed;
 import org.targetbench.perturb.Perturber;
+import org.targetbench.pipeline.SweepRun;
 import org.targetbench.score.Localisation;
 import org.targetbench.score.Repeatability;
 import org.targetbench.score.Spread;
@@ -96,12 +97,7 @@ final class DetectionRunner implements Session.Listener {
             warp = d.warp();
         }
         Optional<Homography> h = frame.truth().fromReference();
-        List<ProjectedFeature> truth = new ArrayList<>();
-        for (ProjectedFeature f : frame.truth().features()) {
-            double[] m = warp.apply(f.u(), f.v());
-            if (m[0] >= 0 && m[1] >= 0 && m[0] <= shown.width - 1 && m[1] <= shown.height - 1)
-                truth.add(new ProjectedFeature(f.featureId(), m[0], m[1], f.depthM()));
-        }
+        List<ProjectedFeature> truth = SweepRun.moveTruth(frame.truth().features(), warp, shown.width, shown.height);
         Map<DetectorType, List<Detection>> points = new LinkedHashMap<>();
         Map<DetectorType, Session.FrameFigures> figures = new LinkedHashMap<>();
         for (DetectorConfig c : configs) {

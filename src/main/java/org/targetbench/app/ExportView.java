@@ -105,6 +105,4 @@ final class ExportView extends JPanel implements Session.Listener {
         return files;
     }
 
-    /** For tests and scripted use: marks the notice as read. */
-    void acknowledgeForTest() { safetyAcknowledged = true; }
 }

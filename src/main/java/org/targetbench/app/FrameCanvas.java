@@ -99,7 +99,6 @@ public final class FrameCanvas extends JComponent {
     /** Called with the image pixel (pixel-centre convention) of a single click. */
     public void onClick(Consumer<Point2D> listener) { clickListener = listener; }
 
-    public boolean hasImage() { return image != null; }
 
     /** Fits the frame to the component. */
     public void fit() {

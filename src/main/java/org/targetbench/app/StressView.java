@@ -232,7 +232,5 @@ final class StressView extends JPanel {
         }
     }
 
-    boolean running() { return worker != null; }
 
-    SweepResult lastResult() { return last; }
 }

@@ -181,7 +181,6 @@ final class TrackView extends JPanel {
 
     private void row(String k, String v) { figures.addRow(new Object[]{k, v}); }
 
-    boolean running() { return worker != null; }
 
     /** Passes a source through, keeping the last frame delivered so the view can draw the tracks on it. */
     private static final class Peek implements FrameSource {

@@ -175,7 +175,7 @@ public final class Perturber {
     }
 
     /** Rotation by {@code angle} and zoom by {@code scale} about the image centre, as a pixel homography. */
-    static Homography similarity(GrayF32 img, double angle, double scale) {
+    public static Homography similarity(GrayF32 img, double angle, double scale) {
         double cx = (img.width - 1) / 2.0, cy = (img.height - 1) / 2.0;
         double c = Math.cos(angle) * scale, s = Math.sin(angle) * scale;
         return new Homography(new double[]{c, -s, cx - c * cx + s * cy, s, c, cy - s * cx - c * cy, 0, 0, 1});

@@ -182,11 +182,9 @@ public final class SweepRun {
         org.targetbench.track.KltTracker klt = new org.targetbench.track.KltTracker(config.tracker, null);
         int started = klt.start(view, 0, pts).alive();
         if (started == 0) return 0;
-        double cx = (view.width - 1) / 2.0, cy = (view.height - 1) / 2.0;
         for (int k = 1; k <= config.trackFrames && klt.alive() > 0; k++) {
-            double a = Math.toRadians(MOTION_DEG_PER_FRAME * k), co = Math.cos(a), si = Math.sin(a);
-            double tx = MOTION_PX_PER_FRAME * k, ty = 0.5 * MOTION_PX_PER_FRAME * k;
-            Homography move = new Homography(new double[]{co, -si, cx - co * cx + si * cy + tx, si, co, cy - si * cx - co * cy + ty, 0, 0, 1});
+            Homography move = Homography.translation(MOTION_PX_PER_FRAME * k, 0.5 * MOTION_PX_PER_FRAME * k)
+                    .after(Perturber.similarity(view, Math.toRadians(MOTION_DEG_PER_FRAME * k), 1));
             GrayF32 frame;
             if (c.p().geometric()) {
                 frame = Perturber.warp(view, move);
@@ -199,7 +197,7 @@ public final class SweepRun {
     }
 
     /** True feature positions carried through a warp; those leaving the image are dropped. */
-    static List<ProjectedFeature> moveTruth(List<ProjectedFeature> truth, Homography warp, int w, int h) {
+    public static List<ProjectedFeature> moveTruth(List<ProjectedFeature> truth, Homography warp, int w, int h) {
         List<ProjectedFeature> out = new ArrayList<>();
         for (ProjectedFeature f : truth) {
             double[] m = warp.apply(f.u(), f.v());

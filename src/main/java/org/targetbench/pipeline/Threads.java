@@ -16,8 +16,4 @@ public final class Threads {
         BoofConcurrency.USE_CONCURRENT = false;
     }
 
-    /** One worker per available core. */
-    public static int cores() {
-        return Runtime.getRuntime().availableProcessors();
-    }
 }
