@@ -1,5 +1,6 @@
 package org.targetbench.app;
 
+import org.targetbench.report.Reasons;
 import org.targetbench.Version;
 import org.targetbench.export.AtomicOutput;
 import org.targetbench.export.CompareWriter;
@@ -13,12 +14,12 @@ import org.targetbench.score.Repeatability;
 import org.targetbench.select.Candidate;
 import org.targetbench.select.CandidateConfig;
 import org.targetbench.select.SelectConfig;
-import org.targetbench.servo.InteractionMatrix;
+import org.targetbench.camera.InteractionMatrix;
 import org.targetbench.servo.ServoPoint;
 import org.targetbench.servo.ServoSet;
 import org.targetbench.source.CameraFile;
 import org.targetbench.source.PosesFile;
-import org.targetbench.source.ResultsFolder;
+import org.targetbench.formats.ResultsFolder;
 import org.targetbench.source.SourceException;
 import org.targetbench.source.TargetFile;
 
@@ -55,7 +56,11 @@ final class ServoChoice {
             ResultsFolder.Data data = ResultsFolder.read(dir.resolve("results"), ResultsFolder.Overrides.none(), sourceName);
             SelectConfig sc = new SelectConfig();
             sc.count = count;
-            return PickRun.run(data, null, new CandidateConfig(), sc, Version.get(), ServoWriters.now());
+            try {
+                return PickRun.run(data.pickInput(), null, new CandidateConfig(), sc, Version.get(), ServoWriters.now());
+            } catch (PickRun.Refused e) {
+                throw new SourceException(Reasons.pickRefusal(e, data.where()));
+            }
         } finally {
             delete(dir);
         }

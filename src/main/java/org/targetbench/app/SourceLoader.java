@@ -31,7 +31,7 @@ final class SourceLoader {
 
     /** A video file (MP4, AVI, MJPEG), with its NAME.truth.json when present. */
     static Loaded video(Path file) throws SourceException {
-        try (FrameSource s = org.targetbench.cli.SourceSpec.open(file.toString(), null)) {
+        try (FrameSource s = org.targetbench.formats.SourceSpec.open(file.toString(), null)) {
             return read(file.getFileName().toString(), s, Optional.empty());
         }
     }

@@ -1,5 +1,6 @@
 package org.targetbench.cli;
 
+import org.targetbench.formats.SourceSpec;
 import org.targetbench.camera.Feasibility;
 import org.targetbench.camera.FeasibilityConfig;
 import org.targetbench.export.AtomicOutput;
@@ -15,7 +16,7 @@ import org.targetbench.select.SelectConfig;
 import org.targetbench.servo.RehearsalConfig;
 import org.targetbench.servo.RehearsalResult;
 import org.targetbench.source.CameraFile;
-import org.targetbench.source.ResultsFolder;
+import org.targetbench.formats.ResultsFolder;
 import org.targetbench.source.ImageFolderSource;
 import org.targetbench.source.PosesFile;
 import org.targetbench.source.TargetFile;

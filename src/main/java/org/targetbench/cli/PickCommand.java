@@ -5,7 +5,7 @@ import org.targetbench.export.AtomicOutput;
 import org.targetbench.export.Safety;
 import org.targetbench.pipeline.PickRun;
 import org.targetbench.select.SelectConfig;
-import org.targetbench.source.ResultsFolder;
+import org.targetbench.formats.ResultsFolder;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;

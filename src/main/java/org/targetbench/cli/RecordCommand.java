@@ -1,10 +1,11 @@
 package org.targetbench.cli;
 
+import org.targetbench.formats.SourceSpec;
 import org.targetbench.export.AtomicOutput;
 import org.targetbench.export.VideoWriter;
 import org.targetbench.source.FrameSource;
 import org.targetbench.source.FrameTruth;
-import org.targetbench.source.MotionSource;
+import org.targetbench.perturb.MotionSource;
 import org.targetbench.source.SourceFrame;
 import org.targetbench.source.TruthFile;
 import picocli.CommandLine.Command;

@@ -1,8 +1,8 @@
 package org.targetbench.cli;
 
+import org.targetbench.formats.ServoSetReader;
 import org.targetbench.export.AtomicOutput;
 import org.targetbench.export.Safety;
-import org.targetbench.export.ServoSetFiles;
 import org.targetbench.servo.ControlLaw;
 import org.targetbench.servo.DepthMode;
 import org.targetbench.servo.RehearsalConfig;
@@ -65,7 +65,7 @@ final class RehearseCommand implements Callable<Integer> {
     @Override
     public Integer call() throws Exception {
         RehearsalConfig c = config();
-        ServoSet s = ServoSetFiles.read(set);
+        ServoSet s = ServoSetReader.read(set);
         ServoSteps.checkSet(s, set.toString());
         RehearsalResult r;
         try (AtomicOutput output = AtomicOutput.open(out)) {

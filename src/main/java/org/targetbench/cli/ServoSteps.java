@@ -5,6 +5,7 @@ import org.targetbench.export.AtomicOutput;
 import org.targetbench.export.ServoSetFiles;
 import org.targetbench.export.ServoWriters;
 import org.targetbench.pipeline.PickRun;
+import org.targetbench.report.Reasons;
 import org.targetbench.report.RehearsalReport;
 import org.targetbench.select.CandidateConfig;
 import org.targetbench.select.Selection;
@@ -15,7 +16,7 @@ import org.targetbench.servo.Rehearsal;
 import org.targetbench.servo.ServoPoint;
 import org.targetbench.servo.ServoSet;
 import org.targetbench.servo.SetDiagnostics;
-import org.targetbench.source.ResultsFolder;
+import org.targetbench.formats.ResultsFolder;
 import org.targetbench.source.SourceException;
 
 import java.io.IOException;
@@ -31,7 +32,12 @@ final class ServoSteps {
 
     /** Chooses a set; a refusal becomes a {@link NoAcceptableSet}. */
     static PickRun.Result pick(ResultsFolder.Data data, String detector, SelectConfig sc) throws SourceException {
-        PickRun.Result r = PickRun.run(data, detector, new CandidateConfig(), sc, Version.get(), ServoWriters.now());
+        PickRun.Result r;
+        try {
+            r = PickRun.run(data.pickInput(), detector, new CandidateConfig(), sc, Version.get(), ServoWriters.now());
+        } catch (PickRun.Refused e) {
+            throw new SourceException(Reasons.pickRefusal(e, data.where()));
+        }
         if (r.set().isEmpty()) throw new NoAcceptableSet(r.selection().message());
         return r;
     }

@@ -1,5 +1,6 @@
 package org.targetbench.cli;
 
+import org.targetbench.source.ImageFolderSource;
 import org.targetbench.camera.CameraModel;
 import org.targetbench.export.AtomicOutput;
 import org.targetbench.export.SweepWriter;
@@ -159,7 +160,9 @@ final class SweepCommand implements Callable<Integer> {
             return SweepBase.render(design, cam, DemoScenario.lighting(), d, views, seed);
         }
         if (camera != null || standoff != null) throw new UserError("--camera and --standoff go with --target, not --frames");
-        return FolderBase.read(input.frames, truth, views);
+        try (ImageFolderSource src = ImageFolderSource.open(input.frames, truth)) {
+            return SweepBase.fromFrames(src, "frames of " + input.frames, views);
+        }
     }
 
     /** Parses --kinds into parameters, in the order given. */

@@ -1,5 +1,6 @@
 package org.targetbench.cli;
 
+import org.targetbench.formats.SourceSpec;
 import org.targetbench.detect.DetectorConfig;
 import org.targetbench.detect.DetectorType;
 import org.targetbench.export.AtomicOutput;

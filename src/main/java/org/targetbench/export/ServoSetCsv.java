@@ -2,7 +2,7 @@ package org.targetbench.export;
 
 import org.targetbench.camera.CameraModel;
 import org.targetbench.camera.Pose;
-import org.targetbench.servo.Robustness;
+import org.targetbench.score.Robustness;
 import org.targetbench.servo.ServoPoint;
 import org.targetbench.servo.ServoSet;
 import org.targetbench.source.CsvIn;
@@ -77,108 +77,7 @@ public final class ServoSetCsv {
         }
     }
 
-    public static ServoSet read(Path file) throws SourceException {
-        if (!Files.isRegularFile(file)) throw new SourceException("file not found: " + file);
-        List<String> lines;
-        try {
-            lines = Files.readAllLines(file, StandardCharsets.UTF_8);
-        } catch (IOException e) {
-            throw new SourceException("cannot read " + file + ": " + e.getMessage());
-        }
-        Map<String, String> meta = new LinkedHashMap<>();
-        int i = 0;
-        for (; i < lines.size() && lines.get(i).startsWith("#"); i++) {
-            List<String> c = split(file, i, lines.get(i).substring(1).strip());
-            meta.put(c.get(0), c.size() > 1 ? c.get(1) : "");
-        }
-        if (!FORMAT.equals(meta.get("format")))
-            throw new SourceException(file + ": format is " + (meta.containsKey("format") ? "\"" + meta.get("format") + "\"" : "missing") + ", expected \"" + FORMAT + "\"");
-        if (!Integer.toString(VERSION).equals(meta.get("version")))
-            throw new SourceException(file + ": version is " + meta.getOrDefault("version", "missing") + "; this build reads " + FORMAT + " versions 1.." + VERSION);
-        CameraModel camera;
-        try {
-            camera = new CameraModel((int) req(file, meta, "image_width"), (int) req(file, meta, "image_height"), req(file, meta, "fx"), req(file, meta, "fy"),
-                    req(file, meta, "cx"), req(file, meta, "cy"), opt0(file, meta, "k1"), opt0(file, meta, "k2"), opt0(file, meta, "k3"),
-                    opt0(file, meta, "p1"), opt0(file, meta, "p2"));
-        } catch (IllegalArgumentException e) {
-            throw new SourceException(file + ": camera " + e.getMessage());
-        }
-        Optional<Pose> pose = Optional.empty();
-        if (meta.containsKey("reference_pose_rotation_row_major")) {
-            double[] r = nums(file, meta, "reference_pose_rotation_row_major", 9), t = nums(file, meta, "reference_pose_translation_m", 3);
-            try {
-                pose = Optional.of(new Pose(r, t));
-            } catch (IllegalArgumentException e) {
-                throw new SourceException(file + ": reference_pose " + e.getMessage());
-            }
-        }
-        if (i >= lines.size() || !lines.get(i).strip().equals(HEADER)) throw new SourceException(file + ": line " + (i + 1) + " must be the header " + HEADER);
-        List<ServoPoint> pts = new ArrayList<>();
-        for (int ln = i + 1; ln < lines.size(); ln++) {
-            if (lines.get(ln).isBlank()) continue;
-            List<String> c = split(file, ln, lines.get(ln));
-            if (c.size() != 14) throw new SourceException(file + ": line " + (ln + 1) + " has " + c.size() + " cells, expected 14");
-            double[] v = new double[13];
-            for (int k = 0; k < 13; k++) v[k] = c.get(k).isEmpty() && k >= 9 ? Double.NaN : cell(file, ln, c.get(k), k >= 9);
-            if (!(v[5] > 0)) throw new SourceException(file + ": line " + (ln + 1) + ": z_m must be a depth > 0 m, got " + c.get(5));
-            try {
-                pts.add(new ServoPoint((int) v[0], v[1], v[2], v[3], v[4], v[5], v[6], v[7], (int) v[8],
-                        new Robustness(od(v[9]), od(v[10]), od(v[11]), od(v[12])), c.get(13)));
-            } catch (IllegalArgumentException e) {
-                throw new SourceException(file + ": line " + (ln + 1) + ": " + e.getMessage());
-            }
-        }
-        return new ServoSet(meta.getOrDefault("tool_version", ""), meta.getOrDefault("created", ""), camera, meta.getOrDefault("target_id", ""),
-                meta.getOrDefault("target_design", ""), pose, meta.getOrDefault("reference_pose_method", ""), meta.getOrDefault("detector", ""),
-                meta.getOrDefault("detector_config", "{}"), meta.getOrDefault("tracker_config", "{}"), pts,
-                meta.containsKey("condition_number") ? parse(file, "condition_number", meta.get("condition_number")) : Double.NaN,
-                meta.containsKey("sigma_min") ? parse(file, "sigma_min", meta.get("sigma_min")) : Double.NaN);
-    }
-
     static String num(double v) { return Double.toString(v); }
 
     private static String opt(OptionalDouble v) { return v.isPresent() ? num(v.getAsDouble()) : ""; }
-
-    private static OptionalDouble od(double v) { return Double.isNaN(v) ? OptionalDouble.empty() : OptionalDouble.of(v); }
-
-    private static List<String> split(Path file, int line, String text) throws SourceException {
-        try {
-            return CsvIn.split(text);
-        } catch (IllegalArgumentException e) {
-            throw new SourceException(file + ": line " + (line + 1) + ": " + e.getMessage());
-        }
-    }
-
-    private static double cell(Path file, int line, String s, boolean optional) throws SourceException {
-        double v = parse(file, "line " + (line + 1), s);
-        if (!Double.isFinite(v)) throw new SourceException(file + ": line " + (line + 1) + ": values must be finite, got " + s);
-        return v;
-    }
-
-    private static double parse(Path file, String where, String s) throws SourceException {
-        try {
-            double v = Double.parseDouble(s.strip());
-            if (!Double.isFinite(v)) throw new SourceException(file + ": " + where + " must be finite, got " + s);
-            return v;
-        } catch (NumberFormatException e) {
-            throw new SourceException(file + ": " + where + ": \"" + s + "\" is not a number");
-        }
-    }
-
-    private static double req(Path file, Map<String, String> meta, String key) throws SourceException {
-        if (!meta.containsKey(key) || meta.get(key).isBlank()) throw new SourceException(file + ": camera " + key + " is missing");
-        return parse(file, key, meta.get(key));
-    }
-
-    private static double opt0(Path file, Map<String, String> meta, String key) throws SourceException {
-        return meta.containsKey(key) && !meta.get(key).isBlank() ? parse(file, key, meta.get(key)) : 0;
-    }
-
-    private static double[] nums(Path file, Map<String, String> meta, String key, int n) throws SourceException {
-        String[] parts = meta.getOrDefault(key, "").strip().split("\\s+");
-        if (parts.length != n) throw new SourceException(file + ": " + key + " must hold " + n + " numbers");
-        double[] out = new double[n];
-        for (int i = 0; i < n; i++) out[i] = parse(file, key, parts[i]);
-        return out;
-    }
 }

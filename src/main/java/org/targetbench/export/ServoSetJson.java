@@ -6,7 +6,7 @@ import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import org.targetbench.camera.CameraModel;
 import org.targetbench.camera.Pose;
-import org.targetbench.servo.Robustness;
+import org.targetbench.score.Robustness;
 import org.targetbench.servo.ServoPoint;
 import org.targetbench.servo.ServoSet;
 import org.targetbench.source.JsonIn;
@@ -82,65 +82,6 @@ public final class ServoSetJson {
         MAPPER.writerWithDefaultPrettyPrinter().writeValue(file.toFile(), toJson(s));
     }
 
-    public static ServoSet read(Path file) throws SourceException {
-        JsonIn.Parsed parsed = JsonIn.parse(file);
-        JsonIn in = parsed.in();
-        JsonNode root = parsed.root();
-        if (!root.has("format")) throw in.error("format", "is missing; a servo set must say \"format\": \"" + FORMAT + "\"");
-        if (!root.has("version")) throw in.error("version", "is missing; this build reads " + FORMAT + " versions 1.." + VERSION);
-        in.expectFormat(root, FORMAT, VERSION);
-        JsonNode cam = root.get("camera");
-        if (cam == null || !cam.isObject()) throw in.error("camera", "is missing: the intrinsics are needed");
-        JsonNode dist = cam.path("distortion");
-        CameraModel camera;
-        try {
-            camera = new CameraModel(in.integer(cam, "image_width", "camera"), in.integer(cam, "image_height", "camera"),
-                    in.number(cam, "fx", "camera"), in.number(cam, "fy", "camera"), in.number(cam, "cx", "camera"), in.number(cam, "cy", "camera"),
-                    in.number(dist, "k1", "camera.distortion", 0), in.number(dist, "k2", "camera.distortion", 0), in.number(dist, "k3", "camera.distortion", 0),
-                    in.number(dist, "p1", "camera.distortion", 0), in.number(dist, "p2", "camera.distortion", 0));
-        } catch (IllegalArgumentException e) {
-            throw in.error("camera", e.getMessage());
-        }
-        JsonNode tgt = root.path("target");
-        Optional<Pose> pose = Optional.empty();
-        JsonNode pn = root.get("reference_pose");
-        if (pn != null && !pn.isNull()) {
-            JsonNode t = in.array(pn, "translation_m", "reference_pose");
-            if (t.size() != 3) throw in.error("reference_pose.translation_m", "must hold 3 numbers");
-            try {
-                pose = Optional.of(new Pose(in.matrix3(pn.get("rotation"), "reference_pose.rotation"), new double[]{
-                        in.finite(t.get(0), "reference_pose.translation_m[0]"), in.finite(t.get(1), "reference_pose.translation_m[1]"),
-                        in.finite(t.get(2), "reference_pose.translation_m[2]")}));
-            } catch (IllegalArgumentException e) {
-                throw in.error("reference_pose", e.getMessage());
-            }
-        }
-        JsonNode settings = root.path("settings");
-        JsonNode setN = root.path("set");
-        JsonNode pa = in.array(root, "points", "set");
-        List<ServoPoint> pts = new ArrayList<>();
-        for (int i = 0; i < pa.size(); i++) {
-            JsonNode p = pa.get(i);
-            String w = "points[" + i + "]";
-            double z = in.number(p, "z_m", w);
-            if (!(z > 0)) throw in.error(w + ".z_m", "must be a depth > 0 m, got " + z);
-            JsonNode rb = p.path("robustness");
-            try {
-                pts.add(new ServoPoint(in.integer(p, "id", w), in.number(p, "u", w), in.number(p, "v", w), in.number(p, "x", w), in.number(p, "y", w), z,
-                        in.number(p, "target_x_mm", w), in.number(p, "target_y_mm", w), (int) in.number(p, "feature_id", w, -1),
-                        new Robustness(opt(in, rb, "repeatability", w), opt(in, rb, "track_survival", w), opt(in, rb, "localisation_error_px", w),
-                                opt(in, rb, "jitter_px", w)), p.path("reason").asText("")));
-            } catch (IllegalArgumentException e) {
-                throw in.error(w, e.getMessage());
-            }
-        }
-        return new ServoSet(root.path("tool_version").asText(""), root.path("created").asText(""), camera, tgt.path("id").asText(""),
-                tgt.path("design").asText(""), pose, root.path("reference_pose_method").asText(""), settings.path("detector").asText(""),
-                settings.path("detector_config").isMissingNode() ? "{}" : settings.path("detector_config").toString(),
-                settings.path("tracker_config").isMissingNode() ? "{}" : settings.path("tracker_config").toString(), pts,
-                in.number(setN, "condition_number", "set", Double.NaN), in.number(setN, "sigma_min", "set", Double.NaN));
-    }
-
     static JsonNode parse(String json) {
         try {
             return MAPPER.readTree(json == null || json.isBlank() ? "{}" : json);
@@ -152,11 +93,5 @@ public final class ServoSetJson {
     private static void opt(ObjectNode o, String key, OptionalDouble v) {
         if (v.isPresent()) o.put(key, v.getAsDouble());
         else o.putNull(key);
-    }
-
-    private static OptionalDouble opt(JsonIn in, JsonNode parent, String key, String where) throws SourceException {
-        JsonNode n = parent.get(key);
-        if (n == null || n.isNull()) return OptionalDouble.empty();
-        return OptionalDouble.of(in.finite(n, where + ".robustness." + key));
     }
 }

@@ -2,8 +2,8 @@ package org.targetbench.pipeline;
 
 import org.targetbench.camera.Trajectories;
 import org.targetbench.camera.Trajectory;
-import org.targetbench.source.MotionConfig;
-import org.targetbench.source.MotionSource;
+import org.targetbench.perturb.MotionConfig;
+import org.targetbench.perturb.MotionSource;
 import org.targetbench.target.TargetDesign;
 
 import java.util.LinkedHashMap;

@@ -1,6 +1,7 @@
 package org.targetbench.pipeline;
 
 import org.targetbench.camera.CameraModel;
+import org.targetbench.camera.Homography;
 import org.targetbench.camera.Pose;
 import org.targetbench.camera.PoseEstimation;
 import org.targetbench.camera.Projection;
@@ -15,8 +16,6 @@ import org.targetbench.select.ServoPointSelector;
 import org.targetbench.servo.ServoPoint;
 import org.targetbench.servo.ServoSet;
 import org.targetbench.source.FrameTruth;
-import org.targetbench.source.ResultsFolder;
-import org.targetbench.source.SourceException;
 import org.targetbench.target.TargetDesign;
 
 import java.util.ArrayList;
@@ -43,34 +42,101 @@ public final class PickRun {
     private PickRun() {}
 
     /**
-     * Everything a pick produced. {@code set} is empty when the selection found no acceptable set (see its message).
+     * Everything a pick produced. {@code set} is empty when the selection found no acceptable set (see its outcome).
      */
     public record Result(String detector, List<Candidate> candidates, Selection selection, Optional<ServoSet> set,
                          String poseMethod) {}
 
-    public static Result run(ResultsFolder.Data data, String detectorName, CandidateConfig cc, SelectConfig sc,
-                             String toolVersion, String created) throws SourceException {
-        String folder = data.folderName();
+    /**
+     * What a pick starts from: one comparison's detections and what is known of its scene.
+     *
+     * @param referenceFrame   name of the reference frame
+     * @param epsilonPx        the comparison's match radius, pixels (the candidates' repeatability uses the same)
+     * @param ranking          detector names, best first
+     * @param detectorSettings per detector name, its settings as JSON text
+     * @param detections       per detector name, per frame name (in frame order), the detections
+     * @param truth            per frame name, its truth, when known; the reference frame's homography is the identity
+     * @param camera           intrinsics (needed)
+     * @param design           the target design, when known
+     * @param referencePose    the reference view's pose, when known (else estimated from the design and the truth)
+     * @param posesLabel       how the set names where a known pose came from (e.g. a file name)
+     * @param designLabel      how the set names where the design came from
+     */
+    public record Input(String referenceFrame, double epsilonPx, List<String> ranking, Map<String, String> detectorSettings,
+                        Map<String, Map<String, List<Detection>>> detections, Optional<Map<String, FrameTruth>> truth,
+                        Optional<CameraModel> camera, Optional<TargetDesign> design, Optional<Pose> referencePose,
+                        String posesLabel, String designLabel) {
+        FrameTruth truthOf(String frame) {
+            FrameTruth t = truth.map(m -> m.get(frame)).orElse(null);
+            if (t != null) return t;
+            return truth.isPresent() && frame.equals(referenceFrame) ? FrameTruth.homography(Homography.identity()) : FrameTruth.none();
+        }
+    }
+
+    /** Why a pick could not start (expected failures, data). */
+    public enum Problem {
+        /** The comparison ranked no detector and none was named. */
+        EMPTY_RANKING,
+        /** The named detector is not in the comparison ({@link Refused#detector}, {@link Refused#choices}). */
+        UNKNOWN_DETECTOR,
+        /** No camera intrinsics. */
+        NO_CAMERA,
+        /** Too few reference detections match designed features for a pose estimate ({@link Refused#count}). */
+        POSE_NOT_ESTIMABLE,
+        /** No known pose, and no design or no reference truth to estimate one ({@link Refused#designMissing}, {@link Refused#truthMissing}). */
+        NO_DEPTH,
+        /** The known pose does not place the designed features on the reference truth ({@link Refused#medianPx}). */
+        POSE_MISMATCH
+    }
+
+    /** A pick that could not start, with its typed reason and numbers; sentences are rendered by the shells' one renderer. */
+    public static final class Refused extends Exception {
+        public final Problem problem;
+        public final String detector;
+        public final List<String> choices;
+        public final int count;
+        public final double medianPx;
+        public final boolean designMissing, truthMissing;
+
+        Refused(Problem problem, String detector, List<String> choices, int count, double medianPx, boolean designMissing, boolean truthMissing) {
+            super(problem.name());
+            this.problem = problem;
+            this.detector = detector;
+            this.choices = List.copyOf(choices);
+            this.count = count;
+            this.medianPx = medianPx;
+            this.designMissing = designMissing;
+            this.truthMissing = truthMissing;
+        }
+
+        static Refused of(Problem p, String detector) { return new Refused(p, detector, List.of(), 0, Double.NaN, false, false); }
+    }
+
+    /**
+     * Picks a set.
+     *
+     * @param detectorName the detector whose detections are the candidates, or null for the top-ranked one
+     */
+    public static Result run(Input data, String detectorName, CandidateConfig cc, SelectConfig sc,
+                             String toolVersion, String created) throws Refused {
         String detector = detectorName != null ? detectorName : data.ranking().isEmpty() ? null : data.ranking().get(0);
-        if (detector == null) throw new SourceException(folder + "/summary.json: the ranking is empty; name a detector with --detector");
+        if (detector == null) throw Refused.of(Problem.EMPTY_RANKING, null);
         Map<String, List<Detection>> byFrame = data.detections().get(detector);
         if (byFrame == null && !data.ranking().contains(detector))
-            throw new SourceException("detector \"" + detector + "\" is not in the results in " + folder + "; choose from " + String.join(", ", data.ranking()));
+            throw new Refused(Problem.UNKNOWN_DETECTOR, detector, data.ranking(), 0, Double.NaN, false, false);
         if (byFrame == null) byFrame = Map.of();
-        CameraModel camera = data.camera().orElseThrow(() -> new SourceException("camera.json not found in " + folder
-                + ": the camera intrinsics are needed to undistort the points and place them in depth (give --camera FILE)"));
-        Optional<TargetDesign> design = data.target();
-        Map<String, FrameTruth> truth = data.truth().map(t -> t.frames()).orElse(Map.of());
+        CameraModel camera = data.camera().orElseThrow(() -> Refused.of(Problem.NO_CAMERA, detector));
+        Optional<TargetDesign> design = data.design();
         String ref = data.referenceFrame();
         List<Detection> refDet = byFrame.getOrDefault(ref, List.of());
-        List<ProjectedFeature> refTruth = data.truth().map(t -> t.forFrame(ref).features()).orElse(List.of());
+        List<ProjectedFeature> refTruth = data.truth().isPresent() ? data.truthOf(ref).features() : List.of();
 
         Pose pose;
         String poseMethod;
-        if (data.poses().isPresent()) {
-            pose = data.poses().get().get(0);
-            poseMethod = "known: pose 0 of " + data.posesFile().map(data::shortName).orElse("poses.json");
-            if (!refTruth.isEmpty() && design.isPresent()) checkPose(camera, design.get(), pose, refTruth, data);
+        if (data.referencePose().isPresent()) {
+            pose = data.referencePose().get();
+            poseMethod = "known: pose 0 of " + data.posesLabel();
+            if (!refTruth.isEmpty() && design.isPresent()) checkPose(camera, design.get(), pose, refTruth, detector);
         } else if (!refTruth.isEmpty() && design.isPresent()) {
             List<double[]> px = new ArrayList<>(), mm = new ArrayList<>();
             for (ProjectedFeature f : refTruth) {
@@ -89,22 +155,18 @@ public final class PickRun {
                 }
             }
             Optional<PoseEstimation.Estimate> est = PoseEstimation.planar(camera, px, mm);
-            if (est.isEmpty()) throw new SourceException("cannot estimate the reference pose: only " + px.size() + " " + detector
-                    + " detections of the reference frame match designed features (4 non-collinear are needed); give poses.json with --poses");
+            if (est.isEmpty()) throw new Refused(Problem.POSE_NOT_ESTIMABLE, detector, List.of(), px.size(), Double.NaN, false, false);
             pose = est.get().pose();
             poseMethod = String.format(Locale.ROOT, "%s, from %d %s detections matched to designed features, reprojection RMS %.3f px",
                     PoseEstimation.METHOD, est.get().points(), detector, est.get().reprojectionRmsPx());
         } else {
-            throw new SourceException("cannot place the points in depth: no poses.json in " + folder + " (the reference pose)"
-                    + (design.isEmpty() ? " and no target.json (the design, for a PnP estimate)" : "")
-                    + (refTruth.isEmpty() ? " and no true feature pixels for the reference frame in " + data.shortName(data.truthFile()) + " (to match detections to designed features)" : "")
-                    + "; give --poses, or --target and --truth");
+            throw new Refused(Problem.NO_DEPTH, detector, List.of(), 0, Double.NaN, design.isEmpty(), refTruth.isEmpty());
         }
 
         List<Candidates.Frame> others = new ArrayList<>();
         for (String name : allFrames(data, byFrame)) {
             if (name.equals(ref)) continue;
-            FrameTruth ft = truth.getOrDefault(name, FrameTruth.none());
+            FrameTruth ft = data.truthOf(name);
             others.add(new Candidates.Frame(name, byFrame.getOrDefault(name, List.of()), ft.fromReference(), ft.features()));
         }
         CandidateConfig c2 = cc.copy();
@@ -118,21 +180,21 @@ public final class PickRun {
             Candidate c = ch.candidate();
             pts.add(new ServoPoint(c.id(), c.u(), c.v(), c.x(), c.y(), c.zM(), c.targetXMm(), c.targetYMm(), c.featureId(), c.robustness(), ch.reason()));
         }
-        String designRef = design.map(d -> d.name() + " (" + data.targetFile().map(data::shortName).orElse("target.json") + ")").orElse("unknown");
+        String designRef = design.map(d -> d.name() + " (" + data.designLabel() + ")").orElse("unknown");
         ServoSet set = new ServoSet(toolVersion, created, camera, design.map(TargetDesign::id).orElse("unknown"), designRef,
                 Optional.of(pose), poseMethod, detector, data.detectorSettings().getOrDefault(detector, "{}"), "{}", pts,
                 sel.condition(), sel.sigmaMin());
         return new Result(detector, cands, sel, Optional.of(set), poseMethod);
     }
 
-    private static List<String> allFrames(ResultsFolder.Data data, Map<String, List<Detection>> byFrame) {
+    private static List<String> allFrames(Input data, Map<String, List<Detection>> byFrame) {
         java.util.LinkedHashSet<String> names = new java.util.LinkedHashSet<>(byFrame.keySet());
-        data.truth().ifPresent(t -> names.addAll(t.frames().keySet()));
+        data.truth().ifPresent(t -> names.addAll(t.keySet()));
         return new ArrayList<>(names);
     }
 
     private static void checkPose(CameraModel camera, TargetDesign design, Pose pose, List<ProjectedFeature> truth,
-                                  ResultsFolder.Data data) throws SourceException {
+                                  String detector) throws Refused {
         double[] d = new double[truth.size()];
         int n = 0;
         for (ProjectedFeature f : truth) {
@@ -144,9 +206,6 @@ public final class PickRun {
         double[] s = Arrays.copyOf(d, n);
         Arrays.sort(s);
         double median = s[n / 2];
-        if (!(median <= POSE_CHECK_PX))
-            throw new SourceException(String.format(Locale.ROOT, "%s: pose 0 does not match the reference frame %s: designed features land a median %.1f px "
-                    + "from their true pixels in %s of %s (is the first pose the reference view?)", data.posesFile().map(data::shortName).orElse("poses.json"),
-                    data.referenceFrame(), median, data.shortName(data.truthFile()), data.folderName()));
+        if (!(median <= POSE_CHECK_PX)) throw new Refused(Problem.POSE_MISMATCH, detector, List.of(), n, median, false, false);
     }
 }

@@ -4,7 +4,10 @@ import boofcv.struct.image.GrayF32;
 import org.targetbench.camera.CameraModel;
 import org.targetbench.camera.Pose;
 import org.targetbench.camera.Projection.ProjectedFeature;
+import org.targetbench.source.FrameSource;
 import org.targetbench.source.RenderConfig;
+import org.targetbench.source.SourceException;
+import org.targetbench.source.SourceFrame;
 import org.targetbench.source.SyntheticRenderer;
 import org.targetbench.target.TargetDesign;
 
@@ -60,6 +63,19 @@ public record SweepBase(String description, List<BaseFrame> frames, Optional<Sce
         }
         return new SweepBase("rendered views of " + design.id() + " at " + standoffM + " m", frames,
                 Optional.of(new Scene(design, camera, renderer)));
+    }
+
+    /**
+     * Base frames taken from a frame source (each frame is its own reference), at most {@code most} of them.
+     *
+     * @param description what the frames are, for reports
+     */
+    public static SweepBase fromFrames(FrameSource source, String description, int most) throws SourceException {
+        List<BaseFrame> frames = new ArrayList<>();
+        Optional<SourceFrame> f;
+        while (frames.size() < most && (f = source.next()).isPresent())
+            frames.add(new BaseFrame(f.get().name(), f.get().image(), f.get().truth().features(), Optional.empty()));
+        return new SweepBase(description, frames, Optional.empty());
     }
 
     /**

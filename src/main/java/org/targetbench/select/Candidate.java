@@ -1,6 +1,6 @@
 package org.targetbench.select;
 
-import org.targetbench.servo.Robustness;
+import org.targetbench.score.Robustness;
 
 /**
  * A detected feature of the reference view that could become a servo point, with what is known about it.

@@ -8,7 +8,7 @@ import org.targetbench.camera.Pose;
 import org.targetbench.camera.Projection;
 import org.targetbench.camera.Projection.ProjectedFeature;
 import org.targetbench.detect.Detection;
-import org.targetbench.servo.Robustness;
+import org.targetbench.score.Robustness;
 import org.targetbench.target.TargetDesign;
 
 import java.util.ArrayList;

@@ -2,7 +2,7 @@ package org.targetbench.select;
 
 import org.targetbench.detect.Detection;
 import org.targetbench.score.Spread;
-import org.targetbench.servo.InteractionMatrix;
+import org.targetbench.camera.InteractionMatrix;
 
 import java.util.ArrayList;
 import java.util.Arrays;

@@ -1,5 +1,6 @@
 package org.targetbench.servo;
 
+import org.targetbench.camera.InteractionMatrix;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;
 import org.ejml.dense.row.factory.LinearSolverFactory_DDRM;

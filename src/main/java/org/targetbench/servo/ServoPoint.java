@@ -1,5 +1,7 @@
 package org.targetbench.servo;
 
+
+import org.targetbench.score.Robustness;
 /**
  * One point of a servo reference set.
  *

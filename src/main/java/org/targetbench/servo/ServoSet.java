@@ -1,5 +1,6 @@
 package org.targetbench.servo;
 
+import org.targetbench.camera.InteractionMatrix;
 import org.targetbench.camera.CameraModel;
 import org.targetbench.camera.Pose;
 

@@ -1,5 +1,6 @@
 package org.targetbench.servo;
 
+import org.targetbench.camera.InteractionMatrix;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
 import org.ejml.interfaces.decomposition.SingularValueDecomposition_F64;

@@ -101,7 +101,7 @@ public final class ImageFiles {
         }
     }
 
-    static String oneLine(Throwable e) {
+    public static String oneLine(Throwable e) {
         String m = e.getMessage();
         if (m == null || m.isBlank()) m = e.getClass().getSimpleName();
         return m.replaceAll("\\s+", " ").trim();

@@ -1,5 +1,6 @@
 package org.targetbench.app;
 
+import org.targetbench.formats.ServoSetReader;
 import org.assertj.swing.core.BasicRobot;
 import org.assertj.swing.core.Robot;
 import org.assertj.swing.edt.GuiActionRunner;
@@ -237,8 +238,8 @@ class WorkbenchGuiTest {
         waitFor("exported", () -> Files.exists(dir.resolve("servo-set.json")));
         var current = GuiActionRunner.execute(() -> workbench.session().servoSet());
         // what the app wrote, read back by the command line's importer, is the same set
-        assertEquals(current, org.targetbench.export.ServoSetFiles.read(dir.resolve("servo-set.json")));
-        assertEquals(current, org.targetbench.export.ServoSetFiles.read(dir.resolve("servo-set.csv")));
+        assertEquals(current, ServoSetReader.read(dir.resolve("servo-set.json")));
+        assertEquals(current, ServoSetReader.read(dir.resolve("servo-set.csv")));
         assertTrue(Files.exists(dir.resolve("rehearsal/rehearsal.html")));
     }
 

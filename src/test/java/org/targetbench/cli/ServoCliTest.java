@@ -1,5 +1,6 @@
 package org.targetbench.cli;
 
+import org.targetbench.formats.ServoSetReader;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import org.junit.jupiter.api.BeforeAll;
@@ -8,7 +9,6 @@ import org.junit.jupiter.api.io.TempDir;
 import org.targetbench.camera.CameraModel;
 import org.targetbench.camera.Pose;
 import org.targetbench.camera.Projection;
-import org.targetbench.export.ServoSetFiles;
 import org.targetbench.pipeline.DemoScenario;
 import org.targetbench.servo.ServoPoint;
 import org.targetbench.servo.ServoSet;
@@ -47,8 +47,8 @@ class ServoCliTest {
                 "rehearsal/rehearsal-summary.json", "rehearsal/rehearsal.html", "rehearsal/rehearsal-error.png",
                 "rehearsal/rehearsal-paths.png", "rehearsal/rehearsal-map.png"))
             assertTrue(Files.isRegularFile(demo.resolve(f)), "missing " + f);
-        ServoSet set = ServoSetFiles.read(demo.resolve("servo-set.json"));
-        assertEquals(set, ServoSetFiles.read(demo.resolve("servo-set.csv")));
+        ServoSet set = ServoSetReader.read(demo.resolve("servo-set.json"));
+        assertEquals(set, ServoSetReader.read(demo.resolve("servo-set.csv")));
         assertEquals(4, set.points().size());
         CameraModel cam = DemoScenario.camera();
         Pose ref = DemoScenario.poses().get(0);
@@ -71,7 +71,7 @@ class ServoCliTest {
         Cli.Result p = Cli.run("pick", "--from", demo.toString(), "--count", "6", "--out", six.toString());
         assertEquals(0, p.exit(), p.err());
         assertTrue(p.out().contains("chose 6 of"), p.out());
-        assertEquals(6, ServoSetFiles.read(six).points().size());
+        assertEquals(6, ServoSetReader.read(six).points().size());
         List<String> sel = Files.readAllLines(tmp.resolve("sets/six-selection.csv"));
         assertEquals(6, sel.stream().filter(l -> l.contains(",chosen,")).count());
         assertTrue(sel.stream().skip(1).allMatch(l -> l.contains(",chosen,") || l.contains(",rejected,")));
@@ -92,7 +92,7 @@ class ServoCliTest {
         Path f = copy.resolve("servo-set.json");
         Cli.Result p = Cli.run("pick", "--from", copy.toString(), "--out", f.toString());
         assertEquals(0, p.exit(), p.err());
-        ServoSet est = ServoSetFiles.read(f);
+        ServoSet est = ServoSetReader.read(f);
         assertTrue(est.poseMethod().contains("PnP"), est.poseMethod());
         Pose ref = DemoScenario.poses().get(0);
         for (ServoPoint pt : est.points())

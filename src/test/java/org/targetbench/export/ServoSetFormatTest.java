@@ -1,12 +1,13 @@
 package org.targetbench.export;
 
+import org.targetbench.formats.ServoSetReader;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.targetbench.camera.CameraModel;
 import org.targetbench.camera.Pose;
-import org.targetbench.servo.Robustness;
+import org.targetbench.score.Robustness;
 import org.targetbench.servo.ServoFixtures;
 import org.targetbench.servo.ServoPoint;
 import org.targetbench.servo.ServoSet;
@@ -44,7 +45,7 @@ class ServoSetFormatTest {
         ServoSet s = sample();
         Path f = tmp.resolve("servo-set.json");
         ServoSetJson.write(s, f);
-        assertEquals(s, ServoSetFiles.read(f));
+        assertEquals(s, ServoSetReader.read(f));
         String text = Files.readString(f);
         assertTrue(text.contains("\"format\" : \"targetbench-servo-set\"") && text.contains(Safety.NOTICE.substring(0, 40)), text);
     }
@@ -54,7 +55,7 @@ class ServoSetFormatTest {
         ServoSet s = sample();
         Path f = tmp.resolve("servo-set.csv");
         ServoSetCsv.write(s, f);
-        assertEquals(s, ServoSetFiles.read(f));
+        assertEquals(s, ServoSetReader.read(f));
         List<String> lines = Files.readAllLines(f);
         assertTrue(lines.contains(ServoSetCsv.HEADER));
         assertEquals(5, lines.size() - lines.indexOf(ServoSetCsv.HEADER) - 1);
@@ -67,8 +68,8 @@ class ServoSetFormatTest {
                 p.detector(), p.detectorConfig(), p.trackerConfig(), p.points(), p.condition(), p.sigmaMin());
         ServoSetJson.write(s, tmp.resolve("a.json"));
         ServoSetCsv.write(s, tmp.resolve("a.csv"));
-        assertEquals(s, ServoSetFiles.read(tmp.resolve("a.json")));
-        assertEquals(s, ServoSetFiles.read(tmp.resolve("a.csv")));
+        assertEquals(s, ServoSetReader.read(tmp.resolve("a.json")));
+        assertEquals(s, ServoSetReader.read(tmp.resolve("a.csv")));
     }
 
     @Test
@@ -91,14 +92,14 @@ class ServoSetFormatTest {
         Path csv = tmp.resolve("v.csv");
         ServoSetCsv.write(sample(), csv);
         Files.writeString(csv, Files.readString(csv).replace("# version,1", "# version,7"));
-        var e = assertThrows(SourceException.class, () -> ServoSetFiles.read(csv));
+        var e = assertThrows(SourceException.class, () -> ServoSetReader.read(csv));
         assertTrue(e.getMessage().contains("version is 7"), e.getMessage());
     }
 
     private static void assertRefused(Path tmp, ObjectMapper m, ObjectNode json, String fragment) throws Exception {
         Path f = tmp.resolve("bad-" + Math.abs(fragment.hashCode()) + ".json");
         m.writeValue(f.toFile(), json);
-        var e = assertThrows(SourceException.class, () -> ServoSetFiles.read(f));
+        var e = assertThrows(SourceException.class, () -> ServoSetReader.read(f));
         assertTrue(e.getMessage().contains(fragment), e.getMessage());
     }
 }

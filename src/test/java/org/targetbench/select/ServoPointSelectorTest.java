@@ -1,7 +1,7 @@
 package org.targetbench.select;
 
 import org.junit.jupiter.api.Test;
-import org.targetbench.servo.Robustness;
+import org.targetbench.score.Robustness;
 
 import java.util.ArrayList;
 import java.util.HashSet;

@@ -1,5 +1,6 @@
 package org.targetbench.servo;
 
+import org.targetbench.score.Robustness;
 import org.junit.jupiter.api.Test;
 
 import java.util.List;

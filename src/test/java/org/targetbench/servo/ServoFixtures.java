@@ -1,5 +1,6 @@
 package org.targetbench.servo;
 
+import org.targetbench.score.Robustness;
 import georegression.struct.point.Point2D_F64;
 import org.targetbench.camera.CameraModel;
 import org.targetbench.camera.Pose;

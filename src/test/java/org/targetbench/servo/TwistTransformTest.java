@@ -1,5 +1,6 @@
 package org.targetbench.servo;
 
+import org.targetbench.camera.InteractionMatrix;
 import georegression.struct.se.Se3_F64;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;

@@ -8,9 +8,9 @@ import org.targetbench.pipeline.Progress;
 import org.targetbench.pipeline.TrackResult;
 import org.targetbench.pipeline.TrackRun;
 import org.targetbench.pipeline.TrackSink;
-import org.targetbench.source.MotionConfig;
-import org.targetbench.source.MotionSource;
-import org.targetbench.source.MotionSourceAccess;
+import org.targetbench.perturb.MotionConfig;
+import org.targetbench.perturb.MotionSource;
+import org.targetbench.perturb.MotionSourceAccess;
 import org.targetbench.target.TargetDesign;
 
 import java.util.ArrayList;

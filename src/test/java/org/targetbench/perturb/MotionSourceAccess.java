@@ -1,4 +1,4 @@
-package org.targetbench.source;
+package org.targetbench.perturb;
 
 /** Lets tests in other packages read the blur a motion source applies. */
 public final class MotionSourceAccess {

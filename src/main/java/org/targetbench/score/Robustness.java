@@ -1,4 +1,4 @@
-package org.targetbench.servo;
+package org.targetbench.score;
 
 import java.util.OptionalDouble;
 

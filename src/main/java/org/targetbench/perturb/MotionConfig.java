@@ -1,4 +1,4 @@
-package org.targetbench.source;
+package org.targetbench.perturb;
 
 /**
  * Settings of a synthetic motion sequence ({@link MotionSource}): timing and the per-frame effects applied after

@@ -1,4 +1,4 @@
-package org.targetbench.servo;
+package org.targetbench.camera;
 
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.SingularOps_DDRM;

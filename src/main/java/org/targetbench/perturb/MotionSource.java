@@ -1,5 +1,12 @@
-package org.targetbench.source;
+package org.targetbench.perturb;
 
+import org.targetbench.source.SyntheticSource;
+import org.targetbench.source.SourceException;
+import org.targetbench.source.RenderConfig;
+import org.targetbench.source.SyntheticRenderer;
+import org.targetbench.source.FrameTruth;
+import org.targetbench.source.SourceFrame;
+import org.targetbench.source.FrameSource;
 import boofcv.struct.image.GrayF32;
 import org.targetbench.camera.CameraModel;
 import org.targetbench.camera.Homography;

@@ -1,5 +1,6 @@
-package org.targetbench.cli;
+package org.targetbench.formats;
 
+import org.targetbench.perturb.MotionSource;
 import org.targetbench.pipeline.MotionScenarios;
 import org.targetbench.source.FrameSource;
 import org.targetbench.source.ImageFolderSource;
@@ -18,13 +19,13 @@ import java.util.regex.Pattern;
  */
 public final class SourceSpec {
     /** Kept in step with {@link MotionScenarios#NAMES} (a constant, for annotations). */
-    static final String HELP = "a folder of PNG/JPEG frames, a video (.mp4, .avi, .mjpeg, .mjpg), webcam[:INDEX] or synthetic:NAME[,key=value...] "
+    public static final String HELP = "a folder of PNG/JPEG frames, a video (.mp4, .avi, .mjpeg, .mjpg), webcam[:INDEX] or synthetic:NAME[,key=value...] "
             + "with NAME one of approach, orbit, shake, vibration, still";
     private static final Pattern SCHEME = Pattern.compile("^([A-Za-z][A-Za-z0-9+.-]*):.*");
 
     private SourceSpec() {}
 
-    static boolean isLive(String spec) {
+    public static boolean isLive(String spec) {
         String s = spec.trim().toLowerCase(Locale.ROOT);
         return s.equals("webcam") || s.startsWith("webcam:");
     }
@@ -33,22 +34,22 @@ public final class SourceSpec {
         String s = spec.trim();
         String lower = s.toLowerCase(Locale.ROOT);
         if (lower.startsWith("synthetic:")) {
-            if (truth != null) throw new UserError("--truth goes with folders and videos; synthetic sources carry their own truth");
+            if (truth != null) throw new SourceException("--truth goes with folders and videos; synthetic sources carry their own truth");
             try {
                 return MotionScenarios.open(s.substring("synthetic:".length()));
             } catch (IllegalArgumentException e) {
-                throw new UserError(e.getMessage());
+                throw new SourceException(e.getMessage());
             }
         }
         if (isLive(s)) {
-            if (truth != null) throw new UserError("--truth goes with folders and videos, not with a live camera");
+            if (truth != null) throw new SourceException("--truth goes with folders and videos, not with a live camera");
             int index = 0;
             if (lower.startsWith("webcam:")) {
                 String n = s.substring("webcam:".length()).trim();
                 try {
                     index = Integer.parseInt(n);
                 } catch (NumberFormatException e) {
-                    throw new UserError("webcam index must be a whole number, got \"" + n + "\" (use webcam or webcam:0)");
+                    throw new SourceException("webcam index must be a whole number, got \"" + n + "\" (use webcam or webcam:0)");
                 }
             }
             return Webcams.open(index, Webcams.DISCOVERY_TIMEOUT);
@@ -57,7 +58,7 @@ public final class SourceSpec {
         if (!Files.exists(p)) {
             var m = SCHEME.matcher(s);
             if (m.matches() && m.group(1).length() > 1)
-                throw new UserError("unknown source scheme \"" + m.group(1) + ":\"; use " + HELP);
+                throw new SourceException("unknown source scheme \"" + m.group(1) + ":\"; use " + HELP);
             throw new SourceException("source not found: " + s);
         }
         if (Files.isDirectory(p)) return ImageFolderSource.open(p, truth);

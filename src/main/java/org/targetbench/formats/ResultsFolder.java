@@ -1,9 +1,19 @@
-package org.targetbench.source;
+package org.targetbench.formats;
 
+import org.targetbench.source.TruthFile;
+import org.targetbench.source.TargetFile;
+import org.targetbench.source.PosesFile;
+import org.targetbench.source.ImageFiles;
+import org.targetbench.source.CsvIn;
+import org.targetbench.source.CameraFile;
+import org.targetbench.source.JsonIn;
+import org.targetbench.source.FrameTruth;
+import org.targetbench.source.SourceException;
 import com.fasterxml.jackson.databind.JsonNode;
 import org.targetbench.camera.CameraModel;
 import org.targetbench.camera.Pose;
 import org.targetbench.detect.Detection;
+import org.targetbench.pipeline.PickRun;
 import org.targetbench.target.TargetDesign;
 
 import java.io.IOException;
@@ -41,12 +51,33 @@ public final class ResultsFolder {
                        Optional<TruthFile.Truth> truth, Optional<CameraModel> camera, Optional<TargetDesign> target,
                        Optional<List<Pose>> poses, Optional<Path> cameraFile, Optional<Path> targetFile, Optional<Path> posesFile,
                        Path truthFile, String folderName) {
+        /** What a pick starts from: this folder's detections and scene, the files named as the set records them. */
+        public PickRun.Input pickInput() {
+            return new PickRun.Input(referenceFrame, epsilonPx, ranking, detectorSettings, detections, truth.map(TruthFile.Truth::frames),
+                    camera, target, poses.map(p -> p.get(0)), posesFile.map(this::shortName).orElse("poses.json"),
+                    targetFile.map(this::shortName).orElse("target.json"));
+        }
+
+        /** Names for the sentences that explain a refused pick. */
+        public Where where() {
+            return new Where(folderName, shortName(truthFile), posesFile.map(this::shortName).orElse("poses.json"), referenceFrame);
+        }
+
         /** A file's name relative to the results folder when it lies inside it, else its full path. */
         public String shortName(Path file) {
             Path f = file.toAbsolutePath().normalize(), d = folder.toAbsolutePath().normalize();
             return f.startsWith(d) ? d.relativize(f).toString() : file.toString();
         }
     }
+
+    /**
+     * How the sentences of a refused pick name its inputs.
+     *
+     * @param folder    the results folder (or what stands for it)
+     * @param truthFile the truth file's short name
+     * @param posesFile the poses file's short name
+     */
+    public record Where(String folder, String truthFile, String posesFile, String referenceFrame) {}
 
     /** Optional explicit files; null means "the default inside the folder". */
     public record Overrides(Path truth, Path camera, Path target, Path poses) {
