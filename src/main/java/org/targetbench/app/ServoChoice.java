@@ -1,6 +1,6 @@
 package org.targetbench.app;
 
-import org.targetbench.report.Reasons;
+import org.targetbench.pipeline.Reasons;
 import org.targetbench.Version;
 import org.targetbench.export.AtomicOutput;
 import org.targetbench.export.CompareWriter;
@@ -74,7 +74,7 @@ final class ServoChoice {
             Candidate c = candidates.stream().filter(x -> x.id() == id).findFirst()
                     .orElseThrow(() -> new IllegalArgumentException("no candidate with id " + id));
             pts.add(new ServoPoint(c.id(), c.u(), c.v(), c.x(), c.y(), c.zM(), c.targetXMm(), c.targetYMm(), c.featureId(),
-                    c.robustness(), "added by hand"));
+                    c.robustness(), Reasons.ADDED_BY_HAND));
         }
         if (pts.isEmpty()) return null;
         InteractionMatrix.Conditioning k = ServoSet.conditioning(pts);

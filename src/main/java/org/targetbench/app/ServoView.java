@@ -1,5 +1,6 @@
 package org.targetbench.app;
 
+import org.targetbench.pipeline.Reasons;
 import org.targetbench.pipeline.PickRun;
 import org.targetbench.select.Candidate;
 import org.targetbench.select.Selection;
@@ -103,7 +104,7 @@ final class ServoView extends JPanel implements Session.Listener {
                     PickRun.Result r = get();
                     session.setPick(r);
                     ctx.status().accept(r.set().isPresent() ? "Chose " + r.set().get().points().size() + " points from " + r.candidates().size()
-                            + " " + r.detector() + " candidates" : "No acceptable set: " + r.selection().message());
+                            + " " + r.detector() + " candidates" : "No acceptable set: " + Reasons.selection(r.selection()));
                 } catch (ExecutionException e) {
                     ctx.status().accept("Could not choose points: " + e.getCause().getMessage());
                 } catch (InterruptedException e) {
@@ -158,7 +159,7 @@ final class ServoView extends JPanel implements Session.Listener {
         chosen.setRowCount(0);
         rejected.setRowCount(0);
         if (set == null) {
-            figures.setText(pick == null ? "No set yet." : "No acceptable set: " + pick.selection().message());
+            figures.setText(pick == null ? "No set yet." : "No acceptable set: " + Reasons.selection(pick.selection()));
             findings.setText(" ");
             return;
         }
@@ -170,6 +171,6 @@ final class ServoView extends JPanel implements Session.Listener {
             chosen.addRow(new Object[]{p.id(), Ui.fmt(p.u(), 2), Ui.fmt(p.v(), 2), Ui.fmt(p.zM(), 4), p.reason()});
         if (pick != null) for (Selection.Rejected r : pick.selection().rejected())
             if (!in.contains(r.candidate().id()))
-                rejected.addRow(new Object[]{r.candidate().id(), Ui.fmt(r.candidate().u(), 1), Ui.fmt(r.candidate().v(), 1), r.reason()});
+                rejected.addRow(new Object[]{r.candidate().id(), Ui.fmt(r.candidate().u(), 1), Ui.fmt(r.candidate().v(), 1), Reasons.rejected(r)});
     }
 }

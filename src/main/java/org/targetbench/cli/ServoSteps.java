@@ -5,7 +5,7 @@ import org.targetbench.export.AtomicOutput;
 import org.targetbench.export.ServoSetFiles;
 import org.targetbench.export.ServoWriters;
 import org.targetbench.pipeline.PickRun;
-import org.targetbench.report.Reasons;
+import org.targetbench.pipeline.Reasons;
 import org.targetbench.report.RehearsalReport;
 import org.targetbench.select.CandidateConfig;
 import org.targetbench.select.Selection;
@@ -38,7 +38,7 @@ final class ServoSteps {
         } catch (PickRun.Refused e) {
             throw new SourceException(Reasons.pickRefusal(e, data.where()));
         }
-        if (r.set().isEmpty()) throw new NoAcceptableSet(r.selection().message());
+        if (r.set().isEmpty()) throw new NoAcceptableSet(Reasons.selection(r.selection()));
         return r;
     }
 
@@ -52,7 +52,7 @@ final class ServoSteps {
     static void printPick(PickRun.Result r, String from, PrintWriter w) {
         Selection s = r.selection();
         ServoSet set = r.set().orElseThrow();
-        w.printf(Locale.ROOT, "Servo set from %s: detector %s, %s; %s.%n", from, r.detector(), s.message(), s.method());
+        w.printf(Locale.ROOT, "Servo set from %s: detector %s, %s; %s.%n", from, r.detector(), Reasons.selection(s), s.method());
         w.println("Reference pose: " + r.poseMethod());
         w.printf(Locale.ROOT, "cond(L*) %.2f, sigma_min %.4f (translational columns scaled by Z*), image coverage %.0f%%%n",
                 s.condition(), s.sigmaMin(), 100 * s.coverage());
@@ -60,26 +60,11 @@ final class ServoSteps {
         for (ServoPoint p : set.points())
             w.printf(Locale.ROOT, "%5d %8.2f %8.2f %8.4f %16s  %s%n", p.id(), p.u(), p.v(), p.zM(),
                     String.format(Locale.ROOT, "%.1f,%.1f", p.targetXMm(), p.targetYMm()), p.reason());
-        Map<String, Integer> why = new LinkedHashMap<>();
-        for (Selection.Rejected rj : s.rejected()) why.merge(category(rj.reason()), 1, Integer::sum);
-        StringBuilder b = new StringBuilder();
-        why.forEach((k, v) -> b.append(b.length() == 0 ? "" : ", ").append(v).append(" ").append(k));
-        w.println("Rejected " + s.rejected().size() + " candidates" + (b.length() == 0 ? "" : " (" + b + ")") + "; every reason is in the selection CSV.");
+        Map<Selection.Why, Integer> why = new LinkedHashMap<>();
+        for (Selection.Rejected rj : s.rejected()) why.merge(rj.why(), 1, Integer::sum);
+        String b = Reasons.tally(why, true);
+        w.println("Rejected " + s.rejected().size() + " candidates" + (b.isEmpty() ? "" : " (" + b + ")") + "; every reason is in the selection CSV.");
         for (SetDiagnostics.Finding f : SetDiagnostics.check(set.points())) w.println("Warning: " + f.message());
-    }
-
-    /** A short group name for a rejection reason, for the one-line tally. */
-    static String category(String reason) {
-        if (reason.startsWith("passes the filters but lies")) return "too close to a chosen point";
-        if (reason.startsWith("passes the filters")) return "passed the filters, not in the best set";
-        if (reason.startsWith("not a designed")) return "not on a designed feature";
-        if (reason.startsWith("too near the image border")) return "too near the border";
-        if (reason.startsWith("repeatability")) return "low repeatability";
-        if (reason.startsWith("localisation")) return "poor localisation";
-        if (reason.startsWith("track survival")) return "low track survival";
-        if (reason.startsWith("jitter")) return "high jitter";
-        if (reason.startsWith("depth unknown")) return "depth unknown";
-        return "other";
     }
 
     /** Refuses sets that must not be rehearsed (fewer than 4 points, collinear), with one line naming the file. */

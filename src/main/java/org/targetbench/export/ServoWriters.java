@@ -1,5 +1,6 @@
 package org.targetbench.export;
 
+import org.targetbench.pipeline.Reasons;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
@@ -41,8 +42,8 @@ public final class ServoWriters {
     public static void writeSelection(Selection s, Path file) throws IOException {
         try (BufferedWriter w = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
             w.write(SELECTION_HEADER + "\n");
-            for (Selection.Chosen c : s.chosen()) row(w, c.candidate(), "chosen", c.reason());
-            for (Selection.Rejected r : s.rejected()) row(w, r.candidate(), "rejected", r.reason());
+            for (Selection.Chosen c : s.chosen()) row(w, c.candidate(), "chosen", Reasons.chosen(c));
+            for (Selection.Rejected r : s.rejected()) row(w, r.candidate(), "rejected", Reasons.rejected(r));
         }
     }
 

@@ -1,5 +1,6 @@
 package org.targetbench.formats;
 
+import org.targetbench.pipeline.Reasons;
 import org.targetbench.source.TruthFile;
 import org.targetbench.source.TargetFile;
 import org.targetbench.source.PosesFile;
@@ -59,8 +60,8 @@ public final class ResultsFolder {
         }
 
         /** Names for the sentences that explain a refused pick. */
-        public Where where() {
-            return new Where(folderName, shortName(truthFile), posesFile.map(this::shortName).orElse("poses.json"), referenceFrame);
+        public Reasons.Where where() {
+            return new Reasons.Where(folderName, shortName(truthFile), posesFile.map(this::shortName).orElse("poses.json"), referenceFrame);
         }
 
         /** A file's name relative to the results folder when it lies inside it, else its full path. */
@@ -69,15 +70,6 @@ public final class ResultsFolder {
             return f.startsWith(d) ? d.relativize(f).toString() : file.toString();
         }
     }
-
-    /**
-     * How the sentences of a refused pick name its inputs.
-     *
-     * @param folder    the results folder (or what stands for it)
-     * @param truthFile the truth file's short name
-     * @param posesFile the poses file's short name
-     */
-    public record Where(String folder, String truthFile, String posesFile, String referenceFrame) {}
 
     /** Optional explicit files; null means "the default inside the folder". */
     public record Overrides(Path truth, Path camera, Path target, Path poses) {

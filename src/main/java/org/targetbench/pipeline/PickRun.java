@@ -178,7 +178,7 @@ public final class PickRun {
         List<ServoPoint> pts = new ArrayList<>();
         for (Selection.Chosen ch : sel.chosen()) {
             Candidate c = ch.candidate();
-            pts.add(new ServoPoint(c.id(), c.u(), c.v(), c.x(), c.y(), c.zM(), c.targetXMm(), c.targetYMm(), c.featureId(), c.robustness(), ch.reason()));
+            pts.add(new ServoPoint(c.id(), c.u(), c.v(), c.x(), c.y(), c.zM(), c.targetXMm(), c.targetYMm(), c.featureId(), c.robustness(), Reasons.chosen(ch)));
         }
         String designRef = design.map(d -> d.name() + " (" + data.designLabel() + ")").orElse("unknown");
         ServoSet set = new ServoSet(toolVersion, created, camera, design.map(TargetDesign::id).orElse("unknown"), designRef,

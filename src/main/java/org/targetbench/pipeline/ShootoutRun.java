@@ -125,7 +125,7 @@ public final class ShootoutRun {
                 best = sel;
                 bestServo = c.type();
             } else if (sel.outcome() != Selection.Outcome.SELECTED && why.isEmpty()) {
-                why = c.type().label() + ": " + sel.message();
+                why = c.type().label() + ": " + Reasons.selection(sel);
             }
         }
         boolean ok = best != null;

@@ -8,8 +8,8 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.LinkedHashMap;
 import java.util.List;
-import java.util.Locale;
 import java.util.Map;
+import java.util.Optional;
 
 /**
  * Chooses k servo points from candidates so that the servo is well conditioned and sees widely over the image.
@@ -38,18 +38,18 @@ public final class ServoPointSelector {
         int k = c.count;
         List<Selection.Rejected> rejected = new ArrayList<>();
         List<Candidate> pool = new ArrayList<>();
-        Map<String, Integer> why = new LinkedHashMap<>();
+        Map<Selection.Why, Integer> why = new LinkedHashMap<>();
         for (Candidate cand : candidates) {
-            String r = filter(cand, width, height, c);
+            Selection.Rejected r = filter(cand, width, height, c);
             if (r == null) pool.add(cand);
             else {
-                rejected.add(new Selection.Rejected(cand, r));
-                why.merge(r.replaceAll(" [-0-9.]+.*$", "").replaceAll(":.*$", ""), 1, Integer::sum);
+                rejected.add(r);
+                why.merge(r.why(), 1, Integer::sum);
             }
         }
+        int n = candidates.size();
         if (pool.size() < k)
-            return refuse(String.format(Locale.ROOT, "no acceptable servo set: only %d of %d candidates pass the filters%s; %d are needed",
-                    pool.size(), candidates.size(), why.isEmpty() ? "" : " (rejected: " + summary(why) + ")", k), rejected, pool);
+            return refuse(new Selection.Refusal(Selection.RefusalKind.TOO_FEW_PASS, n, pool.size(), k, why, c.minSeparationPx, Double.NaN, c.maxCondition), n, rejected, pool);
         Objective obj = new Objective(pool, width, height, c);
         int[] best;
         String method;
@@ -65,13 +65,12 @@ public final class ServoPointSelector {
         }
         method += ", " + obj.evaluations + " sets evaluated";
         if (best == null)
-            return refuse(String.format(Locale.ROOT, "no acceptable servo set: no %d of the %d candidates that pass the filters are %.0f px apart", k,
-                    pool.size(), c.minSeparationPx), rejected, pool);
+            return refuse(new Selection.Refusal(Selection.RefusalKind.NOT_SEPARATED, n, pool.size(), k, why, c.minSeparationPx, Double.NaN, c.maxCondition), n, rejected, pool);
         InteractionMatrix.Conditioning cond = obj.conditioning(best);
         double cov = obj.coverage(best);
         if (!(cond.condition() <= c.maxCondition))
-            return refuse(String.format(Locale.ROOT, "no acceptable servo set: the best %d points have cond(L*) = %.3g > %.0f (bunched or nearly collinear); "
-                    + "spread the target features wider in the reference view", k, cond.condition(), c.maxCondition), rejected, pool);
+            return refuse(new Selection.Refusal(Selection.RefusalKind.ILL_CONDITIONED, n, pool.size(), k, why, c.minSeparationPx, cond.condition(), c.maxCondition),
+                    n, rejected, pool);
         List<Selection.Chosen> chosen = new ArrayList<>();
         boolean[] in = new boolean[pool.size()];
         for (int i : best) in[i] = true;
@@ -82,9 +81,8 @@ public final class ServoPointSelector {
             double without = obj.conditioning(rest).condition();
             double nearest = Double.POSITIVE_INFINITY;
             for (int j : best) if (j != i) nearest = Math.min(nearest, obj.dist(i, j));
-            chosen.add(new Selection.Chosen(pool.get(i), String.format(Locale.ROOT,
-                    "%s; without it the other %d points have cond(L*) %s instead of %.2f; nearest chosen point %.0f px away",
-                    robustnessText(pool.get(i), c), k - 1, fmt(without), cond.condition(), nearest)));
+            chosen.add(new Selection.Chosen(pool.get(i), new Selection.ChosenWhy(c.minRepeatability, c.maxLocalisationErrorPx, k - 1, without,
+                    cond.condition(), nearest)));
         }
         for (int j = 0; j < pool.size(); j++) {
             if (in[j]) continue;
@@ -92,8 +90,8 @@ public final class ServoPointSelector {
             int close = -1;
             for (int i : best) if (obj.dist(i, j) < c.minSeparationPx) close = i;
             if (close >= 0) {
-                rejected.add(new Selection.Rejected(cand, String.format(Locale.ROOT, "passes the filters but lies %.1f px from chosen point %d (minimum separation %.0f px)",
-                        obj.dist(close, j), pool.get(close).id(), c.minSeparationPx)));
+                rejected.add(new Selection.Rejected(cand, Selection.Why.TOO_CLOSE, obj.dist(close, j), c.minSeparationPx, pool.get(close).id(),
+                        Double.NaN, Optional.empty()));
                 continue;
             }
             double bestSwap = Double.POSITIVE_INFINITY, swapCond = Double.NaN;
@@ -109,60 +107,38 @@ public final class ServoPointSelector {
                     swapCond = obj.conditioning(trial).condition();
                 }
             }
-            rejected.add(new Selection.Rejected(cand, swapFor < 0
-                    ? "passes the filters but no swap with a chosen point keeps the separation"
-                    : String.format(Locale.ROOT, "passes the filters; its best swap (for point %d) gives cond(L*) %s and objective %.3f, worse than %.3f",
-                    swapFor, fmt(swapCond), bestSwap, obj.value(best))));
+            rejected.add(swapFor < 0 ? Selection.Rejected.of(cand, Selection.Why.NO_SEPARATED_SWAP, Double.NaN, Double.NaN)
+                    : new Selection.Rejected(cand, Selection.Why.WORSE_SWAP, swapCond, obj.value(best), swapFor, bestSwap, Optional.empty()));
         }
         rejected.sort((a, b) -> Integer.compare(a.candidate().id(), b.candidate().id()));
-        return new Selection(Selection.Outcome.SELECTED, String.format(Locale.ROOT, "chose %d of %d candidates (%d passed the filters)", k, candidates.size(), pool.size()),
-                chosen, rejected, cond.condition(), cond.sigmaMin(), cov, obj.value(best), method);
+        return new Selection(Selection.Outcome.SELECTED, n, pool.size(), Optional.empty(), chosen, rejected, cond.condition(), cond.sigmaMin(), cov, obj.value(best), method);
     }
 
     /** The first failed filter, or null. */
-    static String filter(Candidate cand, int width, int height, SelectConfig c) {
+    static Selection.Rejected filter(Candidate cand, int width, int height, SelectConfig c) {
         var r = cand.robustness();
-        if (!(cand.zM() > 0)) return "depth unknown: its pixel ray does not meet the target plane in front of the camera";
-        if (c.requireDesignedFeature && !cand.designed()) return "not a designed target feature: no true feature within the match radius (a false detection)";
+        if (!(cand.zM() > 0)) return Selection.Rejected.of(cand, Selection.Why.DEPTH_UNKNOWN, Double.NaN, Double.NaN);
+        if (c.requireDesignedFeature && !cand.designed()) return Selection.Rejected.of(cand, Selection.Why.NOT_DESIGNED, Double.NaN, Double.NaN);
         double border = Math.min(Math.min(cand.u(), cand.v()), Math.min(width - 1 - cand.u(), height - 1 - cand.v()));
-        if (border < c.borderMarginPx) return String.format(Locale.ROOT, "too near the image border: %.1f px < %.0f px", border, c.borderMarginPx);
+        if (border < c.borderMarginPx) return Selection.Rejected.of(cand, Selection.Why.NEAR_BORDER, border, c.borderMarginPx);
         if (r.repeatability().isPresent() && r.repeatability().getAsDouble() < c.minRepeatability)
-            return String.format(Locale.ROOT, "repeatability %.2f < %.2f (found again in %d of %d frames)", r.repeatability().getAsDouble(),
-                    c.minRepeatability, cand.framesFound(), cand.framesVisible());
+            return Selection.Rejected.of(cand, Selection.Why.LOW_REPEATABILITY, r.repeatability().getAsDouble(), c.minRepeatability);
         if (r.trackSurvival().isPresent() && r.trackSurvival().getAsDouble() < c.minTrackSurvival)
-            return String.format(Locale.ROOT, "track survival %.2f < %.2f", r.trackSurvival().getAsDouble(), c.minTrackSurvival);
+            return Selection.Rejected.of(cand, Selection.Why.LOW_SURVIVAL, r.trackSurvival().getAsDouble(), c.minTrackSurvival);
         if (r.localisationErrorPx().isPresent() && r.localisationErrorPx().getAsDouble() > c.maxLocalisationErrorPx)
-            return String.format(Locale.ROOT, "localisation error %.2f px > %.2f px", r.localisationErrorPx().getAsDouble(), c.maxLocalisationErrorPx);
+            return Selection.Rejected.of(cand, Selection.Why.HIGH_LOCALISATION, r.localisationErrorPx().getAsDouble(), c.maxLocalisationErrorPx);
         if (r.jitterPx().isPresent() && r.jitterPx().getAsDouble() > c.maxJitterPx)
-            return String.format(Locale.ROOT, "jitter %.2f px > %.2f px", r.jitterPx().getAsDouble(), c.maxJitterPx);
+            return Selection.Rejected.of(cand, Selection.Why.HIGH_JITTER, r.jitterPx().getAsDouble(), c.maxJitterPx);
         return null;
     }
 
-    private static String robustnessText(Candidate cand, SelectConfig c) {
-        var r = cand.robustness();
-        List<String> parts = new ArrayList<>();
-        r.repeatability().ifPresent(v -> parts.add(String.format(Locale.ROOT, "repeatability %.2f (>= %.2f)", v, c.minRepeatability)));
-        r.trackSurvival().ifPresent(v -> parts.add(String.format(Locale.ROOT, "survival %.2f", v)));
-        r.localisationErrorPx().ifPresent(v -> parts.add(String.format(Locale.ROOT, "localisation %.2f px (<= %.2f)", v, c.maxLocalisationErrorPx)));
-        r.jitterPx().ifPresent(v -> parts.add(String.format(Locale.ROOT, "jitter %.2f px", v)));
-        return parts.isEmpty() ? "no robustness measured" : String.join(", ", parts);
-    }
-
-    private static String fmt(double v) {
-        return Double.isInfinite(v) ? "infinite" : String.format(Locale.ROOT, "%.2f", v);
-    }
-
-    private static String summary(Map<String, Integer> why) {
-        List<String> s = new ArrayList<>();
-        why.forEach((k, v) -> s.add(v + " " + k));
-        return String.join(", ", s);
-    }
-
-    private static Selection refuse(String message, List<Selection.Rejected> rejected, List<Candidate> pool) {
+    private static Selection refuse(Selection.Refusal refusal, int candidates, List<Selection.Rejected> rejected, List<Candidate> pool) {
         List<Selection.Rejected> all = new ArrayList<>(rejected);
-        for (Candidate c : pool) all.add(new Selection.Rejected(c, "passes the filters; " + message));
+        for (Candidate c : pool)
+            all.add(new Selection.Rejected(c, Selection.Why.SET_REFUSED, Double.NaN, Double.NaN, -1, Double.NaN, Optional.of(refusal)));
         all.sort((a, b) -> Integer.compare(a.candidate().id(), b.candidate().id()));
-        return new Selection(Selection.Outcome.NO_ACCEPTABLE_SET, message, List.of(), all, Double.NaN, Double.NaN, Double.NaN, Double.NaN, "none");
+        return new Selection(Selection.Outcome.NO_ACCEPTABLE_SET, candidates, pool.size(), Optional.of(refusal), List.of(), all,
+                Double.NaN, Double.NaN, Double.NaN, Double.NaN, "none");
     }
 
     static long binomial(int n, int k) {

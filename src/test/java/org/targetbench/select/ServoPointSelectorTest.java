@@ -1,5 +1,6 @@
 package org.targetbench.select;
 
+import org.targetbench.pipeline.Reasons;
 import org.junit.jupiter.api.Test;
 import org.targetbench.score.Robustness;
 
@@ -39,14 +40,14 @@ class ServoPointSelectorTest {
     void choosesTheWidestWellConditionedSetAndExplainsEveryCandidate() {
         List<Candidate> g = grid();
         Selection s = ServoPointSelector.select(g, W, H, new SelectConfig());
-        assertEquals(Selection.Outcome.SELECTED, s.outcome(), s.message());
+        assertEquals(Selection.Outcome.SELECTED, s.outcome(), Reasons.selection(s));
         Set<Integer> ids = new HashSet<>();
         for (Selection.Chosen c : s.chosen()) ids.add(c.candidate().id());
         // the four corners of the grid span the widest square: best conditioned and widest coverage
         assertEquals(Set.of(0, 6, 28, 34), ids, s.chosen().toString());
         assertEquals(g.size(), s.chosen().size() + s.rejected().size());
-        for (Selection.Chosen c : s.chosen()) assertTrue(c.reason().contains("cond(L*)"), c.reason());
-        for (Selection.Rejected r : s.rejected()) assertFalse(r.reason().isBlank());
+        for (Selection.Chosen c : s.chosen()) assertTrue(Reasons.chosen(c).contains("cond(L*)"), Reasons.chosen(c));
+        for (Selection.Rejected r : s.rejected()) assertFalse(Reasons.rejected(r).isBlank());
         assertTrue(s.condition() > 1 && s.condition() < 1000, "cond " + s.condition());
     }
 
@@ -87,7 +88,8 @@ class ServoPointSelectorTest {
         for (int i = 0; i < 8; i++) line.add(cand(i, 100 + 60 * i, 100 + 30 * i, OptionalDouble.of(1), OptionalDouble.empty()));
         Selection s = ServoPointSelector.select(line, W, H, new SelectConfig());
         assertEquals(Selection.Outcome.NO_ACCEPTABLE_SET, s.outcome());
-        assertTrue(s.message().contains("cond(L*)") && s.message().contains("collinear"), s.message());
+        assertEquals(Selection.RefusalKind.ILL_CONDITIONED, s.refusal().orElseThrow().kind());
+        assertTrue(Reasons.selection(s).contains("cond(L*)") && Reasons.selection(s).contains("collinear"), Reasons.selection(s));
         assertTrue(s.chosen().isEmpty());
         assertEquals(8, s.rejected().size());
 
@@ -95,13 +97,16 @@ class ServoPointSelectorTest {
         for (Candidate c : grid()) weak.add(cand(c.id(), c.u(), c.v(), OptionalDouble.of(0.2), OptionalDouble.empty()));
         Selection w = ServoPointSelector.select(weak, W, H, new SelectConfig());
         assertEquals(Selection.Outcome.NO_ACCEPTABLE_SET, w.outcome());
-        assertTrue(w.message().contains("only 0 of 35"), w.message());
+        assertEquals(Selection.RefusalKind.TOO_FEW_PASS, w.refusal().orElseThrow().kind());
+        assertEquals(java.util.Map.of(Selection.Why.LOW_REPEATABILITY, 35), w.refusal().orElseThrow().filtered());
+        assertEquals("no acceptable servo set: only 0 of 35 candidates pass the filters (rejected: 35 repeatability); 4 are needed", Reasons.selection(w));
 
         SelectConfig far = new SelectConfig();
         far.minSeparationPx = 400;
         Selection f = ServoPointSelector.select(grid(), W, H, far);
         assertEquals(Selection.Outcome.NO_ACCEPTABLE_SET, f.outcome());
-        assertTrue(f.message().contains("400 px apart"), f.message());
+        assertEquals(Selection.RefusalKind.NOT_SEPARATED, f.refusal().orElseThrow().kind());
+        assertTrue(Reasons.selection(f).contains("400 px apart"), Reasons.selection(f));
     }
 
     @Test
@@ -113,6 +118,6 @@ class ServoPointSelectorTest {
     }
 
     private static String reason(Selection s, int id) {
-        return s.rejected().stream().filter(r -> r.candidate().id() == id).findFirst().orElseThrow().reason();
+        return s.rejected().stream().filter(r -> r.candidate().id() == id).findFirst().map(Reasons::rejected).orElseThrow();
     }
 }
