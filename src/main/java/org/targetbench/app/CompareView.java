@@ -1,5 +1,6 @@
 package org.targetbench.app;
 
+import org.targetbench.source.FrameList;
 import org.targetbench.detect.DetectorType;
 import org.targetbench.pipeline.CompareResult;
 import org.targetbench.pipeline.CompareRun;
@@ -128,7 +129,7 @@ final class CompareView extends JPanel implements Session.Listener {
         worker = new SwingWorker<>() {
             @Override protected CompareResult doInBackground() throws Exception {
                 return new CompareRun(configs, org.targetbench.score.Repeatability.DEFAULT_EPSILON)
-                        .run(memorySource(name, frames, ref), (d, t, w) -> publish(d));
+                        .run(new FrameList(name, frames, ref), (d, t, w) -> publish(d));
             }
             @Override protected void process(List<Integer> chunks) { progress.setValue(chunks.get(chunks.size() - 1)); }
             @Override protected void done() {
@@ -165,18 +166,6 @@ final class CompareView extends JPanel implements Session.Listener {
     }
 
     /** The loaded frames as a source, for the shared comparison run. */
-    static FrameSource memorySource(String name, List<SourceFrame> frames, String reference) {
-        return new FrameSource() {
-            int next;
-            @Override public String description() { return name; }
-            @Override public int width() { return frames.get(0).image().width; }
-            @Override public int height() { return frames.get(0).image().height; }
-            @Override public int frameCount() { return frames.size(); }
-            @Override public String referenceName() { return reference; }
-            @Override public Optional<SourceFrame> next() { return next < frames.size() ? Optional.of(frames.get(next++)) : Optional.empty(); }
-            @Override public void close() { next = frames.size(); }
-        };
-    }
 
 
 }

@@ -1,5 +1,7 @@
 package org.targetbench.app;
 
+import org.targetbench.pipeline.SweepBase;
+import org.targetbench.pipeline.FrameScoring;
 import boofcv.struct.image.GrayF32;
 import org.targetbench.camera.Homography;
 import org.targetbench.camera.Projection.ProjectedFeature;
@@ -91,27 +93,26 @@ final class DetectionRunner implements Session.Listener {
         }
         GrayF32 shown = frame.image();
         Homography warp = Homography.identity();
+        List<ProjectedFeature> truth = SweepRun.moveTruth(frame.truth().features(), warp, shown.width, shown.height);
         if (value != p.neutral()) {
-            Perturbed d = new Perturber().apply(p, value, frame.image(), PREVIEW_SEED);
-            shown = d.image();
-            warp = d.warp();
+            // the previewed degradation is one sweep cell's view of this frame
+            SweepRun.View v = SweepRun.degrade(new SweepBase.BaseFrame(frame.name(), frame.image(), frame.truth().features(), Optional.empty()),
+                    Optional.empty(), new Perturber(), p, value, PREVIEW_SEED);
+            shown = v.image();
+            warp = v.warp();
+            truth = v.truth();
         }
         Optional<Homography> h = frame.truth().fromReference();
-        List<ProjectedFeature> truth = SweepRun.moveTruth(frame.truth().features(), warp, shown.width, shown.height);
         Map<DetectorType, List<Detection>> points = new LinkedHashMap<>();
         Map<DetectorType, Session.FrameFigures> figures = new LinkedHashMap<>();
         for (DetectorConfig c : configs) {
             PointDetector det = detectors.computeIfAbsent(c.type(), t -> Detectors.create(c));
             List<Detection> found = det.detect(shown);
             points.put(c.type(), found);
-            double rep = Double.NaN;
-            if (h.isPresent()) {
-                List<Detection> refPts = referenceCache.computeIfAbsent(ref.name() + "/" + c.type(), k -> det.detect(ref.image()));
-                rep = Repeatability.score(refPts, found, warp.after(h.get()), ref.image().width, ref.image().height,
-                        shown.width, shown.height, Repeatability.DEFAULT_EPSILON).repeatability().orElse(Double.NaN);
-            }
-            double loc = truth.isEmpty() ? Double.NaN : Localisation.score(truth, found, Localisation.DEFAULT_RADIUS).rmsPx();
-            figures.put(c.type(), new Session.FrameFigures(found.size(), rep, Spread.score(found, shown.width, shown.height).cellOccupancy(), loc));
+            List<Detection> refPts = h.isPresent() ? referenceCache.computeIfAbsent(ref.name() + "/" + c.type(), k -> det.detect(ref.image())) : List.of();
+            FrameScoring.Scored sc = FrameScoring.score(refPts, found, h.map(warp::after), ref.image().width, ref.image().height, truth,
+                    shown.width, shown.height, Repeatability.DEFAULT_EPSILON);
+            figures.put(c.type(), new Session.FrameFigures(found.size(), sc.repeatabilityOrNaN(), sc.spread().cellOccupancy(), sc.localisationRmsPx()));
         }
         return new Session.FrameDetections(index, shown, points, figures);
     }

@@ -1,10 +1,9 @@
 package org.targetbench.app;
 
+import org.targetbench.source.FrameList;
+import org.targetbench.formats.PickInputs;
 import org.targetbench.pipeline.Reasons;
 import org.targetbench.Version;
-import org.targetbench.export.AtomicOutput;
-import org.targetbench.export.CompareWriter;
-import org.targetbench.export.FrameSetWriter;
 import org.targetbench.export.ServoWriters;
 import org.targetbench.pipeline.CompareResult;
 import org.targetbench.pipeline.CompareRun;
@@ -17,23 +16,16 @@ import org.targetbench.select.SelectConfig;
 import org.targetbench.camera.InteractionMatrix;
 import org.targetbench.servo.ServoPoint;
 import org.targetbench.servo.ServoSet;
-import org.targetbench.source.CameraFile;
-import org.targetbench.source.PosesFile;
-import org.targetbench.formats.ResultsFolder;
 import org.targetbench.source.SourceException;
-import org.targetbench.source.TargetFile;
 
-import java.nio.file.Files;
-import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
-import java.util.stream.Stream;
 
 /**
- * Servo point choice for the workbench, through exactly the path the command line takes: the loaded frames are
- * compared and written as a results folder (with the scene's target, camera and poses), read back and picked from by
- * {@link PickRun}; and hand edits of the chosen set, whose figures are recomputed the same way {@link ServoSet} does.
+ * Servo point choice for the workbench, through the runs the command line uses: the loaded frames are compared
+ * ({@link CompareRun}) and picked from ({@link PickRun}) with exactly the input a saved results folder would give
+ * ({@link PickInputs}); and hand edits of the chosen set, whose figures are recomputed the same way {@link ServoSet} does.
  */
 final class ServoChoice {
     private ServoChoice() {}
@@ -41,28 +33,14 @@ final class ServoChoice {
     /** Compares the session's frames and picks {@code count} points; needs a rendered scene (for depths). */
     static PickRun.Result pick(List<org.targetbench.source.SourceFrame> frames, String reference, String sourceName,
                                Session.Scene scene, List<org.targetbench.detect.DetectorConfig> configs, int count) throws Exception {
-        Path dir = Files.createTempDirectory("targetbench-pick-");
+        CompareResult cr = new CompareRun(configs, Repeatability.DEFAULT_EPSILON).run(new FrameList(sourceName, frames, reference), Progress.NONE);
+        SelectConfig sc = new SelectConfig();
+        sc.count = count;
         try {
-            CompareResult cr = new CompareRun(configs, Repeatability.DEFAULT_EPSILON)
-                    .run(CompareView.memorySource(sourceName, frames, reference), Progress.NONE);
-            try (AtomicOutput out = AtomicOutput.open(dir.resolve("results"))) {
-                FrameSetWriter.write(CompareView.memorySource(sourceName, frames, reference), out, "frames", Progress.NONE);
-                CompareWriter.write(cr, out);
-                TargetFile.write(scene.design(), out.file("target.json"));
-                CameraFile.write(scene.camera(), out.file("camera.json"));
-                PosesFile.write(scene.poses(), out.file("poses.json"));
-                out.commit();
-            }
-            ResultsFolder.Data data = ResultsFolder.read(dir.resolve("results"), ResultsFolder.Overrides.none(), sourceName);
-            SelectConfig sc = new SelectConfig();
-            sc.count = count;
-            try {
-                return PickRun.run(data.pickInput(), null, new CandidateConfig(), sc, Version.get(), ServoWriters.now());
-            } catch (PickRun.Refused e) {
-                throw new SourceException(Reasons.pickRefusal(e, data.where()));
-            }
-        } finally {
-            delete(dir);
+            return PickRun.run(PickInputs.fromComparison(cr, frames, scene.camera(), scene.design(), scene.poses().get(0)), null,
+                    new CandidateConfig(), sc, Version.get(), ServoWriters.now());
+        } catch (PickRun.Refused e) {
+            throw new SourceException(Reasons.pickRefusal(e, new Reasons.Where(sourceName, "the frames' truth", PickInputs.POSES_LABEL, reference)));
         }
     }
 
@@ -86,14 +64,6 @@ final class ServoChoice {
     static Candidate nearest(List<Candidate> candidates, double x, double y, double radius) {
         return candidates.stream().filter(c -> Math.hypot(c.u() - x, c.v() - y) <= radius)
                 .min(Comparator.comparingDouble(c -> Math.hypot(c.u() - x, c.v() - y))).orElse(null);
-    }
-
-    private static void delete(Path dir) {
-        try (Stream<Path> s = Files.walk(dir)) {
-            s.sorted(Comparator.reverseOrder()).forEach(p -> p.toFile().delete());
-        } catch (Exception ignored) {
-            // temporary folder: the system cleans it eventually
-        }
     }
 
     static SourceException noScene() {

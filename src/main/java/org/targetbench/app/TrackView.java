@@ -1,5 +1,6 @@
 package org.targetbench.app;
 
+import org.targetbench.source.FrameList;
 import org.jfree.chart.ChartPanel;
 import org.jfree.chart.JFreeChart;
 import org.targetbench.detect.DetectorConfig;
@@ -94,7 +95,7 @@ final class TrackView extends JPanel {
             ctx.status().accept("Load a source first");
             return;
         }
-        Peek source = new Peek(LOADED.equals(choice) ? CompareView.memorySource(s.sourceName(), s.frames(), s.reference().name())
+        Peek source = new Peek(LOADED.equals(choice) ? new FrameList(s.sourceName(), s.frames(), s.reference().name())
                 : MotionScenarios.open(choice.substring("synthetic: ".length())));
         DetectorConfig seed = DetectorConfig.defaults((DetectorType) seeding.getSelectedItem());
         cancel.set(false);

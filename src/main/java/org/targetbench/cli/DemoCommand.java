@@ -1,6 +1,5 @@
 package org.targetbench.cli;
 
-import org.targetbench.formats.SourceSpec;
 import org.targetbench.camera.Feasibility;
 import org.targetbench.camera.FeasibilityConfig;
 import org.targetbench.export.AtomicOutput;
@@ -8,18 +7,22 @@ import org.targetbench.export.CompareWriter;
 import org.targetbench.export.FrameSetWriter;
 import org.targetbench.export.Safety;
 import org.targetbench.pipeline.CompareResult;
-import org.targetbench.pipeline.CompareRun;
 import org.targetbench.pipeline.DemoScenario;
 import org.targetbench.report.OverlayWriter;
 import org.targetbench.pipeline.PickRun;
-import org.targetbench.select.SelectConfig;
-import org.targetbench.servo.RehearsalConfig;
 import org.targetbench.servo.RehearsalResult;
 import org.targetbench.source.CameraFile;
-import org.targetbench.formats.ResultsFolder;
-import org.targetbench.source.ImageFolderSource;
 import org.targetbench.source.PosesFile;
 import org.targetbench.source.TargetFile;
+import org.targetbench.export.TrackWriter;
+import org.targetbench.pipeline.DemoRun;
+import org.targetbench.pipeline.Progress;
+import org.targetbench.pipeline.TrackSink;
+import org.targetbench.pipeline.Reasons;
+import org.targetbench.formats.PickInputs;
+import org.targetbench.source.FrameList;
+import org.targetbench.Version;
+import org.targetbench.export.ServoWriters;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -31,12 +34,7 @@ import java.nio.file.Path;
 import java.util.Map;
 import java.util.List;
 import java.util.concurrent.Callable;
-import org.targetbench.perturb.PerturbKind;
-import org.targetbench.perturb.Perturbation;
-import org.targetbench.pipeline.SweepBase;
-import org.targetbench.pipeline.SweepConfig;
 import org.targetbench.pipeline.SweepResult;
-import org.targetbench.pipeline.SweepRun;
 
 @Command(name = "demo", mixinStandardHelpOptions = true,
         description = {"Runs the bench on the built-in demo scenario: a checkerboard target on the fixture plate of a small "
@@ -45,14 +43,8 @@ import org.targetbench.pipeline.SweepRun;
                         + "frames, the target, camera and poses files, CSV and JSON results, overlay images and the sweep report.",
                 "Then picks a servo set from those results, rehearses it in simulation and exports it (servo-set.json, servo-set.csv, rehearsal/)."})
 final class DemoCommand implements Callable<Integer> {
-    /** Size of the demo's short stress sweep: every kind's main parameter at this many levels on this many views. */
-    static final int SWEEP_LEVELS = 5, SWEEP_VIEWS = 3;
-    /** The demo sweep also measures KLT survival over this many frames of slow drift per cell. */
-    static final int SWEEP_TRACK_FRAMES = 4;
-    /** Rehearsal starts in the demo: enough for a convergence rate, few enough to keep the demo quick. */
-    static final int REHEARSAL_STARTS = 100;
-    /** The demo's tracking run: the arm's approach to the target and a short hold (3 s at 30 fps). */
-    static final String TRACK_MOTION = "approach,frames=90";
+    /** Tilt range of the demo's feasibility section, degrees: the demo poses tilt the target by up to 40 degrees. */
+    static final double DEMO_TILT_DEG = 40;
 
     @Spec CommandSpec spec;
 
@@ -60,18 +52,6 @@ final class DemoCommand implements Callable<Integer> {
     Path out;
 
     @Mixin DetectorOptions detectorOptions;
-
-    static SweepConfig demoSweep(java.util.List<org.targetbench.detect.DetectorConfig> configs) {
-        SweepConfig c = new SweepConfig();
-        c.detectors = configs;
-        for (PerturbKind k : PerturbKind.values()) c.parameters.add(Perturbation.primary(k));
-        c.levels = SWEEP_LEVELS;
-        c.seed = 1;
-        c.trackFrames = SWEEP_TRACK_FRAMES;
-        return c;
-    }
-    /** Tilt range of the demo's feasibility section, degrees: the demo poses tilt the target by up to 40 degrees. */
-    static final double DEMO_TILT_DEG = 40;
 
     @Override
     public Integer call() throws Exception {
@@ -81,37 +61,40 @@ final class DemoCommand implements Callable<Integer> {
             w.println("Demo scenario: target " + DemoScenario.target().name() + " on the fixture plate, camera "
                     + DemoScenario.camera().width() + "x" + DemoScenario.camera().height() + " at " + DemoScenario.STANDOFF_M + " m.");
             w.flush();
-            TargetFile.write(DemoScenario.target(), output.file("target.json"));
-            CameraFile.write(DemoScenario.camera(), output.file("camera.json"));
-            PosesFile.write(DemoScenario.poses(), output.file("poses.json"));
-            FrameSetWriter.write(DemoScenario.source(), output, "frames", new ConsoleProgress("rendering"));
-            // compare on the written frames exactly as 'compare --frames' would
-            CompareResult result;
-            try (ImageFolderSource frames = ImageFolderSource.open(output.folder("frames"), null, out.resolve("frames").toString())) {
-                result = new CompareRun(configs, detectorOptions.epsilon).run(frames, new ConsoleProgress("detecting"));
-            }
-            CompareWriter.write(result, output);
-            var overlays = OverlayWriter.write(result, output);
-            SweepResult sweep;
-            try (SweepJob job = new SweepJob()) {
-                sweep = new SweepRun(demoSweep(configs)).run(SweepBase.render(DemoScenario.target(), DemoScenario.camera(),
-                        DemoScenario.lighting(), DemoScenario.STANDOFF_M, SWEEP_VIEWS, 1), new ConsoleProgress("stress sweep"), job::cancelled);
-                SweepCommand.write(sweep, Map.of(), output.sub("sweep"));
-            }
-            // pick a servo set from the results just written, exactly as 'pick --from' would, then rehearse it
-            ResultsFolder.Data data = ResultsFolder.read(output.folder("."), ResultsFolder.Overrides.none(), out.toString());
-            PickRun.Result pick = ServoSteps.pick(data, null, new SelectConfig());
-            List<String> setFiles = ServoSteps.writePick(pick, output, "servo-set");
-            RehearsalConfig rc = new RehearsalConfig();
-            rc.starts = REHEARSAL_STARTS;
+            DemoRun.Result demo;
             String setName = out.resolve("servo-set.json").toString();
-            RehearsalResult rehearsal = ServoSteps.rehearse(pick.set().orElseThrow(), setName, rc, output, "rehearsal/");
-            org.targetbench.pipeline.TrackResult tracking;
-            try (org.targetbench.export.TrackWriter tw = new org.targetbench.export.TrackWriter(output.sub("tracking"))) {
-                tracking = new org.targetbench.pipeline.TrackRun(new org.targetbench.track.KltConfig(), TrackCommand.seeding("shi-tomasi"), 30, false, 0)
-                        .run(org.targetbench.pipeline.MotionScenarios.open(TRACK_MOTION), tw, new ConsoleProgress("tracking"), () -> false);
-                tw.finish(tracking);
+            try (SweepJob job = new SweepJob(); TrackWriter tw = new TrackWriter(output.sub("tracking"))) {
+                DemoRun.Steps steps = new DemoRun.Steps() {
+                    @Override public Progress progress(String step) { return new ConsoleProgress(step); }
+                    @Override public boolean cancelled() { return job.cancelled(); }
+                    @Override public TrackSink trackSink() { return tw; }
+                };
+                try {
+                    demo = DemoRun.run(configs, detectorOptions.epsilon, out.resolve("frames").toString(),
+                            (cr, frames) -> PickInputs.fromComparison(cr, frames, DemoScenario.camera(),
+                                    DemoScenario.target(), DemoScenario.poses().get(0)),
+                            steps, Version.get(), ServoWriters.now());
+                } catch (PickRun.Refused e) {
+                    throw new UserError(Reasons.pickRefusal(e, new Reasons.Where(out.toString(), "frames/truth.json", "poses.json", "frame_000.png")));
+                }
+                tw.finish(demo.tracking());
+                TargetFile.write(DemoScenario.target(), output.file("target.json"));
+                CameraFile.write(DemoScenario.camera(), output.file("camera.json"));
+                PosesFile.write(DemoScenario.poses(), output.file("poses.json"));
+                FrameSetWriter.write(new FrameList(out.resolve("frames").toString(), demo.frames(), demo.compare().referenceName()), output,
+                        "frames", Progress.NONE);
+                CompareWriter.write(demo.compare(), output);
+                SweepCommand.write(demo.sweep(), Map.of(), output.sub("sweep"));
             }
+            CompareResult result = demo.compare();
+            var overlays = OverlayWriter.write(result, output);
+            SweepResult sweep = demo.sweep();
+            PickRun.Result pick = demo.pick();
+            if (pick.set().isEmpty()) throw new ServoSteps.NoAcceptableSet(Reasons.selection(pick.selection()));
+            List<String> setFiles = ServoSteps.writePick(pick, output, "servo-set");
+            RehearsalResult rehearsal = demo.rehearsal();
+            ServoSteps.writeRehearsal(rehearsal, pick.set().get(), setName, demo.rehearsalSeconds(), output, "rehearsal/");
+            org.targetbench.pipeline.TrackResult tracking = demo.tracking();
             output.commit();
             Path target = output.target();
             ConsoleTable.print(result, w);
@@ -125,8 +108,8 @@ final class DemoCommand implements Callable<Integer> {
             w.println("  detections.csv, repeatability.csv, summary.json");
             w.println("  overlays/            " + overlays.size() + " PNG images of detections on the reference and sample frames");
             w.println("  target.json, camera.json, poses.json (inputs for 'targetbench render')");
-            w.println("  sweep/report.html    stress sweep: " + sweep.parameters().size() + " conditions x " + SWEEP_LEVELS + " levels x "
-                    + SWEEP_VIEWS + " views (full sweep: targetbench sweep --target " + target.resolve("target.json") + " --out results/sweep)");
+            w.println("  sweep/report.html    stress sweep: " + sweep.parameters().size() + " conditions x " + DemoRun.SWEEP_LEVELS + " levels x "
+                    + DemoRun.SWEEP_VIEWS + " views (full sweep: targetbench sweep --target " + target.resolve("target.json") + " --out results/sweep)");
             w.println("  tracking/            KLT tracks of the arm's approach: tracks.csv, survival.csv, drift.csv, summary.json (try: targetbench track --source synthetic:orbit --out results/orbit)");
             w.println();
             SweepCommand.print(sweep, Map.of(), w);

@@ -82,11 +82,15 @@ final class ServoSteps {
         } catch (IllegalArgumentException e) {
             throw new UserError("servo set " + name + ": " + e.getMessage());
         }
-        double elapsed = (System.nanoTime() - t0) / 1e9;
-        ServoWriters.writeRehearsalCsv(r, out.file(prefix + "rehearsal.csv"));
-        ServoWriters.writeRehearsalSummary(r, name, elapsed, out.file(prefix + "rehearsal-summary.json"));
-        RehearsalReport.write(r, set, name, out, prefix);
+        writeRehearsal(r, set, name, (System.nanoTime() - t0) / 1e9, out, prefix);
         return r;
+    }
+
+    /** Writes a rehearsal's rehearsal.csv, rehearsal-summary.json, the charts and rehearsal.html under {@code prefix}. */
+    static void writeRehearsal(RehearsalResult r, ServoSet set, String name, double elapsedS, AtomicOutput out, String prefix) throws IOException {
+        ServoWriters.writeRehearsalCsv(r, out.file(prefix + "rehearsal.csv"));
+        ServoWriters.writeRehearsalSummary(r, name, elapsedS, out.file(prefix + "rehearsal-summary.json"));
+        RehearsalReport.write(r, set, name, out, prefix);
     }
 
     static void printRehearsal(RehearsalResult r, String name, PrintWriter w) {

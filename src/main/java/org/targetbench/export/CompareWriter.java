@@ -43,9 +43,38 @@ public final class CompareWriter {
             w.write("detector,frame,x,y,response,scale\n");
             for (FrameScore s : r.frames())
                 for (Detection d : s.detections())
-                    w.write(s.detector().cliName() + "," + Csv.text(s.frameName()) + "," + Csv.num(d.x(), 3) + "," + Csv.num(d.y(), 3)
-                            + "," + Csv.num(d.response(), 6) + "," + Csv.num(d.scale(), 3) + "\n");
+                    w.write(s.detector().cliName() + "," + Csv.text(s.frameName()) + "," + Csv.num(d.x(), POSITION_DECIMALS) + "," + Csv.num(d.y(), POSITION_DECIMALS)
+                            + "," + Csv.num(d.response(), RESPONSE_DECIMALS) + "," + Csv.num(d.scale(), POSITION_DECIMALS) + "\n");
         }
+    }
+
+    /** Decimals detections.csv keeps of positions and scales, and of responses. */
+    public static final int POSITION_DECIMALS = 3, RESPONSE_DECIMALS = 6;
+
+    /**
+     * A detection exactly as detections.csv records it, so that a pick from results in memory chooses what a pick from
+     * the saved folder chooses.
+     */
+    public static Detection asRecorded(Detection d) {
+        return new Detection(recorded(d.x(), POSITION_DECIMALS), recorded(d.y(), POSITION_DECIMALS), recorded(d.response(), RESPONSE_DECIMALS),
+                recorded(d.scale(), POSITION_DECIMALS));
+    }
+
+    private static double recorded(double v, int decimals) {
+        String s = Csv.num(v, decimals);
+        return s.isEmpty() ? Double.NaN : Double.parseDouble(s);
+    }
+
+    /** Per detector (command-line name), its settings as summary.json records them, as JSON text. */
+    public static java.util.Map<String, String> detectorSettings(CompareResult r) {
+        java.util.Map<String, String> out = new java.util.LinkedHashMap<>();
+        try {
+            for (DetectorConfig c : r.configs())
+                out.put(c.type().cliName(), MAPPER.readTree(MAPPER.writeValueAsString(MAPPER.valueToTree(c))).toString());
+        } catch (IOException e) {
+            throw new IllegalStateException("settings do not serialise: " + e.getMessage(), e);
+        }
+        return out;
     }
 
     static void writeRepeatability(CompareResult r, Path file) throws IOException {

@@ -138,23 +138,15 @@ public final class CompareRun {
             double countSum = 0, hullSum = 0, occSum = 0, msSum = 0;
             for (Raw r : list) {
                 FrameInfo f = r.frame();
-                Optional<RepeatabilityResult> rep = Optional.empty();
-                Optional<Homography> hm = f.truth().fromReference();
-                if (f != ref && hm.isPresent()) {
-                    RepeatabilityResult rr = Repeatability.score(refDet, r.detections(), hm.get(), w, h, w, h, epsilon);
-                    rep = Optional.of(rr);
-                    rr.repeatability().ifPresent(reps::add);
-                }
-                Optional<LocalisationResult> loc = Optional.empty();
-                double[] d = new double[0];
-                if (!f.truth().features().isEmpty()) {
-                    d = Localisation.distances(f.truth().features(), r.detections(), Localisation.DEFAULT_RADIUS);
-                    loc = Optional.of(Localisation.summarise(d, f.truth().features().size()));
-                    dists.add(d);
+                Optional<Homography> hm = f == ref ? Optional.empty() : f.truth().fromReference();
+                FrameScoring.Scored sc = FrameScoring.score(refDet, r.detections(), hm, w, h, f.truth().features(), w, h, epsilon);
+                sc.repeatability().ifPresent(rr -> rr.repeatability().ifPresent(reps::add));
+                if (sc.localisation().isPresent()) {
+                    dists.add(sc.locDistances());
                     nTrue += f.truth().features().size();
                 }
-                var spread = Spread.score(r.detections(), w, h);
-                scores.add(new FrameScore(r.type(), f.index(), f.name(), r.detections(), rep, loc, d, spread));
+                var spread = sc.spread();
+                scores.add(new FrameScore(r.type(), f.index(), f.name(), r.detections(), sc.repeatability(), sc.localisation(), sc.locDistances(), spread));
                 countSum += r.detections().size();
                 hullSum += spread.hullAreaFraction();
                 occSum += spread.cellOccupancy();

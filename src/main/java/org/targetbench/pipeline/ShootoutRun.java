@@ -37,7 +37,7 @@ import java.util.function.BooleanSupplier;
  *
  * <p>Per design: (1) the feasibility check; (2) a stress sweep at the stand-off, whose envelope ranking names the best
  * detector for the design; (3) for that detector, how many points of the square-on view stay robust across the
- * envelope: a point counts when it is found again within ε in at least {@value #ROBUST_SHARE} of the envelope's
+ * envelope: a point counts when it is found again (the rule of {@link Repeatability}, with the sweep's ε) in at least {@value #ROBUST_SHARE} of the envelope's
  * conditions (every swept parameter at each of its levels inside the envelope); (4) the best 4-point servo set the
  * servo-aware selection finds, trying every detector on views at the stand-off, and its cond(L*); (5) image
  * coverage of the best detector's points (share of 4 x 4 cells).
@@ -116,8 +116,10 @@ public final class ShootoutRun {
                 others.add(new Candidates.Frame("view_" + k, sd.detect(views.get(k).image()),
                         camera.isDistorted() ? Optional.empty() : Optional.of(org.targetbench.camera.Projection.referenceToFrame(camera, poses.get(0), poses.get(k))),
                         views.get(k).features()));
+            CandidateConfig cc = new CandidateConfig();
+            cc.epsilonPx = sweep.epsilon;
             List<Candidate> cands = Candidates.build(new Candidates.Frame("view_0", sref, Optional.empty(), views.get(0).features()), others,
-                    camera, d, poses.get(0), new CandidateConfig());
+                    camera, d, poses.get(0), cc);
             SelectConfig sc = new SelectConfig();
             sc.count = 4;
             Selection sel = ServoPointSelector.select(cands, camera.width(), camera.height(), sc);
@@ -146,14 +148,9 @@ public final class ShootoutRun {
                 conditions++;
                 Perturbed q = perturber.apply(p, v, image, SEED);
                 List<Detection> got = det.detect(q.image());
-                for (int i = 0; i < ref.size(); i++) {
-                    double[] m = q.warp().apply(ref.get(i).x(), ref.get(i).y());
-                    for (Detection g : got)
-                        if (Math.hypot(g.x() - m[0], g.y() - m[1]) <= Repeatability.DEFAULT_EPSILON) {
-                            found[i]++;
-                            break;
-                        }
-                }
+                int[] again = Repeatability.foundAgain(ref, got, q.warp(), image.width, image.height, q.image().width, q.image().height,
+                        sweep.epsilon);
+                for (int i = 0; i < ref.size(); i++) if (again[i] > 0) found[i]++;
             }
         }
         int robust = 0;

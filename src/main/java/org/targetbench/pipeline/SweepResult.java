@@ -26,10 +26,10 @@ public record SweepResult(String description, List<DetectorConfig> detectors, Li
     public SweepResult {
         detectors = List.copyOf(detectors);
         parameters = List.copyOf(parameters);
-        values = Map.copyOf(values);
+        values = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(values));
         rows = List.copyOf(rows);
         sampleTruth = List.copyOf(sampleTruth);
-        sampleDetections = Map.copyOf(sampleDetections);
+        sampleDetections = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(sampleDetections)); // in detector order: reports draw in it
     }
 
     public List<DetectorType> detectorTypes() {

@@ -1,5 +1,6 @@
 package org.targetbench.pipeline;
 
+import java.util.Optional;
 import boofcv.struct.image.GrayF32;
 import org.targetbench.camera.Homography;
 import org.targetbench.camera.Pose;
@@ -139,33 +140,19 @@ public final class SweepRun {
                                    List<Detection>[][] ref) {
         SweepBase.BaseFrame bf = base.frames().get(c.frame());
         long seed = mix(config.seed, c.p().ordinal(), c.level(), c.frame());
-        GrayF32 image;
-        Homography warp;
-        List<ProjectedFeature> truth;
-        if (c.p() == Perturbation.TILT && base.scene().isPresent() && bf.facing().isPresent()
-                && !base.scene().get().camera().isDistorted()) {
-            SweepBase.Scene s = base.scene().get();
-            Pose from = bf.facing().get().pose(s.design(), 0), to = bf.facing().get().pose(s.design(), c.value());
-            var r = s.renderer().render(s.design(), to, seed);
-            image = r.image();
-            truth = r.features();
-            warp = Projection.referenceToFrame(s.camera(), from, to);
-        } else {
-            Perturbed p = perturber.apply(c.p(), c.value(), bf.image(), seed);
-            image = p.image();
-            warp = p.warp();
-            truth = moveTruth(bf.truth(), warp, image.width, image.height);
-        }
+        View v = degrade(bf, base.scene(), perturber, c.p(), c.value(), seed);
+        GrayF32 image = v.image();
+        Homography warp = v.warp();
+        List<ProjectedFeature> truth = v.truth();
         List<SweepRow> out = new ArrayList<>();
         for (int d = 0; d < detectors.size(); d++) {
             PointDetector det = detectors.get(d).get();
             List<Detection> found = det.detect(image);
-            RepeatabilityResult rr = Repeatability.score(ref[d][c.frame()], found, warp, bf.image().width, bf.image().height,
-                    image.width, image.height, config.epsilon);
-            double loc = truth.isEmpty() ? Double.NaN : Localisation.score(truth, found, Localisation.DEFAULT_RADIUS).rmsPx();
+            FrameScoring.Scored sc = FrameScoring.score(ref[d][c.frame()], found, Optional.of(warp), bf.image().width, bf.image().height,
+                    truth, image.width, image.height, config.epsilon);
             double survival = config.trackFrames > 0 ? survival(c, bf, image, found, perturber, seed) : Double.NaN;
-            out.add(new SweepRow(det.type(), c.p(), c.level(), c.value(), c.frame(), rr.repeatability(), loc, found.size(),
-                    Spread.score(found, image.width, image.height).cellOccupancy(), survival));
+            out.add(new SweepRow(det.type(), c.p(), c.level(), c.value(), c.frame(), sc.repeatability().orElseThrow().repeatability(),
+                    sc.localisationRmsPx(), found.size(), sc.spread().cellOccupancy(), survival));
         }
         return out;
     }
@@ -194,6 +181,24 @@ public final class SweepRun {
             klt.process(frame, k);
         }
         return klt.alive() / (double) started;
+    }
+
+    /** A degraded view of a base frame: its pixels, the warp from the base frame and the moved true features. */
+    public record View(GrayF32 image, Homography warp, List<ProjectedFeature> truth) {}
+
+    /**
+     * One sweep cell's view: the base frame degraded by {@code p} at {@code value}. A tilt of a rendered base frame (with
+     * its scene, undistorted camera) is re-rendered at the tilted pose; everything else goes through {@code perturber}.
+     */
+    public static View degrade(SweepBase.BaseFrame bf, Optional<SweepBase.Scene> scene, Perturber perturber, Perturbation p, double value, long seed) {
+        if (p == Perturbation.TILT && scene.isPresent() && bf.facing().isPresent() && !scene.get().camera().isDistorted()) {
+            SweepBase.Scene s = scene.get();
+            Pose from = bf.facing().get().pose(s.design(), 0), to = bf.facing().get().pose(s.design(), value);
+            var r = s.renderer().render(s.design(), to, seed);
+            return new View(r.image(), Projection.referenceToFrame(s.camera(), from, to), r.features());
+        }
+        Perturbed d = perturber.apply(p, value, bf.image(), seed);
+        return new View(d.image(), d.warp(), moveTruth(bf.truth(), d.warp(), d.image().width, d.image().height));
     }
 
     /** True feature positions carried through a warp; those leaving the image are dropped. */

@@ -19,7 +19,12 @@ import java.util.OptionalDouble;
  *   <li>r = matches / min(|P'|, |Q'|), undefined when that minimum is 0;</li>
  *   <li>ε defaults to {@value #DEFAULT_EPSILON} px.</li>
  * </ol>
- * Coordinates follow the pixel-centre convention. Caveat: the greedy pairing is not an optimal assignment; ties in
+ * Coordinates follow the pixel-centre convention.
+ *
+ * <p><b>Found again</b> (the one rule, used by compare, sweep, servo candidates and the shoot-out): a reference point
+ * is found again in a view when it belongs to P' and is paired by rule 3, i.e. a detection of the view lies within ε of
+ * its image H·p and is not claimed by a nearer reference point ({@link #foundAgain}). Repeatability is the count of
+ * points found again over min(|P'|, |Q'|). Caveat: the greedy pairing is not an optimal assignment; ties in
  * distance are broken by reference index, then frame index, so results are deterministic.
  *
  * <p>Reference: [1] C. Schmid, R. Mohr, C. Bauckhage, "Evaluation of interest point detectors", IJCV 37(2), 2000.
@@ -40,14 +45,38 @@ public final class Repeatability {
     public static RepeatabilityResult score(List<Detection> reference, List<Detection> frame, Homography h,
                                             int referenceWidth, int referenceHeight, int frameWidth, int frameHeight,
                                             double epsilon) {
+        return pair(reference, frame, h, referenceWidth, referenceHeight, frameWidth, frameHeight, epsilon).result;
+    }
+
+    /**
+     * Which reference points are found again in the view (the rule in the class comment): entry i is 1 when
+     * {@code reference.get(i)} is paired, 0 when it is in P' but unpaired, -1 when H·p falls outside the view.
+     */
+    public static int[] foundAgain(List<Detection> reference, List<Detection> frame, Homography h, int referenceWidth,
+                                   int referenceHeight, int frameWidth, int frameHeight, double epsilon) {
+        return pair(reference, frame, h, referenceWidth, referenceHeight, frameWidth, frameHeight, epsilon).found;
+    }
+
+    private record Paired(RepeatabilityResult result, int[] found) {}
+
+    private static Paired pair(List<Detection> reference, List<Detection> frame, Homography h, int referenceWidth,
+                               int referenceHeight, int frameWidth, int frameHeight, double epsilon) {
         if (!(epsilon > 0) || !Double.isFinite(epsilon))
             throw new IllegalArgumentException("epsilon must be > 0 px, got " + epsilon);
         Homography hInv = h.inverse();
         // rule 1: P' and the images H p
         List<double[]> pMapped = new ArrayList<>();
-        for (Detection p : reference) {
+        int[] found = new int[reference.size()];
+        int[] index = new int[reference.size()];
+        for (int i = 0; i < reference.size(); i++) {
+            Detection p = reference.get(i);
             double[] m = h.apply(p.x(), p.y());
-            if (inside(m, frameWidth, frameHeight)) pMapped.add(m);
+            if (inside(m, frameWidth, frameHeight)) {
+                index[pMapped.size()] = i;
+                pMapped.add(m);
+            } else {
+                found[i] = -1;
+            }
         }
         // rule 2: Q'
         List<double[]> q = new ArrayList<>();
@@ -55,13 +84,26 @@ public final class Repeatability {
             if (inside(hInv.apply(d.x(), d.y()), referenceWidth, referenceHeight)) q.add(new double[]{d.x(), d.y()});
         }
         int n = Math.min(pMapped.size(), q.size());
-        int matched = greedyMatches(pMapped, q, epsilon);
-        return new RepeatabilityResult(n == 0 ? OptionalDouble.empty() : OptionalDouble.of(matched / (double) n),
-                pMapped.size(), q.size(), matched);
+        boolean[] usedA = greedyPairs(pMapped, q, epsilon);
+        int matched = 0;
+        for (int k = 0; k < usedA.length; k++)
+            if (usedA[k]) {
+                found[index[k]] = 1;
+                matched++;
+            }
+        return new Paired(new RepeatabilityResult(n == 0 ? OptionalDouble.empty() : OptionalDouble.of(matched / (double) n),
+                pMapped.size(), q.size(), matched), found);
     }
 
     /** Rule 3: greedy one-to-one pairing within ε in increasing distance order; returns the number of pairs. */
     static int greedyMatches(List<double[]> a, List<double[]> b, double epsilon) {
+        int matched = 0;
+        for (boolean u : greedyPairs(a, b, epsilon)) if (u) matched++;
+        return matched;
+    }
+
+    /** Rule 3, per point of {@code a}: whether it was paired. */
+    private static boolean[] greedyPairs(List<double[]> a, List<double[]> b, double epsilon) {
         double eps2 = epsilon * epsilon;
         List<long[]> pairs = new ArrayList<>();
         List<Double> dist = new ArrayList<>();
@@ -87,14 +129,12 @@ public final class Repeatability {
             return c != 0 ? c : Long.compare(pairs.get(x)[1], pairs.get(y)[1]);
         });
         boolean[] usedA = new boolean[a.size()], usedB = new boolean[b.size()];
-        int matched = 0;
         for (int k : order) {
             int i = (int) pairs.get(k)[0], j = (int) pairs.get(k)[1];
             if (usedA[i] || usedB[j]) continue;
             usedA[i] = usedB[j] = true;
-            matched++;
         }
-        return matched;
+        return usedA;
     }
 
     private static boolean inside(double[] m, int w, int h) {

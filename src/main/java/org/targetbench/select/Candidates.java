@@ -8,6 +8,7 @@ import org.targetbench.camera.Pose;
 import org.targetbench.camera.Projection;
 import org.targetbench.camera.Projection.ProjectedFeature;
 import org.targetbench.detect.Detection;
+import org.targetbench.score.Repeatability;
 import org.targetbench.score.Robustness;
 import org.targetbench.target.TargetDesign;
 
@@ -58,16 +59,19 @@ public final class Candidates {
         List<ProjectedFeature> designed = design == null ? List.of() : Projection.visibleFeatures(design, camera, referencePose);
         List<Candidate> out = new ArrayList<>();
         List<Detection> ref = reference.detections();
+        // found again: the one rule of Repeatability (one-to-one pairing within epsilon), per frame with a homography
+        List<int[]> foundAgain = new ArrayList<>();
+        for (Frame f : others)
+            foundAgain.add(f.fromReference().isEmpty() ? null
+                    : Repeatability.foundAgain(ref, f.detections(), f.fromReference().get(), w, h, w, h, config.epsilonPx));
         for (int id = 0; id < ref.size(); id++) {
             Detection d = ref.get(id);
             // repeatability over frames with a homography
             int visible = 0, found = 0;
-            for (Frame f : others) {
-                if (f.fromReference().isEmpty()) continue;
-                double[] m = f.fromReference().get().apply(d.x(), d.y());
-                if (!(m[0] >= 0 && m[1] >= 0 && m[0] <= w - 1 && m[1] <= h - 1)) continue;
+            for (int[] fa : foundAgain) {
+                if (fa == null || fa[id] < 0) continue;
                 visible++;
-                if (nearest(f.detections(), m[0], m[1]) <= config.epsilonPx) found++;
+                if (fa[id] > 0) found++;
             }
             OptionalDouble rep = visible == 0 ? OptionalDouble.empty() : OptionalDouble.of(found / (double) visible);
             // localisation against true features

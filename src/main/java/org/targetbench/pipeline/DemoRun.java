@@ -1,0 +1,107 @@
+package org.targetbench.pipeline;
+
+import org.targetbench.detect.DetectorConfig;
+import org.targetbench.detect.DetectorType;
+import org.targetbench.perturb.PerturbKind;
+import org.targetbench.perturb.Perturbation;
+import org.targetbench.select.CandidateConfig;
+import org.targetbench.select.SelectConfig;
+import org.targetbench.servo.Rehearsal;
+import org.targetbench.servo.RehearsalConfig;
+import org.targetbench.servo.RehearsalResult;
+import org.targetbench.source.FrameList;
+import org.targetbench.source.SourceException;
+import org.targetbench.source.SourceFrame;
+import org.targetbench.source.SyntheticSource;
+import org.targetbench.track.KltConfig;
+
+import java.io.IOException;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Optional;
+import java.util.function.BooleanSupplier;
+
+/**
+ * The demo scenario as one run ({@link DemoScenario}): render the frames with truth, compare the detectors on them,
+ * a short stress sweep, pick a servo set from the comparison and rehearse it, and track the arm's approach. The
+ * command line writes and prints what it returns; nothing here touches files.
+ */
+public final class DemoRun {
+    /** Size of the demo's short stress sweep: every kind's main parameter at this many levels on this many views. */
+    public static final int SWEEP_LEVELS = 5, SWEEP_VIEWS = 3;
+    /** The demo sweep also measures KLT survival over this many frames of slow drift per cell. */
+    public static final int SWEEP_TRACK_FRAMES = 4;
+    /** Rehearsal starts in the demo: enough for a convergence rate, few enough to keep the demo quick. */
+    public static final int REHEARSAL_STARTS = 100;
+    /** The demo's tracking run: the arm's approach to the target and a short hold (3 s at 30 fps). */
+    public static final String TRACK_MOTION = "approach,frames=90";
+    /** Detector that seeds the demo's tracks. */
+    public static final DetectorType TRACK_SEEDING = DetectorType.SHI_TOMASI;
+    /** Frame at which the demo's tracking reports survival. */
+    public static final int SURVIVAL_AT_FRAME = 30;
+
+    private DemoRun() {}
+
+    /**
+     * What the demo produced. {@code pick} holds a set (the demo scenario always yields one; a refusal is an error).
+     *
+     * @param rehearsalSeconds wall-clock time of the rehearsal, seconds
+     */
+    public record Result(List<SourceFrame> frames, CompareResult compare, SweepResult sweep, PickRun.Result pick,
+                         RehearsalResult rehearsal, double rehearsalSeconds, TrackResult tracking) {}
+
+    /** Where the run reports and what it streams to. */
+    public interface Steps {
+        /** Progress of one step ("rendering", "detecting", "stress sweep", "tracking"). */
+        Progress progress(String step);
+
+        /** Asked between sweep cells: stop early. */
+        boolean cancelled();
+
+        /** Takes the tracking rows as they come. */
+        TrackSink trackSink();
+    }
+
+    /** The demo's sweep settings for these detectors. */
+    public static SweepConfig sweepConfig(List<DetectorConfig> configs) {
+        SweepConfig c = new SweepConfig();
+        c.detectors = configs;
+        for (PerturbKind k : PerturbKind.values()) c.parameters.add(Perturbation.primary(k));
+        c.levels = SWEEP_LEVELS;
+        c.seed = 1;
+        c.trackFrames = SWEEP_TRACK_FRAMES;
+        return c;
+    }
+
+    /**
+     * @param framesDescription how the comparison names its frames (where the shell will write them)
+     * @param pickInput         how a comparison of the rendered frames becomes a pick's input, exactly as its saved results would
+     */
+    public static Result run(List<DetectorConfig> configs, double epsilon, String framesDescription,
+                             java.util.function.BiFunction<CompareResult, List<SourceFrame>, PickRun.Input> pickInput, Steps steps, String toolVersion, String created)
+            throws SourceException, InterruptedException, IOException, PickRun.Refused {
+        List<SourceFrame> frames = new ArrayList<>();
+        try (SyntheticSource src = DemoScenario.source()) {
+            Progress p = steps.progress("rendering");
+            Optional<SourceFrame> f;
+            while ((f = src.next()).isPresent()) {
+                frames.add(f.get());
+                p.update(frames.size(), src.frameCount(), f.get().name());
+            }
+        }
+        String reference = DemoScenario.source().referenceName();
+        CompareResult compare = new CompareRun(configs, epsilon)
+                .run(new FrameList(framesDescription, frames, reference), steps.progress("detecting"));
+        SweepResult sweep = new SweepRun(sweepConfig(configs)).run(SweepBase.render(DemoScenario.target(), DemoScenario.camera(),
+                DemoScenario.lighting(), DemoScenario.STANDOFF_M, SWEEP_VIEWS, 1), steps.progress("stress sweep"), steps::cancelled);
+        PickRun.Result pick = PickRun.run(pickInput.apply(compare, frames), null, new CandidateConfig(), new SelectConfig(), toolVersion, created);
+        RehearsalConfig rc = new RehearsalConfig();
+        rc.starts = REHEARSAL_STARTS;
+        long t0 = System.nanoTime();
+        RehearsalResult rehearsal = pick.set().isPresent() ? Rehearsal.run(pick.set().get(), rc) : null;
+        double seconds = (System.nanoTime() - t0) / 1e9;
+        TrackResult tracking = new TrackRun(new KltConfig(), DetectorConfig.defaults(TRACK_SEEDING), SURVIVAL_AT_FRAME, false, 0)
+                .run(MotionScenarios.open(TRACK_MOTION), steps.trackSink(), steps.progress("tracking"), () -> false);
+        return new Result(frames, compare, sweep, pick, rehearsal, seconds, tracking);
+    }
+}
