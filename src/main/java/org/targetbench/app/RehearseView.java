@@ -36,7 +36,7 @@ final class RehearseView extends JPanel implements Session.Listener {
     private final JSpinner starts = Ui.named(new JSpinner(new SpinnerNumberModel(200, 10, 5000, 10)), "rehearse.starts", "Start poses drawn in the envelope");
     private final JSpinner lambda = Ui.named(new JSpinner(new SpinnerNumberModel(0.5, 0.01, 10.0, 0.05)), "rehearse.lambda", "Gain lambda of v = -lambda L^+ (s - s*), 1/s");
     private final JComboBox<ControlLaw> law = Ui.named(new JComboBox<>(ControlLaw.values()), "rehearse.law",
-            "Which interaction matrix the law inverts: current L, desired L*, or their mean (Malis 2004)");
+            "Which interaction matrix the law inverts: current (L at the current view), reference (the set's own L*) or averaged (their mean; Chaumette & Hutchinson 2006, Malis 2004)");
     private final DefaultTableModel table = new DefaultTableModel(new Object[]{"Figure", "Value"}, 0) {
         @Override public boolean isCellEditable(int r, int c) { return false; }
     };

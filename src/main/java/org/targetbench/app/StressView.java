@@ -52,7 +52,7 @@ final class StressView extends JPanel {
     private final AppContext ctx;
     private final Map<PerturbKind, JCheckBox> kindBoxes = new EnumMap<>(PerturbKind.class);
     private final Map<PerturbKind, JComboBox<Perturbation>> paramBoxes = new EnumMap<>(PerturbKind.class);
-    private final JSpinner levels = Ui.named(new JSpinner(new SpinnerNumberModel(5, 2, 32, 1)), "stress.levels", "Levels per condition");
+    private final JSpinner levels = Ui.named(new JSpinner(new SpinnerNumberModel(5, 2, 32, 1)), "stress.levels", "Perturbation levels per condition");
     private final JSpinner views = Ui.named(new JSpinner(new SpinnerNumberModel(3, 1, 200, 1)), "stress.views", "Base frames: rendered views of the scene's target, or the first loaded frames");
     private final JProgressBar progress = Ui.named(new JProgressBar(), "stress.progress", null);
     private final JPanel charts = new JPanel(new GridLayout(0, 2, 4, 4));
@@ -87,7 +87,7 @@ final class StressView extends JPanel {
         JPanel left = new JPanel(new BorderLayout());
         left.add(Ui.heading("Conditions"), BorderLayout.NORTH);
         left.add(choose, BorderLayout.CENTER);
-        left.add(Ui.row(new JLabel("Levels"), levels, new JLabel("Views"), views), BorderLayout.SOUTH);
+        left.add(Ui.row(new JLabel("Perturbation levels"), levels, new JLabel("Views"), views), BorderLayout.SOUTH);
         JPanel top = new JPanel(new BorderLayout());
         top.add(left, BorderLayout.WEST);
         JPanel actions = new JPanel(new GridLayout(0, 1));

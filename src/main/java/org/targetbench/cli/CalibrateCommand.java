@@ -33,11 +33,23 @@ final class CalibrateCommand implements Callable<Integer> {
 
     @Option(names = "--frames", required = true, paramLabel = "DIR", description = "Folder of chessboard photos.")
     Path frames;
-    @Option(names = "--board", required = true, paramLabel = "COLSxROWS",
-            description = "Inner corners across and down the board, e.g. 9x6 for a board of 10 x 7 squares.")
+    @Option(names = "--inner-corners", paramLabel = "COLSxROWS",
+            description = "Inner corners across and down the board, e.g. 9x6 for a board of 10 x 7 squares (required).")
     String board;
-    @Option(names = "--square", required = true, paramLabel = "MM", description = "Side of one square, mm, as measured on the print.")
-    double squareMm;
+    @Option(names = "--square-mm", paramLabel = "MM", description = "Side of one square, mm, as measured on the print (required).")
+    Double squareMm;
+
+    @Option(names = "--board", hidden = true, paramLabel = "COLSxROWS")
+    void oldBoard(String b) {
+        OldSpelling.note(spec, "--board", "--inner-corners COLSxROWS");
+        board = b;
+    }
+
+    @Option(names = "--square", hidden = true, paramLabel = "MM")
+    void oldSquare(double mm) {
+        OldSpelling.note(spec, "--square", "--square-mm MM");
+        squareMm = mm;
+    }
     @Option(names = "--out", paramLabel = "FILE", defaultValue = "results/calibration/camera.json",
             description = "The camera.json to write; the other files go beside it, named after it (default: ${DEFAULT-VALUE}).")
     Path out;
@@ -71,7 +83,7 @@ final class CalibrateCommand implements Callable<Integer> {
         long hits = found.stream().filter(Optional::isPresent).count();
         if (hits == 0)
             throw new UserError("chessboard of " + b.innerCols() + "x" + b.innerRows() + " inner corners not found in any of the " + names.size()
-                    + " frames in " + frames + "; check --board (inner corners, not squares), focus, glare and that the whole board is in view");
+                    + " frames in " + frames + "; check --inner-corners (inner corners, not squares), focus, glare and that the whole board is in view");
         Calibration.Outcome outcome = cal.solve(width, height, names, found);
         if (outcome instanceof Calibration.Failure fail) {
             List<String> used = new ArrayList<>();
@@ -90,6 +102,8 @@ final class CalibrateCommand implements Callable<Integer> {
     }
 
     private Calibration.Board parseBoard() {
+        if (board == null) throw new UserError("--inner-corners COLSxROWS is required: the board's inner corners across and down");
+        if (squareMm == null) throw new UserError("--square-mm MM is required: the side of one square as measured on the print");
         String[] p = board.toLowerCase(Locale.ROOT).split("x");
         int cols, rows;
         try {
@@ -97,10 +111,10 @@ final class CalibrateCommand implements Callable<Integer> {
             cols = Integer.parseInt(p[0].trim());
             rows = Integer.parseInt(p[1].trim());
         } catch (NumberFormatException e) {
-            throw new UserError("--board must be COLSxROWS inner corners, e.g. 9x6, got \"" + board + "\"");
+            throw new UserError("--inner-corners must be COLSxROWS inner corners, e.g. 9x6, got \"" + board + "\"");
         }
-        if (cols < 2 || rows < 2) throw new UserError("--board needs at least 2x2 inner corners, got " + board);
-        if (!(squareMm > 0) || !Double.isFinite(squareMm)) throw new UserError("--square must be > 0 mm, got " + squareMm);
+        if (cols < 2 || rows < 2) throw new UserError("--inner-corners needs at least 2x2 inner corners, got " + board);
+        if (!(squareMm > 0) || !Double.isFinite(squareMm)) throw new UserError("--square-mm must be > 0 mm, got " + squareMm);
         return new Calibration.Board(cols, rows, squareMm);
     }
 

@@ -1,5 +1,6 @@
 package org.targetbench.cli;
 
+import picocli.CommandLine.Mixin;
 import org.targetbench.camera.CameraModel;
 import org.targetbench.camera.Feasibility;
 import org.targetbench.camera.FeasibilityConfig;
@@ -27,20 +28,30 @@ final class CheckCommand implements Callable<Integer> {
 
     @Option(names = "--target", required = true, paramLabel = "FILE", description = "Target design (target.json).")
     Path target;
-    @Option(names = "--camera", required = true, paramLabel = "FILE",
-            description = "Camera intrinsics: camera.json, OpenCV FileStorage YAML or ROS camera_info YAML (told apart by content).")
-    Path camera;
-    @Option(names = "--standoff", required = true, paramLabel = "MM", description = "Distance from the camera to the target's centre, mm.")
+    @Mixin CameraOption camera;
+    @Mixin StandoffOption standoff;
     double standoffMm;
+
+    @Option(names = "--standoff", hidden = true, paramLabel = "MM")
+    void oldStandoff(double mm) {
+        OldSpelling.note(spec, "--standoff", "--standoff-mm MM");
+        standoff.mm = mm;
+    }
     @Option(names = "--tilt", paramLabel = "DEG", defaultValue = "0", description = "Largest tilt of the target, degrees, 0..80 (default: ${DEFAULT-VALUE}).")
     double tiltDeg;
-    @Option(names = "--window", paramLabel = "PX", defaultValue = "4",
-            description = "Half-size h of the corner refinement / tracking window, px (default: ${DEFAULT-VALUE}).")
-    int window;
+    @Option(names = "--window-radius", paramLabel = "PX",
+            description = "Half-size r of the corner refinement / tracking window, px; the window is 2r+1 wide (default: ${DEFAULT-VALUE}).")
+    int window = 4;
+
+    @Option(names = "--window", hidden = true, paramLabel = "PX")
+    void oldWindow(int r) {
+        OldSpelling.note(spec, "--window", "--window-radius PX");
+        window = r;
+    }
 
     @Override
     public Integer call() throws Exception {
-        if (!(standoffMm > 0) || !Double.isFinite(standoffMm)) throw new UserError("--standoff must be > 0 mm, got " + standoffMm);
+        standoffMm = standoff.required();
         if (!(tiltDeg >= 0 && tiltDeg <= 80)) throw new UserError("--tilt must be within 0..80 degrees, got " + tiltDeg);
         FeasibilityConfig config = new FeasibilityConfig();
         config.windowHalfSizePx = window;
@@ -50,7 +61,7 @@ final class CheckCommand implements Callable<Integer> {
             throw new UserError("--window: " + e.getMessage());
         }
         TargetDesign design = TargetFile.read(target);
-        CameraModel cam = CameraFiles.read(camera);
+        CameraModel cam = camera.required("the intrinsics of the camera that will see the target");
         FeasibilityReport report = Feasibility.check(design, cam, standoffMm / 1000, tiltDeg, config);
         PrintWriter w = spec.commandLine().getOut();
         w.printf(Locale.ROOT, "Target %s (%s, %s x %s mm) with a %dx%d camera (fx %.1f, fy %.1f px)%n", design.id(), design.name(),

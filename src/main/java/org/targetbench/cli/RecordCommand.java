@@ -25,15 +25,21 @@ import java.util.concurrent.Callable;
         description = {"Records frames from any source into a video file that 'track --source FILE' reads back, with its truth "
                 + "beside it as NAME.truth.json when the source has truth.",
                 "Writes MP4 (H.264), AVI (Motion-JPEG) or a raw .mjpeg stream, chosen by the file name. A camera records until "
-                        + "--frames or Ctrl-C."})
+                        + "--frame-count or Ctrl-C."})
 final class RecordCommand implements Callable<Integer> {
     @Spec CommandSpec spec;
 
     @Option(names = "--source", required = true, paramLabel = "SOURCE", description = "What to record: " + SourceSpec.HELP + ".")
     String source;
 
-    @Option(names = "--frames", paramLabel = "N", defaultValue = "0", description = "Most frames to record (default: all).")
-    int frames;
+    @Option(names = "--frame-count", paramLabel = "N", description = "Most frames to record (default: all).")
+    int frames = 0;
+
+    @Option(names = "--frames", hidden = true, paramLabel = "N")
+    void oldFrames(int n) {
+        OldSpelling.note(spec, "--frames N", "--frame-count N (--frames always names a folder)");
+        frames = n;
+    }
 
     @Option(names = "--quality", paramLabel = "Q", defaultValue = "85",
             description = "1..100: JPEG quality for MJPEG; for MP4 the H.264 quantiser is 51 (100 - Q) / 100 (default: ${DEFAULT-VALUE}).")
@@ -48,7 +54,7 @@ final class RecordCommand implements Callable<Integer> {
     @Override
     public Integer call() throws Exception {
         if (quality < 1 || quality > 100) throw new UserError("--quality must be 1..100, got " + quality);
-        if (frames < 0) throw new UserError("--frames must be >= 1 (or 0 for all), got " + frames);
+        if (frames < 0) throw new UserError("--frame-count must be >= 1 (or 0 for all), got " + frames);
         String name = out.getFileName().toString();
         String lower = name.toLowerCase(java.util.Locale.ROOT);
         if (!(lower.endsWith(".mp4") || lower.endsWith(".avi") || lower.endsWith(".mjpeg") || lower.endsWith(".mjpg")))

@@ -37,7 +37,9 @@ final class RehearseCommand implements Callable<Integer> {
     @Option(names = "--lambda", paramLabel = "L", defaultValue = "0.5", description = "Control gain, 1/s, > 0 (default: ${DEFAULT-VALUE}).")
     double lambda;
 
-    @Option(names = "--law", paramLabel = "LAW", defaultValue = "mean", description = "Interaction matrix in the law: current, desired or mean (default: ${DEFAULT-VALUE}).")
+    @Option(names = "--law", paramLabel = "LAW", defaultValue = "averaged",
+            description = "Interaction matrix L in v = -lambda L+ (s - s*) (Chaumette & Hutchinson 2006): current (L at the current view and depth "
+                    + "estimates), reference (the set's own L*, constant) or averaged (the mean of the two) (default: ${DEFAULT-VALUE}).")
     String law;
 
     @Option(names = "--depth", paramLabel = "MODE", description = "Depths the controller believes: true, constant (Z*) or scaled (Z* x --depth-error) (default: true, or scaled when --depth-error is given).")
@@ -61,6 +63,15 @@ final class RehearseCommand implements Callable<Integer> {
 
     @Option(names = "--seed", paramLabel = "N", defaultValue = "1", description = "Random seed (default: ${DEFAULT-VALUE}).")
     long seed;
+
+    /** The law's name, with the old spellings (desired, mean) mapped to the new ones and noted on stderr. */
+    private String newLawName(String name) {
+        String n = name.trim().toLowerCase(java.util.Locale.ROOT);
+        String now = n.equals("desired") ? "reference" : n.equals("mean") ? "averaged" : null;
+        if (now == null) return name;
+        OldSpelling.note(spec, "--law " + n, "--law " + now);
+        return now;
+    }
 
     @Override
     public Integer call() throws Exception {
@@ -88,7 +99,7 @@ final class RehearseCommand implements Callable<Integer> {
         c.starts = starts;
         c.lambda = lambda;
         try {
-            c.law = ControlLaw.parse(law);
+            c.law = ControlLaw.parse(newLawName(law));
             c.depthMode = depth != null ? DepthMode.parse(depth) : depthError != null ? DepthMode.SCALED : DepthMode.TRUE;
         } catch (IllegalArgumentException e) {
             throw new UserError(e.getMessage());

@@ -36,10 +36,14 @@ final class ShootoutCommand implements Callable<Integer> {
     @Option(names = "--targets", required = true, split = ",", arity = "1..*", paramLabel = "DESIGN.json",
             description = "Two or more target designs (target.json files), comma or space separated.")
     List<Path> targets;
-    @Option(names = "--camera", required = true, paramLabel = "FILE", description = "Camera intrinsics: camera.json, OpenCV or ROS YAML.")
-    Path camera;
-    @Option(names = "--standoff", required = true, paramLabel = "MM", description = "Distance from the camera to the target, mm.")
-    double standoffMm;
+    @Mixin CameraOption camera;
+    @Mixin StandoffOption standoff;
+
+    @Option(names = "--standoff", hidden = true, paramLabel = "MM")
+    void oldStandoff(double mm) {
+        OldSpelling.note(spec, "--standoff", "--standoff-mm MM");
+        standoff.mm = mm;
+    }
     @Option(names = "--tilt", paramLabel = "DEG", defaultValue = "20", description = "Largest tilt for the feasibility check, degrees (default: ${DEFAULT-VALUE}).")
     double tiltDeg;
     @Option(names = "--kinds", split = ",", paramLabel = "KIND", description = "Conditions, as for 'sweep' (default: the five kinds).")
@@ -60,19 +64,19 @@ final class ShootoutCommand implements Callable<Integer> {
     @Override
     public Integer call() throws Exception {
         if (targets.size() < 2) throw new UserError("--targets needs at least two designs to compare, got " + targets.size());
-        if (!(standoffMm > 0) || !Double.isFinite(standoffMm)) throw new UserError("--standoff must be > 0 mm, got " + standoffMm);
+        double standoffMm = standoff.required();
         if (!(tiltDeg >= 0 && tiltDeg <= 80)) throw new UserError("--tilt must be within 0..80 degrees, got " + tiltDeg);
         SweepConfig sc = SweepCommand.config(detectorOptions, kinds, levels, views, seed);
         Map<Perturbation, Double> env = SweepCommand.envelope(envelope);
         List<TargetDesign> designs = new ArrayList<>();
         for (Path t : targets) designs.add(TargetFile.read(t));
-        CameraModel cam = CameraFiles.read(camera);
+        CameraModel cam = camera.required("the intrinsics of the camera that will see the targets");
         try (AtomicOutput output = AtomicOutput.open(out); SweepJob job = new SweepJob()) {
             List<ShootoutRun.Entry> entries = new ShootoutRun(cam, standoffMm / 1000, tiltDeg, sc, env)
                     .run(designs, DemoScenario.lighting(), new ConsoleProgress("designs"), job::cancelled);
             if (entries.size() < designs.size()) throw new UserError("stopped before every design was measured; nothing written");
             ShootoutWriter.write(entries, output.file("shootout.csv"));
-            ShootoutReport.write(entries, camera.getFileName().toString(), standoffMm / 1000, tiltDeg, env, output.file("shootout.html"));
+            ShootoutReport.write(entries, camera.file.getFileName().toString(), standoffMm / 1000, tiltDeg, env, output.file("shootout.html"));
             output.commit();
             PrintWriter w = spec.commandLine().getOut();
             w.printf(Locale.ROOT, "%-4s %-24s %-6s %-11s %9s %7s %7s %10s %8s%n", "rank", "design", "check", "detector", "env.score", "points", "robust", "cond(L*)", "cover");

@@ -13,7 +13,6 @@ import org.targetbench.pipeline.SweepResult;
 import org.targetbench.pipeline.SweepRun;
 import org.targetbench.pipeline.SweepSummary;
 import org.targetbench.report.SweepReport;
-import org.targetbench.source.CameraFile;
 import org.targetbench.source.EnvelopeFile;
 import org.targetbench.source.TargetFile;
 import org.targetbench.target.TargetDesign;
@@ -50,11 +49,20 @@ final class SweepCommand implements Callable<Integer> {
     @ArgGroup(exclusive = true, multiplicity = "1")
     Input input;
 
-    @Option(names = "--camera", paramLabel = "FILE", description = "Camera for --target (default: the demo's 640x480 flange camera).")
-    Path camera;
+    /** Camera for --target (default: the demo's 640x480 flange camera). */
+    @Mixin CameraOption camera;
 
-    @Option(names = "--standoff", paramLabel = "M", description = "Distance of the rendered views, metres (default: where the target fills half the view).")
-    Double standoff;
+    /** Distance of the rendered views (default: where the target fills half the view). */
+    @Mixin StandoffOption standoff;
+
+    /** A stand-off given in metres by the old spelling. */
+    private Double oldStandoffM;
+
+    @Option(names = "--standoff", hidden = true, paramLabel = "M")
+    void oldStandoff(double metres) {
+        OldSpelling.note(spec, "--standoff (metres)", "--standoff-mm MM (millimetres)");
+        oldStandoffM = metres;
+    }
 
     @Option(names = "--truth", paramLabel = "FILE", description = "truth.json for --frames (true points are carried through the degradations).")
     Path truth;
@@ -154,12 +162,16 @@ final class SweepCommand implements Callable<Integer> {
     private SweepBase base(SweepConfig cfg) throws Exception {
         if (input.target != null) {
             TargetDesign design = TargetFile.read(input.target);
-            CameraModel cam = camera != null ? CameraFile.read(camera) : DemoScenario.camera();
-            double d = standoff != null ? standoff : SweepBase.defaultStandoff(design, cam);
-            if (!(d > 0) || !Double.isFinite(d)) throw new UserError("--standoff must be > 0 m, got " + d);
+            CameraModel cam = camera.read().orElse(DemoScenario.camera());
+            double d;
+            if (standoff.mm() != null) d = standoff.positive() / 1000.0;
+            else if (oldStandoffM != null) d = oldStandoffM;
+            else d = SweepBase.defaultStandoff(design, cam);
+            if (!(d > 0) || !Double.isFinite(d)) throw new UserError("--standoff-mm must be > 0 mm, got " + d * 1000);
             return SweepBase.render(design, cam, DemoScenario.lighting(), d, views, seed);
         }
-        if (camera != null || standoff != null) throw new UserError("--camera and --standoff go with --target, not --frames");
+        if (camera.file != null || standoff.mm() != null || oldStandoffM != null)
+            throw new UserError("--camera and --standoff-mm go with --target, not --frames");
         try (ImageFolderSource src = ImageFolderSource.open(input.frames, truth)) {
             return SweepBase.fromFrames(src, "frames of " + input.frames, views);
         }

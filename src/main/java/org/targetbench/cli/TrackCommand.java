@@ -22,7 +22,7 @@ import java.util.concurrent.Callable;
 @Command(name = "track", mixinStandardHelpOptions = true,
         description = {"Tracks points with a pyramidal KLT tracker and a forward-backward check, and measures how long they "
                 + "survive, how far they drift from truth and how much they jitter.",
-                "Writes tracks.csv, survival.csv, drift.csv (with truth) and summary.json. A live camera runs until --frames or "
+                "Writes tracks.csv, survival.csv, drift.csv (with truth) and summary.json. A live camera runs until --frame-count or "
                         + "Ctrl-C; both keep what was measured."})
 final class TrackCommand implements Callable<Integer> {
     @Spec CommandSpec spec;
@@ -34,8 +34,14 @@ final class TrackCommand implements Callable<Integer> {
             description = "Detector that picks the points: harris, shi-tomasi, fast, surf, sift (default: ${DEFAULT-VALUE}).")
     String detector;
 
-    @Option(names = "--frames", paramLabel = "N", defaultValue = "0", description = "Most frames to track (default: all; a camera runs until Ctrl-C).")
-    int frames;
+    @Option(names = "--frame-count", paramLabel = "N", description = "Most frames to track (default: all; a camera runs until Ctrl-C).")
+    int frames = 0;
+
+    @Option(names = "--frames", hidden = true, paramLabel = "N")
+    void oldFrames(int n) {
+        OldSpelling.note(spec, "--frames N", "--frame-count N (--frames always names a folder)");
+        frames = n;
+    }
 
     @Option(names = "--truth", paramLabel = "FILE", description = "truth.json for a folder or video (default: truth.json in the folder, or NAME.truth.json beside the video).")
     Path truth;
@@ -53,11 +59,23 @@ final class TrackCommand implements Callable<Integer> {
             description = "off: measure the survival of the first frame's points; top-up: replace lost points up to --max-tracks (default: ${DEFAULT-VALUE}).")
     String respawn;
 
-    @Option(names = "--window", paramLabel = "R", defaultValue = "7", description = "Tracking window radius, px; the window is 2R+1 wide (default: ${DEFAULT-VALUE}).")
-    int window;
+    @Option(names = "--window-radius", paramLabel = "PX", description = "Tracking window half-size r, px; the window is 2r+1 wide (default: ${DEFAULT-VALUE}).")
+    int window = 7;
 
-    @Option(names = "--levels", paramLabel = "L", defaultValue = "4", description = "Pyramid levels, full resolution included (default: ${DEFAULT-VALUE}).")
-    int levels;
+    @Option(names = "--window", hidden = true, paramLabel = "PX")
+    void oldWindow(int r) {
+        OldSpelling.note(spec, "--window", "--window-radius PX");
+        window = r;
+    }
+
+    @Option(names = "--pyramid-levels", paramLabel = "N", description = "Pyramid levels, full resolution included (default: ${DEFAULT-VALUE}).")
+    int levels = 4;
+
+    @Option(names = "--levels", hidden = true, paramLabel = "N")
+    void oldLevels(int n) {
+        OldSpelling.note(spec, "--levels (track)", "--pyramid-levels N");
+        levels = n;
+    }
 
     @Option(names = "--fb-threshold", paramLabel = "PX", defaultValue = "0.5", description = "Largest forward-backward error kept, px (default: ${DEFAULT-VALUE}).")
     double fbThreshold;
@@ -79,8 +97,8 @@ final class TrackCommand implements Callable<Integer> {
         try {
             k.checkValidity();
         } catch (IllegalArgumentException e) {
-            throw new UserError(e.getMessage().replace("maxTracks", "--max-tracks").replace("windowRadius", "--window")
-                    .replace("pyramidLevels", "--levels").replace("fbThreshold", "--fb-threshold"));
+            throw new UserError(e.getMessage().replace("maxTracks", "--max-tracks").replace("windowRadius", "--window-radius")
+                    .replace("pyramidLevels", "--pyramid-levels").replace("fbThreshold", "--fb-threshold"));
         }
         return k;
     }
@@ -97,7 +115,7 @@ final class TrackCommand implements Callable<Integer> {
     public Integer call() throws Exception {
         KltConfig k = trackerConfig();
         DetectorConfig seed = seeding(detector);
-        if (frames < 0) throw new UserError("--frames must be >= 1 (or 0 for all), got " + frames);
+        if (frames < 0) throw new UserError("--frame-count must be >= 1 (or 0 for all), got " + frames);
         if (survivalAt < 0) throw new UserError("--survival-at must be >= 0, got " + survivalAt);
         boolean live = SourceSpec.isLive(source);
         try (FrameSource src = SourceSpec.open(source, truth);

@@ -6,7 +6,7 @@ import org.targetbench.source.TargetFile;
 import org.targetbench.source.PosesFile;
 import org.targetbench.source.ImageFiles;
 import org.targetbench.source.CsvIn;
-import org.targetbench.source.CameraFile;
+import org.targetbench.source.CameraFiles;
 import org.targetbench.source.JsonIn;
 import org.targetbench.source.FrameTruth;
 import org.targetbench.source.SourceException;
@@ -113,7 +113,7 @@ public final class ResultsFolder {
         Path camF = pick(o.camera(), folder.resolve("camera.json"));
         Path tgtF = pick(o.target(), folder.resolve("target.json"));
         Path posF = pick(o.poses(), folder.resolve("poses.json"));
-        Optional<CameraModel> camera = camF == null ? Optional.empty() : Optional.of(CameraFile.read(camF));
+        Optional<CameraModel> camera = camF == null ? Optional.empty() : Optional.of(CameraFiles.read(camF));
         Optional<TargetDesign> target = tgtF == null ? Optional.empty() : Optional.of(TargetFile.read(tgtF));
         Optional<List<Pose>> poses = Optional.empty();
         if (posF != null) {

@@ -69,12 +69,12 @@ class DesignCheckCalibrateCliTest {
 
     @Test
     void checkReportsEachLineWithItsBasisAndExitsOneOnFailure() {
-        Cli.Result ok = Cli.run("check", "--target", CB15.toString(), "--camera", YAML.toString(), "--standoff", "300", "--tilt", "20");
+        Cli.Result ok = Cli.run("check", "--target", CB15.toString(), "--camera", YAML.toString(), "--standoff-mm", "300", "--tilt", "20");
         assertEquals(0, ok.exit(), ok.err() + ok.out());
         for (String s : List.of("smallest feature", "feature spacing", "quiet zone", "field of view filled", "target in view",
                 "derived: the window must fit inside one square", "common practice in chessboard detection, no formal source"))
             assertTrue(ok.out().contains(s), "'" + s + "' missing from:\n" + ok.out());
-        Cli.Result far = Cli.run("check", "--target", CB15.toString(), "--camera", YAML.toString(), "--standoff", "1200");
+        Cli.Result far = Cli.run("check", "--target", CB15.toString(), "--camera", YAML.toString(), "--standoff-mm", "1200");
         assertEquals(1, far.exit(), far.out());
         assertTrue(far.out().contains("FAIL  smallest feature"), far.out());
     }
@@ -82,7 +82,7 @@ class DesignCheckCalibrateCliTest {
     @Test
     void calibrateWritesIntrinsicsInThreeLayoutsWithTheReport() throws Exception {
         Path cam = tmp.resolve("cal/camera.json");
-        Cli.Result r = Cli.run("calibrate", "--frames", threePhotos.toString(), "--board", "9x6", "--square", "25", "--out", cam.toString());
+        Cli.Result r = Cli.run("calibrate", "--frames", threePhotos.toString(), "--inner-corners", "9x6", "--square-mm", "25", "--out", cam.toString());
         assertEquals(0, r.exit(), r.err());
         assertTrue(r.out().contains("RMS reprojection error"), r.out());
         CameraModel json = CameraFiles.read(cam);
@@ -98,7 +98,7 @@ class DesignCheckCalibrateCliTest {
         Path noBoard = tmp.resolve("no-board");
         Files.createDirectories(noBoard);
         for (int i = 0; i < 3; i++) ImageFiles.writePng(TestScenes.texture(160, 120, i), noBoard.resolve("t" + i + ".png"));
-        assertBadInput(null, "not found in any of the 3 frames", "calibrate", "--frames", noBoard.toString(), "--board", "9x6", "--square", "25",
+        assertBadInput(null, "not found in any of the 3 frames", "calibrate", "--frames", noBoard.toString(), "--inner-corners", "9x6", "--square-mm", "25",
                 "--out", out("c1") + "/camera.json");
         Path two = tmp.resolve("two-boards");
         Files.createDirectories(two);
@@ -106,17 +106,17 @@ class DesignCheckCalibrateCliTest {
         Files.copy(PHOTOS.resolve("left02.jpg"), two.resolve("b.jpg"));
         ImageFiles.writePng(flat(640, 480), two.resolve("c.png"));
         assertBadInput(Path.of(out("c2")), "found in 2 of 3 frames; calibration needs at least 3 views", "calibrate", "--frames", two.toString(),
-                "--board", "9x6", "--square", "25", "--out", out("c2") + "/camera.json");
+                "--inner-corners", "9x6", "--square-mm", "25", "--out", out("c2") + "/camera.json");
         Path mixed = tmp.resolve("mixed");
         Files.createDirectories(mixed);
         Files.copy(PHOTOS.resolve("left01.jpg"), mixed.resolve("a.jpg"));
         ImageFiles.writePng(flat(320, 240), mixed.resolve("b.png"));
-        assertBadInput(Path.of(out("c3")), "mixed frame sizes", "calibrate", "--frames", mixed.toString(), "--board", "9x6", "--square", "25",
+        assertBadInput(Path.of(out("c3")), "mixed frame sizes", "calibrate", "--frames", mixed.toString(), "--inner-corners", "9x6", "--square-mm", "25",
                 "--out", out("c3") + "/camera.json");
-        assertBadInput(null, "--square must be > 0 mm, got -25", "calibrate", "--frames", threePhotos.toString(), "--board", "9x6", "--square", "-25");
-        assertBadInput(null, "--board must be COLSxROWS", "calibrate", "--frames", threePhotos.toString(), "--board", "9by6", "--square", "25");
-        assertBadInput(null, "--board needs at least 2x2 inner corners, got -9x6", "calibrate", "--frames", threePhotos.toString(), "--board", "-9x6", "--square", "25");
-        assertBadInput(null, "--out names the camera .json", "calibrate", "--frames", threePhotos.toString(), "--board", "9x6", "--square", "25",
+        assertBadInput(null, "--square-mm must be > 0 mm, got -25", "calibrate", "--frames", threePhotos.toString(), "--inner-corners", "9x6", "--square-mm", "-25");
+        assertBadInput(null, "--inner-corners must be COLSxROWS", "calibrate", "--frames", threePhotos.toString(), "--inner-corners", "9by6", "--square-mm", "25");
+        assertBadInput(null, "--inner-corners needs at least 2x2 inner corners, got -9x6", "calibrate", "--frames", threePhotos.toString(), "--inner-corners", "-9x6", "--square-mm", "25");
+        assertBadInput(null, "--out names the camera .json", "calibrate", "--frames", threePhotos.toString(), "--inner-corners", "9x6", "--square-mm", "25",
                 "--out", out("c4") + "/camera.yml");
     }
 
@@ -125,16 +125,16 @@ class DesignCheckCalibrateCliTest {
         String good = Files.readString(YAML);
         Path missing = tmp.resolve("missing-key.yml");
         Files.writeString(missing, good.replace("image_height: 480\n", ""));
-        assertBadInput(null, "missing key image_height", "check", "--target", CB15.toString(), "--camera", missing.toString(), "--standoff", "300");
+        assertBadInput(null, "missing key image_height", "check", "--target", CB15.toString(), "--camera", missing.toString(), "--standoff-mm", "300");
         Path notSquare = tmp.resolve("not-3x3.yml");
         Files.writeString(notSquare, good.replaceFirst("rows: 3\n   cols: 3", "rows: 3\n   cols: 4"));
         assertBadInput(null, "camera_matrix is 3x4; expected 3x3", "check", "--target", CB15.toString(), "--camera", notSquare.toString(),
-                "--standoff", "300");
+                "--standoff-mm", "300");
         Path poses = tmp.resolve("poses.json");
         Files.writeString(poses, "{\"poses\": [{\"distance_m\": 0.3}]}");
         assertBadInput(Path.of(out("r1")), "missing key image_height", "render", "--target", CB15.toString(), "--camera", missing.toString(),
                 "--poses", poses.toString(), "--out", out("r1"));
-        assertBadInput(null, "--standoff must be > 0 mm, got -300", "check", "--target", CB15.toString(), "--camera", YAML.toString(), "--standoff", "-300");
+        assertBadInput(null, "--standoff-mm must be > 0 mm, got -300", "check", "--target", CB15.toString(), "--camera", YAML.toString(), "--standoff-mm", "-300");
     }
 
     @Test

@@ -18,7 +18,7 @@ class ShootoutCommandTest {
     @Test
     void ranksTwoDesignsSideBySide(@TempDir Path tmp) throws IOException {
         Path out = tmp.resolve("s");
-        Cli.Result r = Cli.run("shootout", "--targets", CB + "," + DOTS, "--camera", CAMERA, "--standoff", "250", "--views", "1",
+        Cli.Result r = Cli.run("shootout", "--targets", CB + "," + DOTS, "--camera", CAMERA, "--standoff-mm", "250", "--views", "1",
                 "--levels", "2", "--kinds", "noise,blur", "--out", out.toString());
         assertEquals(0, r.exit(), r.err());
         List<String> rows = Files.readAllLines(out.resolve("shootout.csv"));
@@ -37,8 +37,8 @@ class ShootoutCommandTest {
     @Test
     void needsTwoDesignsAndAPositiveStandoff(@TempDir Path tmp) throws IOException {
         BadInputTest.assertBadInput(tmp.resolve("a"), "at least two designs", "shootout", "--targets", CB, "--camera", CAMERA,
-                "--standoff", "250", "--out", tmp.resolve("a").toString());
-        BadInputTest.assertBadInput(tmp.resolve("b"), "--standoff must be > 0", "shootout", "--targets", CB + "," + DOTS, "--camera", CAMERA,
-                "--standoff", "-5", "--out", tmp.resolve("b").toString());
+                "--standoff-mm", "250", "--out", tmp.resolve("a").toString());
+        BadInputTest.assertBadInput(tmp.resolve("b"), "--standoff-mm must be > 0", "shootout", "--targets", CB + "," + DOTS, "--camera", CAMERA,
+                "--standoff-mm", "-5", "--out", tmp.resolve("b").toString());
     }
 }

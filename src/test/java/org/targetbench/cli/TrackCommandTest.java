@@ -192,7 +192,7 @@ class TrackCommandTest {
         bad("unknown setting \"speed=3\"", "track", "--source", "synthetic:orbit,speed=3", "--out", out);
         bad("exposure must be", "track", "--source", "synthetic:orbit,exposure_ms=50", "--out", out);
         bad("unknown detector \"orb\"", "track", "--source", "synthetic:orbit", "--detector", "orb", "--out", out);
-        bad("--window must be 1..20", "track", "--source", "synthetic:orbit", "--window", "0", "--out", out);
+        bad("--window-radius must be 1..20", "track", "--source", "synthetic:orbit", "--window-radius", "0", "--out", out);
         bad("--fb-threshold must be > 0", "track", "--source", "synthetic:orbit", "--fb-threshold", "0", "--out", out);
         bad("unknown respawn policy", "track", "--source", "synthetic:orbit", "--respawn", "always", "--out", out);
         bad("--truth goes with folders and videos", "track", "--source", "synthetic:orbit", "--truth", "x.json", "--out", out);
@@ -206,7 +206,7 @@ class TrackCommandTest {
         for (int i = 0; i < 3; i++) ImageFiles.writePng(TrackScenes.texture(100, 80, 2, i, 0), folder.resolve("f" + i + ".png"));
         String out = tmp.resolve("small-out").toString();
         bad("too small to track", "track", "--source", folder.toString(), "--out", out);
-        Cli.Result r = Cli.run("track", "--source", folder.toString(), "--levels", "2", "--out", out);
+        Cli.Result r = Cli.run("track", "--source", folder.toString(), "--pyramid-levels", "2", "--out", out);
         assertEquals(0, r.exit(), r.err());
         assertTrue(r.out().contains("no static stretch (without truth, mark a still recording with --static)"), r.out());
     }
