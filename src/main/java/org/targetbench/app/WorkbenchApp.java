@@ -1,5 +1,6 @@
 package org.targetbench.app;
 
+import org.targetbench.pipeline.Threads;
 import com.formdev.flatlaf.FlatDarkLaf;
 import com.formdev.flatlaf.FlatLightLaf;
 
@@ -38,6 +39,7 @@ public final class WorkbenchApp {
     }
 
     public static void main(String[] args) throws Exception {
+        Threads.coarseOnly(); // the process's thread policy, chosen once by the shell (see Threads)
         open(Preferences.userRoot().node(PREFS_NODE));
     }
 }

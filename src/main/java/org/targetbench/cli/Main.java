@@ -1,5 +1,6 @@
 package org.targetbench.cli;
 
+import org.targetbench.pipeline.Threads;
 import org.targetbench.Version;
 import org.targetbench.export.OutputException;
 import org.targetbench.source.SourceException;
@@ -37,6 +38,7 @@ public final class Main implements Runnable {
 
     /** A command line wired with this tool's error handling. */
     public static CommandLine commandLine() {
+        Threads.coarseOnly(); // the process's thread policy, chosen once by the shell (see Threads)
         CommandLine cl = new CommandLine(new Main());
         cl.setExecutionExceptionHandler((ex, cmd, parseResult) -> {
             PrintWriter err = cmd.getErr();

@@ -55,7 +55,6 @@ public final class CompareRun {
         if (threads < 1) throw new IllegalArgumentException("threads must be >= 1, got " + threads);
         for (DetectorConfig c : configs) c.checkValidity();
         this.configs = configs.stream().map(DetectorConfig::copy).toList();
-        Threads.coarseOnly();
         this.epsilon = epsilon;
         this.threads = threads;
     }

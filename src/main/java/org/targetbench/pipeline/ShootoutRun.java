@@ -71,9 +71,8 @@ public final class ShootoutRun {
         this.camera = camera;
         this.standoffM = standoffM;
         this.tiltDeg = tiltDeg;
-        this.sweep = sweep;
+        this.sweep = sweep.copy();
         this.envelope = Map.copyOf(envelope);
-        Threads.coarseOnly();
     }
 
     public List<Entry> run(List<TargetDesign> designs, RenderConfig lighting, Progress progress, BooleanSupplier cancelled) throws InterruptedException {

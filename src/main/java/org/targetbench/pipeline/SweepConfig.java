@@ -39,6 +39,24 @@ public final class SweepConfig {
     /** Fixed settings of the perturbations. */
     public PerturbConfig perturb = new PerturbConfig();
 
+    /** A deep copy: lists, maps, arrays and nested configs are copied too. */
+    public SweepConfig copy() {
+        SweepConfig c = new SweepConfig();
+        c.detectors = new ArrayList<>(detectors.stream().map(DetectorConfig::copy).toList());
+        c.parameters = new ArrayList<>(parameters);
+        c.levels = levels;
+        c.values = new LinkedHashMap<>();
+        values.forEach((k, v) -> c.values.put(k, v.clone()));
+        c.syntheticFrames = syntheticFrames;
+        c.seed = seed;
+        c.epsilon = epsilon;
+        c.threads = threads;
+        c.trackFrames = trackFrames;
+        c.tracker = tracker.copy();
+        c.perturb = perturb.copy();
+        return c;
+    }
+
     /** The values swept for a parameter. */
     public double[] valuesOf(Perturbation p) {
         double[] v = values.get(p);

@@ -56,8 +56,7 @@ public final class SweepRun {
 
     public SweepRun(SweepConfig config) {
         config.checkValidity();
-        this.config = config;
-        Threads.coarseOnly();
+        this.config = config.copy();
     }
 
     /** Cells in a sweep of {@code base}. */

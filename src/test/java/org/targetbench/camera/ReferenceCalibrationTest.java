@@ -24,7 +24,7 @@ class ReferenceCalibrationTest {
     static final double REF_F = 535.91573396163199;
     /** Reference principal point, px (left_intrinsics.yml). */
     static final double REF_CX = 342.28315473308373, REF_CY = 235.57082909788173;
-    /** Allowed relative deviation of fx and fy (the acceptance figure). */
+    /** Allowed relative deviation of fx and fy from the reference calibration (common practice, no source). */
     static final double F_TOL = 0.01;
     /** Allowed deviation of cx and cy, px. */
     static final double C_TOL_PX = 5;

@@ -20,9 +20,9 @@ import static org.junit.jupiter.api.Assertions.*;
 class SyntheticCalibrationTest {
     /** The true camera: 640 x 480, slightly unequal focal lengths, off-centre principal point, barrel distortion. */
     static final CameraModel TRUE = new CameraModel(640, 480, 610.0, 606.0, 324.3, 236.8, -0.12, 0.05, 0, 0.0005, -0.0004);
-    /** Allowed relative error of fx and fy (the acceptance figure). */
+    /** Allowed relative error of fx and fy on noise-free synthetic views (common practice, no source). */
     static final double F_TOL = 0.005;
-    /** Allowed error of cx and cy, px (the acceptance figure). */
+    /** Allowed error of cx and cy, px (common practice, no source). */
     static final double C_TOL_PX = 1.0;
     /** Sensor noise of the renders, grey levels, and its seed. */
     static final double NOISE = 1.0;

@@ -24,7 +24,7 @@ import static org.junit.jupiter.api.Assertions.*;
 
 /** pick and rehearse as a user runs them, on the demo's own results (rendered, so every truth is known). */
 class ServoCliTest {
-    /** Exported reference pixels agree with the true projection of their target points within this (from the issue). */
+    /** Exported reference pixels agree with the true projection of their target points within this (a third of a pixel, well inside one pixel of detection noise: common practice, no source). */
     private static final double EXPORT_PX = 0.3;
     /** A PnP pose from sub-pixel corners puts the points within this depth of the true one, metres (common practice, no source). */
     private static final double PNP_DEPTH_M = 0.001;

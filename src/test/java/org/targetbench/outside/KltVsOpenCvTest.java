@@ -36,7 +36,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
  * iterations or a 0.01 px step. Points that either tracker loses are left out.
  */
 class KltVsOpenCvTest {
-    /** Largest allowed median disagreement, pixels (the bound; measured 0.0002 px). */
+    /** Largest allowed median disagreement, pixels (common practice, no source; measured 0.0002 px). */
     static final double MEDIAN_TOL_PX = 0.05;
     static final int W = 640, H = 480;
     static final long SEED = 7;
