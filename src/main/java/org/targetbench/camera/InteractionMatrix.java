@@ -101,13 +101,24 @@ public final class InteractionMatrix {
      */
     public static Conditioning conditioning(DMatrixRMaj l, double zRef) {
         if (l.numCols != 6) throw new IllegalArgumentException("L must have 6 columns, got " + l.numCols);
-        if (!(zRef > 0) || !Double.isFinite(zRef)) throw new IllegalArgumentException("reference depth must be > 0 m, got " + zRef);
+        checkDepth(zRef);
         DMatrixRMaj s = l.copy();
+        scaleTranslation(s, zRef);
+        return figures(s, DecompositionFactory_DDRM.svd(s.numRows, 6, false, false, true));
+    }
+
+    private static void checkDepth(double zRef) {
+        if (!(zRef > 0) || !Double.isFinite(zRef)) throw new IllegalArgumentException("reference depth must be > 0 m, got " + zRef);
+    }
+
+    private static void scaleTranslation(DMatrixRMaj s, double zRef) {
         for (int r = 0; r < s.numRows; r++)
             for (int c = 0; c < 3; c++) s.data[r * 6 + c] *= zRef;
-        SingularValueDecomposition_F64<DMatrixRMaj> svd = DecompositionFactory_DDRM.svd(s.numRows, 6, false, false, true);
+    }
+
+    private static Conditioning figures(DMatrixRMaj s, SingularValueDecomposition_F64<DMatrixRMaj> svd) {
         if (!svd.decompose(s)) return new Conditioning(Double.POSITIVE_INFINITY, 0, 0, 0);
-        double[] sv = svd.getSingularValues().clone();
+        double[] sv = svd.getSingularValues();
         int n = svd.numberOfSingularValues();
         double max = 0;
         for (int i = 0; i < n; i++) max = Math.max(max, sv[i]);
@@ -117,6 +128,25 @@ public final class InteractionMatrix {
         for (int i = 0; i < n; i++) min = Math.min(min, sv[i]);
         double cond = (min <= max * RANK_TOL) ? Double.POSITIVE_INFINITY : max / min;
         return new Conditioning(cond, min, max, rank);
+    }
+
+    /**
+     * Reusable matrices and decompositions for evaluating many point sets, as a selection search does: the same
+     * figures as {@link #conditioning(DMatrixRMaj, double)} on {@link #stacked}, without allocating per set. Not
+     * thread safe: one per thread.
+     */
+    public static final class Workspace {
+        private final java.util.Map<Integer, DMatrixRMaj> matrices = new java.util.HashMap<>();
+        private final java.util.Map<Integer, SingularValueDecomposition_F64<DMatrixRMaj>> svds = new java.util.HashMap<>();
+
+        /** Figures of the stacked L of the first {@code n} points, translational columns scaled by {@code zRef}. */
+        public Conditioning conditioning(double[] x, double[] y, double[] z, int n, double zRef) {
+            checkDepth(zRef);
+            DMatrixRMaj s = matrices.computeIfAbsent(n, k -> new DMatrixRMaj(2 * k, 6));
+            for (int i = 0; i < n; i++) pointRows(x[i], y[i], z[i], s.data, 2 * i);
+            scaleTranslation(s, zRef);
+            return figures(s, svds.computeIfAbsent(n, k -> DecompositionFactory_DDRM.svd(2 * k, 6, false, false, true)));
+        }
     }
 
     /**

@@ -290,8 +290,16 @@ public final class ServoPointSelector {
             return true;
         }
 
+        /** Reused across the (up to {@link SelectConfig#exhaustiveLimit}) sets evaluated, as the servo controller reuses its own. */
+        private final InteractionMatrix.Workspace workspace = new InteractionMatrix.Workspace();
+        private double[] x = new double[0], y = new double[0], z = new double[0];
+
         InteractionMatrix.Conditioning conditioning(int[] set) {
-            double[] x = new double[set.length], y = new double[set.length], z = new double[set.length];
+            if (x.length < set.length) {
+                x = new double[set.length];
+                y = new double[set.length];
+                z = new double[set.length];
+            }
             double zs = 0;
             for (int i = 0; i < set.length; i++) {
                 Candidate cd = pool.get(set[i]);
@@ -300,7 +308,7 @@ public final class ServoPointSelector {
                 z[i] = cd.zM();
                 zs += z[i];
             }
-            return InteractionMatrix.conditioning(InteractionMatrix.stacked(x, y, z), zs / set.length);
+            return workspace.conditioning(x, y, z, set.length, zs / set.length);
         }
 
         double coverage(int[] set) {
