@@ -51,13 +51,10 @@ final class ServoChoice {
         if (!removed) {
             Candidate c = candidates.stream().filter(x -> x.id() == id).findFirst()
                     .orElseThrow(() -> new IllegalArgumentException("no candidate with id " + id));
-            pts.add(new ServoPoint(c.id(), c.u(), c.v(), c.x(), c.y(), c.zM(), c.targetXMm(), c.targetYMm(), c.featureId(),
-                    c.robustness(), Reasons.ADDED_BY_HAND));
+            pts.add(ServoPoint.of(c, Reasons.ADDED_BY_HAND));
         }
         if (pts.isEmpty()) return null;
-        InteractionMatrix.Conditioning k = ServoSet.conditioning(pts);
-        return new ServoSet(set.toolVersion(), set.created(), set.camera(), set.targetId(), set.targetDesign(), set.referencePose(),
-                set.poseMethod(), set.detector(), set.detectorConfig(), set.trackerConfig(), pts, k.condition(), k.sigmaMin());
+        return set.withPoints(pts);
     }
 
     /** The candidate nearest to an image point within {@code radius} px, or null. */

@@ -177,8 +177,7 @@ public final class PickRun {
         if (sel.outcome() != Selection.Outcome.SELECTED) return new Result(detector, cands, sel, Optional.empty(), poseMethod);
         List<ServoPoint> pts = new ArrayList<>();
         for (Selection.Chosen ch : sel.chosen()) {
-            Candidate c = ch.candidate();
-            pts.add(new ServoPoint(c.id(), c.u(), c.v(), c.x(), c.y(), c.zM(), c.targetXMm(), c.targetYMm(), c.featureId(), c.robustness(), Reasons.chosen(ch)));
+            pts.add(ServoPoint.of(ch.candidate(), Reasons.chosen(ch)));
         }
         String designRef = design.map(d -> d.name() + " (" + data.designLabel() + ")").orElse("unknown");
         ServoSet set = new ServoSet(toolVersion, created, camera, design.map(TargetDesign::id).orElse("unknown"), designRef,

@@ -57,7 +57,13 @@ public final class ShootoutRun {
     /** One design's figures. {@code bestCondition} is NaN when no acceptable 4-point set exists. */
     public record Entry(TargetDesign design, FeasibilityReport feasibility, SweepResult sweep, DetectorType bestDetector,
                         double envelopeScore, int points, int robustPoints, double bestCondition, double bestSigmaMin,
-                        String servoNote, double coverage, int rank) {}
+                        String servoNote, double coverage, int rank) {
+        /** This entry at another rank. */
+        public Entry withRank(int r) {
+            return new Entry(design, feasibility, sweep, bestDetector, envelopeScore, points, robustPoints, bestCondition, bestSigmaMin,
+                    servoNote, coverage, r);
+        }
+    }
 
     private final CameraModel camera;
     private final double standoffM;
@@ -167,8 +173,7 @@ public final class ShootoutRun {
         List<Entry> out = new ArrayList<>();
         for (int i = 0; i < sorted.size(); i++) {
             Entry e = sorted.get(i);
-            out.add(new Entry(e.design(), e.feasibility(), e.sweep(), e.bestDetector(), e.envelopeScore(), e.points(), e.robustPoints(),
-                    e.bestCondition(), e.bestSigmaMin(), e.servoNote(), e.coverage(), i + 1));
+            out.add(e.withRank(i + 1));
         }
         return out;
     }

@@ -27,4 +27,14 @@ public record ServoPoint(int id, double u, double v, double x, double y, double 
         if (!(zM > 0) || !Double.isFinite(zM)) throw new IllegalArgumentException("point " + id + ": depth Z must be finite and > 0 m, got " + zM);
         if (reason == null) reason = "";
     }
+
+    /** A chosen candidate as a servo point, with why it is in the set. */
+    public static ServoPoint of(org.targetbench.select.Candidate c, String reason) {
+        return new ServoPoint(c.id(), c.u(), c.v(), c.x(), c.y(), c.zM(), c.targetXMm(), c.targetYMm(), c.featureId(), c.robustness(), reason);
+    }
+
+    /** This point with other robustness figures. */
+    public ServoPoint withRobustness(Robustness r) {
+        return new ServoPoint(id, u, v, x, y, zM, targetXMm, targetYMm, featureId, r, reason);
+    }
 }

@@ -39,6 +39,13 @@ public record ServoSet(String toolVersion, String created, CameraModel camera, S
     }
 
     /** Figures of the scaled L* of some points: {cond, sigmaMin}. */
+    /** This set with other points, its cond(L*) and sigma_min recomputed for them. */
+    public ServoSet withPoints(List<ServoPoint> pts) {
+        InteractionMatrix.Conditioning k = conditioning(pts);
+        return new ServoSet(toolVersion, created, camera, targetId, targetDesign, referencePose, poseMethod, detector, detectorConfig,
+                trackerConfig, pts, k.condition(), k.sigmaMin());
+    }
+
     public static InteractionMatrix.Conditioning conditioning(List<ServoPoint> pts) {
         double[] x = new double[pts.size()], y = new double[pts.size()], z = new double[pts.size()];
         double zs = 0;

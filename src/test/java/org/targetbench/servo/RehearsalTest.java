@@ -97,8 +97,7 @@ class RehearsalTest {
     void measuredSurvivalDropsTracks() throws InterruptedException {
         ServoSet base = ServoFixtures.centredSquare(100, 0.5);
         Robustness fragile = new Robustness(OptionalDouble.empty(), OptionalDouble.of(0.0), OptionalDouble.empty(), OptionalDouble.empty());
-        List<ServoPoint> pts = base.points().stream().map(p -> new ServoPoint(p.id(), p.u(), p.v(), p.x(), p.y(), p.zM(),
-                p.targetXMm(), p.targetYMm(), p.featureId(), fragile, p.reason())).toList();
+        List<ServoPoint> pts = base.points().stream().map(p -> p.withRobustness(fragile)).toList();
         ServoSet set = new ServoSet(base.toolVersion(), base.created(), base.camera(), base.targetId(), base.targetDesign(),
                 base.referencePose(), base.poseMethod(), base.detector(), base.detectorConfig(), base.trackerConfig(), pts,
                 base.condition(), base.sigmaMin());
