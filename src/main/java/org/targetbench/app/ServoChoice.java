@@ -1,5 +1,6 @@
 package org.targetbench.app;
 
+import org.targetbench.formats.PickRefusals;
 import org.targetbench.source.FrameList;
 import org.targetbench.formats.PickInputs;
 import org.targetbench.pipeline.Reasons;
@@ -40,7 +41,7 @@ final class ServoChoice {
             return PickRun.run(PickInputs.fromComparison(cr, frames, scene.camera(), scene.design(), scene.poses().get(0)), null,
                     new CandidateConfig(), sc, Version.get(), ServoWriters.now());
         } catch (PickRun.Refused e) {
-            throw new SourceException(Reasons.pickRefusal(e, new Reasons.Where(sourceName, "the frames' truth", PickInputs.POSES_LABEL, reference)));
+            throw new SourceException(PickRefusals.explain(e, new PickRefusals.Where(sourceName, "the frames' truth", PickInputs.POSES_LABEL, reference)));
         }
     }
 

@@ -1,5 +1,6 @@
 package org.targetbench.cli;
 
+import org.targetbench.formats.PickRefusals;
 import org.targetbench.camera.Feasibility;
 import org.targetbench.camera.FeasibilityConfig;
 import org.targetbench.export.AtomicOutput;
@@ -75,7 +76,7 @@ final class DemoCommand implements Callable<Integer> {
                                     DemoScenario.target(), DemoScenario.poses().get(0)),
                             steps, Version.get(), ServoWriters.now());
                 } catch (PickRun.Refused e) {
-                    throw new UserError(Reasons.pickRefusal(e, new Reasons.Where(out.toString(), "frames/truth.json", "poses.json", "frame_000.png")));
+                    throw new UserError(PickRefusals.explain(e, new PickRefusals.Where(out.toString(), "frames/truth.json", "poses.json", "frame_000.png")));
                 }
                 tw.finish(demo.tracking());
                 TargetFile.write(DemoScenario.target(), output.file("target.json"));

@@ -1,5 +1,6 @@
 package org.targetbench.cli;
 
+import org.targetbench.formats.PickRefusals;
 import org.targetbench.Version;
 import org.targetbench.export.AtomicOutput;
 import org.targetbench.export.ServoSetFiles;
@@ -36,7 +37,7 @@ final class ServoSteps {
         try {
             r = PickRun.run(data.pickInput(), detector, new CandidateConfig(), sc, Version.get(), ServoWriters.now());
         } catch (PickRun.Refused e) {
-            throw new SourceException(Reasons.pickRefusal(e, data.where()));
+            throw new SourceException(PickRefusals.explain(e, data.where()));
         }
         if (r.set().isEmpty()) throw new NoAcceptableSet(Reasons.selection(r.selection()));
         return r;

@@ -1,6 +1,5 @@
 package org.targetbench.formats;
 
-import org.targetbench.pipeline.Reasons;
 import org.targetbench.source.TruthFile;
 import org.targetbench.source.TargetFile;
 import org.targetbench.source.PosesFile;
@@ -60,8 +59,8 @@ public final class ResultsFolder {
         }
 
         /** Names for the sentences that explain a refused pick. */
-        public Reasons.Where where() {
-            return new Reasons.Where(folderName, shortName(truthFile), posesFile.map(this::shortName).orElse("poses.json"), referenceFrame);
+        public PickRefusals.Where where() {
+            return new PickRefusals.Where(folderName, shortName(truthFile), posesFile.map(this::shortName).orElse("poses.json"), referenceFrame);
         }
 
         /** A file's name relative to the results folder when it lies inside it, else its full path. */

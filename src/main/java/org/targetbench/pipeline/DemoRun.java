@@ -62,10 +62,11 @@ public final class DemoRun {
         TrackSink trackSink();
     }
 
-    /** The demo's sweep settings for these detectors. */
-    public static SweepConfig sweepConfig(List<DetectorConfig> configs) {
+    /** The demo's sweep settings for these detectors and match radius (pixels). */
+    public static SweepConfig sweepConfig(List<DetectorConfig> configs, double epsilon) {
         SweepConfig c = new SweepConfig();
         c.detectors = configs;
+        c.epsilon = epsilon;
         for (PerturbKind k : PerturbKind.values()) c.parameters.add(Perturbation.primary(k));
         c.levels = SWEEP_LEVELS;
         c.seed = 1;
@@ -92,7 +93,7 @@ public final class DemoRun {
         String reference = DemoScenario.source().referenceName();
         CompareResult compare = new CompareRun(configs, epsilon)
                 .run(new FrameList(framesDescription, frames, reference), steps.progress("detecting"));
-        SweepResult sweep = new SweepRun(sweepConfig(configs)).run(SweepBase.render(DemoScenario.target(), DemoScenario.camera(),
+        SweepResult sweep = new SweepRun(sweepConfig(configs, epsilon)).run(SweepBase.render(DemoScenario.target(), DemoScenario.camera(),
                 DemoScenario.lighting(), DemoScenario.STANDOFF_M, SWEEP_VIEWS, 1), steps.progress("stress sweep"), steps::cancelled);
         PickRun.Result pick = PickRun.run(pickInput.apply(compare, frames), null, new CandidateConfig(), new SelectConfig(), toolVersion, created);
         RehearsalConfig rc = new RehearsalConfig();

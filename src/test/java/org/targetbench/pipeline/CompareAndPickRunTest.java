@@ -1,5 +1,6 @@
 package org.targetbench.pipeline;
 
+import org.targetbench.formats.PickRefusals;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.targetbench.camera.Pose;
@@ -97,7 +98,7 @@ class CompareAndPickRunTest {
     private static PickRun.Refused assertProblem(PickRun.Problem p, PickRun.Input in, String detector) {
         PickRun.Refused e = assertThrows(PickRun.Refused.class, () -> PickRun.run(in, detector, new CandidateConfig(), new SelectConfig(), "t", "n"));
         assertEquals(p, e.problem);
-        assertFalse(Reasons.pickRefusal(e, new Reasons.Where("f", "t", "p", "r")).isBlank());
+        assertFalse(PickRefusals.explain(e, new PickRefusals.Where("f", "t", "p", "r")).isBlank());
         return e;
     }
 
