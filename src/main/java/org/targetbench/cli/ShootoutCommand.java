@@ -46,18 +46,14 @@ final class ShootoutCommand implements Callable<Integer> {
     }
     @Option(names = "--tilt", paramLabel = "DEG", defaultValue = "20", description = "Largest tilt for the feasibility check, degrees (default: ${DEFAULT-VALUE}).")
     double tiltDeg;
-    @Option(names = "--kinds", split = ",", paramLabel = "KIND", description = "Conditions, as for 'sweep' (default: the five kinds).")
-    List<String> kinds;
     @Option(names = "--levels", paramLabel = "N", defaultValue = "5", description = "Levels per condition (default: ${DEFAULT-VALUE}).")
     int levels;
     @Option(names = "--views", paramLabel = "N", defaultValue = "6", description = "Rendered views per design in the sweep (default: ${DEFAULT-VALUE}).")
     int views;
-    @Option(names = "--envelope", paramLabel = "FILE", description = "Operating envelope (JSON), as for 'sweep'.")
-    Path envelope;
-    @Option(names = "--seed", paramLabel = "S", defaultValue = "1", description = "Seed (default: ${DEFAULT-VALUE}).")
-    long seed;
     @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output folder, written atomically.")
     Path out;
+
+    @Mixin ConditionOptions conditions;
 
     @Mixin DetectorOptions detectorOptions;
 
@@ -66,8 +62,8 @@ final class ShootoutCommand implements Callable<Integer> {
         if (targets.size() < 2) throw new UserError("--targets needs at least two designs to compare, got " + targets.size());
         double standoffMm = standoff.required();
         if (!(tiltDeg >= 0 && tiltDeg <= 80)) throw new UserError("--tilt must be within 0..80 degrees, got " + tiltDeg);
-        SweepConfig sc = SweepCommand.config(detectorOptions, kinds, levels, views, seed);
-        Map<Perturbation, Double> env = SweepCommand.envelope(envelope);
+        SweepConfig sc = SweepCommand.config(detectorOptions, conditions.kinds, levels, views, conditions.seed);
+        Map<Perturbation, Double> env = SweepCommand.envelope(conditions.envelope);
         List<TargetDesign> designs = new ArrayList<>();
         for (Path t : targets) designs.add(TargetFile.read(t));
         CameraModel cam = camera.required("the intrinsics of the camera that will see the targets");

@@ -67,11 +67,6 @@ final class SweepCommand implements Callable<Integer> {
     @Option(names = "--truth", paramLabel = "FILE", description = "truth.json for --frames (true points are carried through the degradations).")
     Path truth;
 
-    @Option(names = "--kinds", split = ",", paramLabel = "KIND",
-            description = "What to sweep: lighting, blur, noise, jpeg, viewpoint (each its main parameter), a parameter such as "
-                    + "blur.motion or lighting.gamma, a kind followed by .all, or all (default: the five kinds).")
-    List<String> kinds;
-
     @Option(names = "--levels", paramLabel = "N", defaultValue = "8", description = "Levels per parameter, 2..32 (default: ${DEFAULT-VALUE}).")
     int levels;
 
@@ -82,27 +77,23 @@ final class SweepCommand implements Callable<Integer> {
             description = "Also measure KLT survival in every cell over a slow motion of N frames, 0..100 (default: ${DEFAULT-VALUE}, off; 4 to 8 is plenty).")
     int trackFrames;
 
-    @Option(names = "--envelope", paramLabel = "FILE", description = "Operating envelope: the harshest value of each parameter your cell will see (JSON).")
-    Path envelope;
-
-    @Option(names = "--seed", paramLabel = "S", defaultValue = "1", description = "Seed of every random choice (default: ${DEFAULT-VALUE}).")
-    long seed;
-
     @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output folder, written atomically.")
     Path out;
+
+    @Mixin ConditionOptions conditions;
 
     @Mixin DetectorOptions detectorOptions;
 
     @Override
     public Integer call() throws Exception {
-        SweepConfig cfg = config(detectorOptions, kinds, levels, views, seed);
+        SweepConfig cfg = config(detectorOptions, conditions.kinds, levels, views, conditions.seed);
         cfg.trackFrames = trackFrames;
         try {
             cfg.checkValidity();
         } catch (IllegalArgumentException e) {
             throw new UserError(e.getMessage().replace("trackFrames must", "--track-frames must"));
         }
-        Map<Perturbation, Double> env = envelope(envelope);
+        Map<Perturbation, Double> env = envelope(conditions.envelope);
         SweepBase base = base(cfg);
         try (AtomicOutput output = AtomicOutput.open(out); SweepJob job = new SweepJob()) {
             SweepResult r = new SweepRun(cfg).run(base, new ConsoleProgress("sweeping"), job::cancelled);
@@ -168,7 +159,7 @@ final class SweepCommand implements Callable<Integer> {
             else if (oldStandoffM != null) d = oldStandoffM;
             else d = SweepBase.defaultStandoff(design, cam);
             if (!(d > 0) || !Double.isFinite(d)) throw new UserError("--standoff-mm must be > 0 mm, got " + d * 1000);
-            return SweepBase.render(design, cam, DemoScenario.lighting(), d, views, seed);
+            return SweepBase.render(design, cam, DemoScenario.lighting(), d, views, conditions.seed);
         }
         if (camera.file != null || standoff.mm() != null || oldStandoffM != null)
             throw new UserError("--camera and --standoff-mm go with --target, not --frames");
