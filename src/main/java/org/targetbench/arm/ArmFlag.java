@@ -10,7 +10,7 @@ public enum ArmFlag {
     DAMPING_ACTIVE,
     /** Joint speeds were scaled down to their limits for more than half of the run. */
     SPEED_LIMITED_MOST,
-    /** The image error grew for several control periods in a row. */
+    /** The image error grew, against its value one oscillation cycle earlier, for several control periods in a row. */
     OSCILLATION,
     /** A point left the camera's view. */
     TARGET_LEFT_VIEW,

@@ -80,7 +80,8 @@ final class ArmLoop {
         double[] ref = s.referenceCameraInTarget();
         EnumSet<ArmFlag> flags = EnumSet.noneOf(ArmFlag.class);
         ArmOutcome outcome = ArmOutcome.TIMEOUT;
-        double initialErr = Double.NaN, err = Double.NaN, prevErr = Double.NaN;
+        double initialErr = Double.NaN, err = Double.NaN;
+        double[] errHistory = new double[2 * (2 * c.latencyFrames + 1) + 1];
         double minW = Double.POSITIVE_INFINITY, minWTime = 0, minMargin = Double.POSITIVE_INFINITY, peakRatio = 0;
         int minMarginJoint = 1, peakJoint = 1, damped = 0, scaled = 0, growth = 0, step = 0;
         double[] worst = q.clone();
@@ -123,10 +124,13 @@ final class ArmLoop {
                 outcome = ArmOutcome.CONVERGED;
                 break;
             }
-            if (step > 0 && err > prevErr) {
+            // oscillation: the error exceeds its value one oscillation cycle earlier (2(2d+1) periods, the cycle of the
+            // delayed loop at its stability bound, derived) for several periods in a row
+            int lag = errHistory.length - 1;
+            errHistory[step % errHistory.length] = err;
+            if (step >= lag && err > errHistory[(step - lag) % errHistory.length]) {
                 if (++growth >= c.oscillationPeriods) flags.add(ArmFlag.OSCILLATION);
             } else growth = 0;
-            prevErr = err;
             if (step >= maxSteps) break;
             if (Math.abs(cam[11]) > sc.retreatLimit * s.referenceDistanceM()) {
                 outcome = ArmOutcome.RETREATED;
