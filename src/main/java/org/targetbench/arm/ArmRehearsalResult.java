@@ -15,17 +15,21 @@ import java.util.Optional;
  * @param traces           the kept traces
  * @param warnings         plain-word warnings over all runs (rendered by {@link ArmWords})
  * @param advice           the gain advice, when asked for
+ * @param baseToTarget     the target's pose in the base frame, 4 x 4 row major (for drawings)
  */
 public record ArmRehearsalResult(ArmModel arm, HandEye handEye, HandEye handEyeBelieved, ArmRehearsalConfig config, double[] referenceJointsRad,
                                  String poseMethod, List<ArmRunResult> runs, List<ArmRunTrace> traces, List<String> warnings,
-                                 Optional<GainAdvice> advice) {
+                                 Optional<GainAdvice> advice, double[] baseToTarget) {
     public ArmRehearsalResult {
         config = config.copy();
         referenceJointsRad = referenceJointsRad.clone();
         runs = List.copyOf(runs);
         traces = List.copyOf(traces);
         warnings = List.copyOf(warnings);
+        baseToTarget = baseToTarget.clone();
     }
+
+    @Override public double[] baseToTarget() { return baseToTarget.clone(); }
 
     @Override public ArmRehearsalConfig config() { return config.copy(); }
     @Override public double[] referenceJointsRad() { return referenceJointsRad.clone(); }

@@ -111,6 +111,7 @@ final class DemoCommand implements Callable<Integer> {
                         .run(org.targetbench.pipeline.MotionScenarios.open(TRACK_MOTION), tw, new ConsoleProgress("tracking"), () -> false);
                 tw.finish(tracking);
             }
+            var armRehearsal = DemoArmStep.run(pick.set().orElseThrow(), setName, output);
             output.commit();
             Path target = output.target();
             ConsoleTable.print(result, w);
@@ -139,6 +140,7 @@ final class DemoCommand implements Callable<Integer> {
             w.println("Rehearsal:   " + target.resolve("rehearsal/rehearsal.html") + " (charts), rehearsal.csv, rehearsal-summary.json");
             w.println("Try:         targetbench rehearse --set " + target.resolve(setFiles.get(0)) + " --law current --envelope 20,20,20,5,5,170 --out results/what-if");
             TrackConsole.print(tracking, w);
+            DemoArmStep.print(armRehearsal, target, w);
             w.println();
             w.println("Safety: " + Safety.NOTICE);
             w.flush();
