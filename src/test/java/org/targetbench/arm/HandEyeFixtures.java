@@ -38,11 +38,15 @@ public final class HandEyeFixtures {
 
     /** {@code n} views with the given pixel noise; the target is the corner grid. */
     public static Views views(int n, double noisePx, long seed) {
+        return views(n, noisePx, seed, CX, CY, corners());
+    }
+
+    /** Views of a target whose corners (mm) are {@code mm} and whose centre is (cx, cy) metres. */
+    public static Views views(int n, double noisePx, long seed, double cx, double cy, List<double[]> mm) {
         SplittableRandom rng = new SplittableRandom(seed);
         double[] x = trueX();
         double[] baseToTarget = Rigid.trans(0.55, 0.05, 0.0);
-        double[] centre = {CX, CY, 0};
-        List<double[]> mm = corners();
+        double[] centre = {cx, cy, 0};
         List<double[]> fl = new ArrayList<>(), tc = new ArrayList<>(), truth = new ArrayList<>();
         List<String> names = new ArrayList<>();
         List<double[][]> pixels = new ArrayList<>();
