@@ -102,6 +102,39 @@ public final class ArmModel {
         return new ArmModel(name, origin, demo, f, ax, lowerRad, upperRad, maxSpeedRadS, rows, convention);
     }
 
+    /**
+     * One joint of a serial chain from base to tip, as a URDF describes it: origin (xyz metres; rpy radians, R = Rz(yaw)
+     * Ry(pitch) Rx(roll)) then, for a revolute joint, rotation about its axis.
+     */
+    public record ChainJoint(String name, boolean revolute, double[] xyz, double[] rpy, double[] axis, double lower, double upper, double velocity) {}
+
+    /** An arm from a chain with exactly 6 revolute joints; fixed joints fold into the transforms around them. */
+    public static ArmModel fromChain(String name, String origin, List<ChainJoint> chain) {
+        double[][] fixed = new double[JOINTS + 1][];
+        double[][] axes = new double[JOINTS][];
+        double[] lo = new double[JOINTS], hi = new double[JOINTS], sp = new double[JOINTS];
+        double[] acc = Rigid.identity();
+        int n = 0;
+        for (ChainJoint j : chain) {
+            double[] o = Rigid.fromXyzRpy(j.xyz(), j.rpy());
+            if (!j.revolute()) {
+                acc = Rigid.mul(acc, o);
+                continue;
+            }
+            if (n == JOINTS) throw new IllegalArgumentException("the chain has more than 6 revolute joints");
+            fixed[n] = Rigid.mul(acc, o);
+            acc = Rigid.identity();
+            axes[n] = j.axis().clone();
+            lo[n] = j.lower();
+            hi[n] = j.upper();
+            sp[n] = j.velocity();
+            n++;
+        }
+        if (n != JOINTS) throw new IllegalArgumentException("the chain has " + n + " revolute joints; 6 are needed");
+        fixed[JOINTS] = acc;
+        return new ArmModel(name, origin, false, fixed, axes, lo, hi, sp, null, null);
+    }
+
     public String name() { return name; }
     public String origin() { return origin; }
     public boolean isDemo() { return demo; }

@@ -13,8 +13,7 @@ import org.targetbench.pipeline.ArmRun;
 import org.targetbench.report.ArmReport;
 import org.targetbench.servo.RehearsalConfig;
 import org.targetbench.servo.ServoSet;
-import org.targetbench.source.ArmFiles;
-import org.targetbench.source.HandEyeFile;
+import org.targetbench.pipeline.ArmInputs;
 import org.targetbench.source.JointsFile;
 import org.targetbench.source.SourceException;
 
@@ -36,12 +35,13 @@ final class ArmSteps {
                    List<Double> handEyeError, boolean adviseGain) {}
 
     static Prepared prepare(ServoSet set, String setName, RehearsalConfig servo, Options o) throws SourceException {
-        ArmFiles.Loaded loaded = ArmFiles.read(o.arm(), o.tip());
+        if (o.tip() != null && o.arm().trim().equalsIgnoreCase("demo")) throw new UserError("--tip applies to a URDF arm, not the demo arm");
+        ArmInputs.Arm loaded = ArmInputs.arm(o.arm(), o.tip());
         HandEye he;
         if (o.handEye() == null) {
-            if (!loaded.arm().isDemo()) throw new UserError("--hand-eye FILE is needed with an arm other than the demo arm");
+            if (!loaded.model().isDemo()) throw new UserError("--hand-eye FILE is needed with an arm other than the demo arm");
             he = HandEye.demo();
-        } else he = o.handEye().equalsIgnoreCase("demo") ? HandEye.demo() : HandEyeFile.read(Path.of(o.handEye()));
+        } else he = ArmInputs.handEye(o.handEye());
         ArmRehearsalConfig c = new ArmRehearsalConfig();
         c.servo = servo.copy();
         if (o.periodMs() != null) {
@@ -68,12 +68,12 @@ final class ArmSteps {
         if (o.startJoints() != null) {
             starts = JointsFile.read(o.startJoints());
             try {
-                ArmRehearsal.checkStarts(loaded.arm(), starts);
+                ArmRehearsal.checkStarts(loaded.model(), starts);
             } catch (IllegalArgumentException e) {
                 throw new UserError(o.startJoints() + ": " + e.getMessage());
             }
         }
-        return new Prepared(set, setName, loaded.arm(), he, c, starts, o.adviseGain());
+        return new Prepared(set, setName, loaded.model(), he, c, starts, o.adviseGain());
     }
 
     /** Runs and writes the arm outputs under {@code prefix}. */

@@ -1,11 +1,6 @@
 package org.targetbench.source;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import org.targetbench.arm.ArmModel;
-import org.targetbench.arm.DemoArm;
-import org.targetbench.arm.DhConvention;
-import org.targetbench.arm.DhRow;
-import org.targetbench.arm.Rigid;
 import org.w3c.dom.Document;
 import org.w3c.dom.Element;
 import org.w3c.dom.NodeList;
@@ -27,25 +22,41 @@ import java.util.Locale;
 import java.util.Map;
 
 /**
- * Reads an arm: our {@code arm.json} (a DH table with limits, docs/formats.md) or a URDF file (the ROS robot
- * description format; the serial chain from the root link to a named tip link, revolute and fixed joints only).
- * The word {@code demo} names the invented {@link DemoArm}.
+ * Reads an arm description as plain data: our {@code arm.json} (a DH table with limits, docs/formats.md) or a URDF
+ * file (the ROS robot description format; the serial chain from the root link to a named tip link, revolute and
+ * fixed joints only). The arm model itself is built from this data by {@code pipeline.ArmInputs}.
  */
 public final class ArmFiles {
-    /** An arm and, when the file gives them, the joints of the reference view (radians, else null). */
-    public record Loaded(ArmModel arm, double[] referenceJointsRad) {}
+    /** What a file described. */
+    public sealed interface Loaded permits DhArm, UrdfArm {}
+
+    /**
+     * A DH table of 6 rows {a m, alpha rad, d m, theta offset rad}, limits in radians and rad/s, an optional tool
+     * transform (xyz m, rpy rad; null for none) and the reference joints (radians, null when not given).
+     */
+    public record DhArm(String name, String origin, String convention, double[][] rows, double[] lowerRad, double[] upperRad,
+                        double[] maxSpeedRadS, double[] toolXyz, double[] toolRpy, double[] referenceJointsRad) implements Loaded {}
+
+    /** One joint of a URDF chain, base to tip: revolute (with limits) or fixed; origin xyz (m) and rpy (rad), axis. */
+    public record UrdfJoint(String name, boolean revolute, double[] xyz, double[] rpy, double[] axis, double lower, double upper, double velocity) {}
+
+    /** A URDF serial chain from the root link to the tip with exactly 6 revolute joints. */
+    public record UrdfArm(String name, String origin, String tip, List<UrdfJoint> chain) implements Loaded {}
 
     private static final long MAX_BYTES = 8 << 20;
 
     private ArmFiles() {}
 
-    /** {@code demo}, a {@code .urdf}/{@code .xml} file (with {@code tip}, null = the chain's only leaf) or an arm.json. */
-    public static Loaded read(String spec, String tip) throws SourceException {
-        if (spec.trim().equalsIgnoreCase("demo")) return new Loaded(DemoArm.model(), DemoArm.rad(DemoArm.REFERENCE_DEG));
-        Path file = Path.of(spec);
+    /** As {@link #read(Path, String)} for a file named by a string. */
+    public static Loaded read(String file, String tip) throws SourceException {
+        return read(Path.of(file), tip);
+    }
+
+    /** A URDF file (XML, with {@code tip}, null = the chain's only leaf) or an arm.json, told apart by content. */
+    public static Loaded read(Path file, String tip) throws SourceException {
         if (!Files.isRegularFile(file)) throw new SourceException("arm file not found: " + file);
         String text = readText(file);
-        if (text.stripLeading().startsWith("<")) return new Loaded(urdf(text, file.toString(), tip), null);
+        if (text.stripLeading().startsWith("<")) return urdf(text, file.toString(), tip);
         if (tip != null) throw new SourceException("--tip applies to a URDF arm, but " + file + " is not XML");
         return armJson(file);
     }
@@ -66,33 +77,30 @@ public final class ArmFiles {
         JsonIn in = p.in();
         JsonNode root = p.root();
         String name = root.hasNonNull("name") ? root.get("name").asText() : file.getFileName().toString();
-        DhConvention conv;
-        try {
-            conv = DhConvention.parse(root.hasNonNull("convention") ? root.get("convention").asText() : "standard");
-        } catch (IllegalArgumentException e) {
-            throw in.error("convention", e.getMessage());
-        }
+        String conv = root.hasNonNull("convention") ? root.get("convention").asText().trim().toLowerCase(Locale.ROOT) : "standard";
+        if (!conv.equals("standard") && !conv.equals("modified")) throw in.error("convention", "must be standard or modified, got \"" + conv + "\"");
         JsonNode joints = root.get("joints");
         if (joints == null || !joints.isArray()) throw in.error("joints", "is missing (an array of 6 joints)");
-        if (joints.size() != ArmModel.JOINTS) throw in.error("joints", "has " + joints.size() + " joints; a DH arm needs exactly 6 revolute joints");
-        List<DhRow> rows = new ArrayList<>();
+        if (joints.size() != 6) throw in.error("joints", "has " + joints.size() + " joints; a DH arm needs exactly 6 revolute joints");
+        double[][] rows = new double[6][];
         double[] lo = new double[6], hi = new double[6], sp = new double[6];
         for (int i = 0; i < 6; i++) {
             JsonNode j = joints.get(i);
             String w = "joints[" + i + "]";
-            rows.add(new DhRow(in.number(j, "a_m", w), Math.toRadians(in.number(j, "alpha_deg", w)), in.number(j, "d_m", w),
-                    Math.toRadians(in.number(j, "theta_offset_deg", w, 0))));
+            rows[i] = new double[]{in.number(j, "a_m", w), Math.toRadians(in.number(j, "alpha_deg", w)), in.number(j, "d_m", w),
+                    Math.toRadians(in.number(j, "theta_offset_deg", w, 0))};
             lo[i] = Math.toRadians(in.number(j, "min_deg", w));
             hi[i] = Math.toRadians(in.number(j, "max_deg", w));
             sp[i] = Math.toRadians(in.number(j, "max_speed_deg_s", w));
             if (!(lo[i] < hi[i])) throw in.error(w, "needs min_deg < max_deg");
             if (!(sp[i] > 0)) throw in.error(w + ".max_speed_deg_s", "must be > 0");
         }
-        double[] tool = null;
+        double[] toolXyz = null, toolRpy = null;
         if (root.hasNonNull("tool")) {
             JsonNode t = root.get("tool");
-            double[] xyz = vec(in, t, "xyz_m", "tool"), rpy = vec(in, t, "rpy_deg", "tool");
-            tool = Rigid.fromXyzRpy(xyz, new double[]{Math.toRadians(rpy[0]), Math.toRadians(rpy[1]), Math.toRadians(rpy[2])});
+            toolXyz = vec(in, t, "xyz_m", "tool");
+            double[] rpy = vec(in, t, "rpy_deg", "tool");
+            toolRpy = new double[]{Math.toRadians(rpy[0]), Math.toRadians(rpy[1]), Math.toRadians(rpy[2])};
         }
         double[] ref = null;
         if (root.hasNonNull("reference_joints_deg")) {
@@ -100,9 +108,10 @@ public final class ArmFiles {
             ref = new double[6];
             for (int i = 0; i < 6; i++) ref[i] = Math.toRadians(d[i]);
         }
-        ArmModel arm = ArmModel.fromDh(name, file.toString(), false, conv, rows, tool, lo, hi, sp);
-        if (ref != null && !arm.withinLimits(ref)) throw in.error("reference_joints_deg", "lies outside the joint limits");
-        return new Loaded(arm, ref);
+        if (ref != null)
+            for (int i = 0; i < 6; i++)
+                if (ref[i] < lo[i] || ref[i] > hi[i]) throw in.error("reference_joints_deg", "joint " + (i + 1) + " lies outside its limits");
+        return new DhArm(name, file.toString(), conv, rows, lo, hi, sp, toolXyz, toolRpy, ref);
     }
 
     private static double[] vec(JsonIn in, JsonNode parent, String field, String where) throws SourceException {
@@ -123,7 +132,7 @@ public final class ArmFiles {
      * (xyz, rpy: R = Rz(yaw) Ry(pitch) Rx(roll)) and axis; fixed joints fold into the transforms around them. Exactly
      * 6 revolute joints with limits are accepted; prismatic, planar, floating and continuous joints are refused.
      */
-    public static ArmModel urdf(String xml, String origin, String tip) throws SourceException {
+    public static UrdfArm urdf(String xml, String origin, String tip) throws SourceException {
         Document doc;
         try {
             DocumentBuilderFactory f = DocumentBuilderFactory.newInstance();
@@ -167,29 +176,27 @@ public final class ArmFiles {
             cur = attr(child(j, "parent", origin), "link", origin);
             if (chain.size() > 1000) throw new SourceException("URDF " + origin + " has a loop in its joints");
         }
-        double[][] fixed = new double[7][];
-        double[][] axes = new double[6][];
-        double[] lo = new double[6], hi = new double[6], sp = new double[6];
-        double[] acc = Rigid.identity();
+        List<UrdfJoint> out = new ArrayList<>();
         int n = 0;
         for (Element j : chain) {
             String type = j.getAttribute("type"), name = j.getAttribute("name");
-            double[] o = originOf(j, origin, name);
+            Element o = firstChild(j, "origin");
+            double[] xyz = o != null && o.hasAttribute("xyz") ? triple(o.getAttribute("xyz"), origin, name + " origin xyz") : new double[3];
+            double[] rpy = o != null && o.hasAttribute("rpy") ? triple(o.getAttribute("rpy"), origin, name + " origin rpy") : new double[3];
             switch (type) {
-                case "fixed" -> acc = Rigid.mul(acc, o);
+                case "fixed" -> out.add(new UrdfJoint(name, false, xyz, rpy, null, 0, 0, 0));
                 case "revolute" -> {
                     if (n == 6) throw new SourceException("URDF " + origin + ": the chain to \"" + tipLink + "\" has more than 6 revolute joints; TargetBench models 6-axis arms");
-                    fixed[n] = Rigid.mul(acc, o);
-                    acc = Rigid.identity();
                     Element ax = firstChild(j, "axis");
-                    axes[n] = ax == null ? new double[]{1, 0, 0} : triple(ax.getAttribute("xyz"), origin, name + " axis");
+                    double[] axis = ax == null ? new double[]{1, 0, 0} : triple(ax.getAttribute("xyz"), origin, name + " axis");
+                    if (Math.sqrt(axis[0] * axis[0] + axis[1] * axis[1] + axis[2] * axis[2]) < 1e-9)
+                        throw new SourceException("URDF " + origin + ": joint \"" + name + "\" has a zero axis");
                     Element lim = firstChild(j, "limit");
                     if (lim == null) throw new SourceException("URDF " + origin + ": revolute joint \"" + name + "\" has no <limit>");
-                    lo[n] = num(lim, "lower", 0, origin, name);
-                    hi[n] = num(lim, "upper", 0, origin, name);
-                    sp[n] = num(lim, "velocity", Double.NaN, origin, name);
-                    if (!(lo[n] < hi[n])) throw new SourceException("URDF " + origin + ": joint \"" + name + "\" needs lower < upper, got " + lo[n] + ", " + hi[n]);
-                    if (!(sp[n] > 0)) throw new SourceException("URDF " + origin + ": joint \"" + name + "\" needs a velocity limit > 0");
+                    double lo = num(lim, "lower", 0, origin, name), hi = num(lim, "upper", 0, origin, name), sp = num(lim, "velocity", Double.NaN, origin, name);
+                    if (!(lo < hi)) throw new SourceException("URDF " + origin + ": joint \"" + name + "\" needs lower < upper, got " + lo + ", " + hi);
+                    if (!(sp > 0)) throw new SourceException("URDF " + origin + ": joint \"" + name + "\" needs a velocity limit > 0");
+                    out.add(new UrdfJoint(name, true, xyz, rpy, axis, lo, hi, sp));
                     n++;
                 }
                 case "continuous" -> throw new SourceException("URDF " + origin + ": joint \"" + name + "\" is continuous (no position limits); "
@@ -200,21 +207,8 @@ public final class ArmFiles {
         }
         if (n != 6) throw new SourceException("URDF " + origin + ": the chain from \"" + cur + "\" to \"" + tipLink + "\" has " + n
                 + " revolute joints; TargetBench needs exactly 6");
-        fixed[6] = acc;
         String name = robot.getAttribute("name");
-        try {
-            return new ArmModel(name.isEmpty() ? origin : name, origin, false, fixed, axes, lo, hi, sp, null, null);
-        } catch (IllegalArgumentException e) {
-            throw new SourceException("URDF " + origin + ": " + e.getMessage());
-        }
-    }
-
-    private static double[] originOf(Element j, String origin, String name) throws SourceException {
-        Element o = firstChild(j, "origin");
-        if (o == null) return Rigid.identity();
-        double[] xyz = o.hasAttribute("xyz") ? triple(o.getAttribute("xyz"), origin, name + " origin xyz") : new double[3];
-        double[] rpy = o.hasAttribute("rpy") ? triple(o.getAttribute("rpy"), origin, name + " origin rpy") : new double[3];
-        return Rigid.fromXyzRpy(xyz, rpy);
+        return new UrdfArm(name.isEmpty() ? origin : name, origin, tipLink, out);
     }
 
     private static double[] triple(String s, String origin, String what) throws SourceException {

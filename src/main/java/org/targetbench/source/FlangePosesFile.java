@@ -1,7 +1,5 @@
 package org.targetbench.source;
 
-import org.targetbench.arm.Rigid;
-
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
@@ -14,7 +12,7 @@ import java.util.Map;
 /**
  * Reads the flange-pose CSV of the hand-eye step: one row per view, the flange pose in the robot base frame, with
  * columns {@code frame,x_m,y_m,z_m,rx,ry,rz} (rotation vector, radians: axis times angle) or
- * {@code frame,x_m,y_m,z_m,qw,qx,qy,qz} (unit quaternion). Returns frame name to 4 x 4 pose, in file order.
+ * {@code frame,x_m,y_m,z_m,qw,qx,qy,qz} (unit quaternion). Returns frame name to 4 x 4 row-major pose, in file order.
  */
 public final class FlangePosesFile {
     /** A quaternion's norm may differ from 1 by this before it is refused. */
@@ -53,19 +51,31 @@ public final class FlangePosesFile {
                 if (!Double.isFinite(v[i - 1])) throw new SourceException(file + " line " + (n + 1) + ": " + head.get(i) + " must be finite");
             }
             double[] m;
-            if (rotvec) m = Rigid.fromRotationVector(v[3], v[4], v[5]);
+            if (rotvec) m = rotationVector(v[3], v[4], v[5]);
             else {
                 double w = v[3], x = v[4], y = v[5], z = v[6], norm = Math.sqrt(w * w + x * x + y * y + z * z);
                 if (Math.abs(norm - 1) > QUATERNION_TOL) throw new SourceException(file + " line " + (n + 1) + ": the quaternion's norm is " + norm + ", not 1");
                 w /= norm; x /= norm; y /= norm; z /= norm;
-                m = Rigid.of(new double[]{1 - 2 * (y * y + z * z), 2 * (x * y - w * z), 2 * (x * z + w * y),
-                        2 * (x * y + w * z), 1 - 2 * (x * x + z * z), 2 * (y * z - w * x),
-                        2 * (x * z - w * y), 2 * (y * z + w * x), 1 - 2 * (x * x + y * y)}, new double[3]);
+                m = new double[]{1 - 2 * (y * y + z * z), 2 * (x * y - w * z), 2 * (x * z + w * y), 0,
+                        2 * (x * y + w * z), 1 - 2 * (x * x + z * z), 2 * (y * z - w * x), 0,
+                        2 * (x * z - w * y), 2 * (y * z + w * x), 1 - 2 * (x * x + y * y), 0, 0, 0, 0, 1};
             }
             m[3] = v[0]; m[7] = v[1]; m[11] = v[2];
             String frame = c.get(0).trim();
             if (out.put(frame, m) != null) throw new SourceException(file + " line " + (n + 1) + ": frame \"" + frame + "\" appears twice");
         }
         return out;
+    }
+
+    /** Rodrigues' formula: rotation vector (radians) to a 4 x 4 row-major transform without translation. */
+    static double[] rotationVector(double rx, double ry, double rz) {
+        double a = Math.sqrt(rx * rx + ry * ry + rz * rz);
+        double[] m = {1, 0, 0, 0, 0, 1, 0, 0, 0, 0, 1, 0, 0, 0, 0, 1};
+        if (a == 0) return m;
+        double x = rx / a, y = ry / a, z = rz / a, c = Math.cos(a), s = Math.sin(a), v = 1 - c;
+        m[0] = c + x * x * v; m[1] = x * y * v - z * s; m[2] = x * z * v + y * s;
+        m[4] = y * x * v + z * s; m[5] = c + y * y * v; m[6] = y * z * v - x * s;
+        m[8] = z * x * v - y * s; m[9] = z * y * v + x * s; m[10] = c + z * z * v;
+        return m;
     }
 }

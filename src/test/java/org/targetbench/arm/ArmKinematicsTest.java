@@ -4,6 +4,7 @@ import org.ejml.data.DMatrixRMaj;
 import org.junit.jupiter.api.Test;
 import org.targetbench.source.ArmFiles;
 import org.targetbench.source.SourceException;
+import org.targetbench.pipeline.ArmInputs;
 
 import java.io.IOException;
 import java.io.InputStream;
@@ -133,7 +134,7 @@ class ArmKinematicsTest {
     @Test
     void urdfOfTheDemoArmAgreesWithItsDhTable() throws SourceException {
         ArmModel dh = DemoArm.model();
-        ArmModel urdf = ArmFiles.urdf(DemoArm.urdf(), "demo.urdf", "flange");
+        ArmModel urdf = ArmInputs.arm(ArmFiles.urdf(DemoArm.urdf(), "demo.urdf", "flange")).model();
         SplittableRandom rng = new SplittableRandom(3);
         for (int n = 0; n < 20; n++) {
             double[] q = new double[6];
