@@ -75,17 +75,15 @@ final class ArmRehearsePanel extends JPanel {
         top.setLayout(new BoxLayout(top, BoxLayout.Y_AXIS));
         top.add(Ui.row(run, new JLabel("Arm"), armChoice, armFile, new JLabel("Tip"), tip, he, handEyeFile));
         top.add(Ui.row(new JLabel("Latency, periods"), latency, new JLabel("Period, ms"), period, new JLabel("Starts"), starts, sweep));
-        JLabel safety = new JLabel("<html><b>Not modelled:</b> " + ArmWords.NOT_MODELLED + "<br><b>Safety:</b> " + Safety.NOTICE + "</html>");
+        JLabel safety = new JLabel("<html><body style='width:640px'><b>Not modelled:</b> " + ArmWords.NOT_MODELLED + "<br><b>Safety:</b> "
+                + Safety.NOTICE + "</body></html>");
         safety.setName("arm.safety");
-        safety.setPreferredSize(new Dimension(900, 90));
-        top.add(safety);
-        add(top, BorderLayout.NORTH);
-        JPanel left = new JPanel(new BorderLayout());
+        top.add(Ui.row(safety));
         JScrollPane sp = new JScrollPane(Ui.named(new JTable(table), "arm.table", null));
-        sp.setPreferredSize(new Dimension(520, 220));
-        left.add(sp, BorderLayout.CENTER);
-        left.add(notes, BorderLayout.SOUTH);
-        add(left, BorderLayout.WEST);
+        sp.setPreferredSize(new Dimension(700, 140));
+        top.add(sp);
+        top.add(Ui.row(notes));
+        add(top, BorderLayout.NORTH);
         charts.setLayout(new BoxLayout(charts, BoxLayout.Y_AXIS));
         add(new JScrollPane(charts), BorderLayout.CENTER);
     }

@@ -154,6 +154,42 @@ class ArmRehearsalTest {
     }
 
     @Test
+    void anOvershootIntoAJointLimitEndsTheRunAndIsFlagged() throws InterruptedException {
+        // one period of latency at g = 0.9 overshoots (derived from e[k+1] = e[k] - g e[k-1]); joint 6 may go 1 deg past its reference
+        ServoSet set = set();
+        double[] upper = DemoArm.UPPER_DEG.clone();
+        upper[5] = 1;
+        ArmModel arm = ArmModel.fromDh("tight wrist", "test", false, DhConvention.STANDARD, DemoArm.DH, null, DemoArm.rad(DemoArm.LOWER_DEG),
+                DemoArm.rad(upper), DemoArm.rad(DemoArm.MAX_SPEED_DEG_S));
+        HandEye onAxis = new HandEye(new double[]{1, 0, 0, 0, 1, 0, 0, 0, 1}, new double[]{0, 0, 0.04}, List.of(), "on-axis test mount");
+        ArmRehearsalConfig c = config(90, 0.01);
+        c.latencyFrames = 1;
+        c.servo.law = ControlLaw.CURRENT;
+        c.referenceJointsRad = DemoArm.rad(DemoArm.REFERENCE_DEG);
+        double[] start = DemoArm.rad(new double[]{0, 10, 20, 0, 60, -10});
+        ArmRunResult run = ArmRehearsal.run(set, arm, onAxis, c, List.of(start)).runs().get(0);
+        assertEquals(ArmOutcome.JOINT_LIMIT, run.outcome());
+        assertTrue(run.flags().contains(ArmFlag.JOINT_LIMIT_REACHED));
+        assertEquals(0, run.minLimitMarginDeg(), 1e-12);
+    }
+
+    @Test
+    void injectedHandEyeErrorIsReportedAndTheServoStillConverges() throws InterruptedException {
+        // common practice, no source: image-based servoing tolerates a few degrees of hand-eye error
+        ArmRehearsalConfig c = config(1.0, 0.01);
+        c.handEyeErrorDeg = new double[]{0, 3, 0};
+        c.handEyeErrorMm = new double[]{5, 0, 0};
+        c.servo.convergedPx = 0.5;
+        ServoSet set = set();
+        ArmModel arm = DemoArm.model();
+        double[] q0 = startFor(set, arm, HandEye.demo(), c, new RunResult.StartOffset(10, -5, 8, 2, -3, 8));
+        ArmRehearsalResult r = ArmRehearsal.run(set, arm, HandEye.demo(), c, List.of(q0));
+        assertEquals(ArmOutcome.CONVERGED, r.runs().get(0).outcome());
+        assertTrue(Rigid.angleBetween(r.handEye().transform(), r.handEyeBelieved().transform()) > Math.toRadians(2.9));
+        assertTrue(r.warnings().stream().anyMatch(w -> w.contains("hand-eye transform off by 3.00 deg and 5.0 mm")), r.warnings().toString());
+    }
+
+    @Test
     void startOutsideTheLimitsIsRefused() {
         ServoSet set = set();
         double[] start = DemoArm.rad(new double[]{175, 10, 20, 0, 60, 0});

@@ -57,6 +57,12 @@ class ArmCliTest {
             assertTrue(Files.isRegularFile(out.resolve(f)), f);
         String html = Files.readString(out.resolve("arm-rehearsal.html"));
         assertTrue(html.contains("invented demo arm") && html.contains("ISO 10218") && html.contains("no collisions"));
+        // the arm.json and handeye.json it wrote read back as the same cell
+        Path again = tmp.resolve("demo-arm-again");
+        Cli.Result r2 = Cli.run("rehearse", "--set", set.toString(), "--arm", out.resolve("arm.json").toString(), "--hand-eye",
+                out.resolve("handeye.json").toString(), "--starts", "4", "--latency-frames", "1", "--out", again.toString());
+        assertEquals(0, r2.exit(), r2.err());
+        assertEquals(Files.readString(out.resolve("arm-rehearsal.csv")), Files.readString(again.resolve("arm-rehearsal.csv")));
     }
 
     @Test
