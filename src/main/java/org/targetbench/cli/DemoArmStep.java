@@ -11,7 +11,7 @@ import java.nio.file.Path;
 /** The demo's last step: the servo set rehearsed on the invented demo arm, with one period of image latency and the gain sweep. */
 final class DemoArmStep {
     /** Starts on the arm in the demo: few, so the gain sweep stays quick. */
-    static final int STARTS = 24;
+    static final int STARTS = 12;
     static final int LATENCY_FRAMES = 1;
 
     private DemoArmStep() {}
