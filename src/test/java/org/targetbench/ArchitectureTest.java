@@ -43,6 +43,7 @@ class ArchitectureTest {
             List.of("score"),
             List.of("select"),
             List.of("servo"),
+            List.of("arm"),
             List.of("pipeline"),
             List.of("formats", "export", "report"),
             List.of("cli", "app"));
@@ -58,7 +59,7 @@ class ArchitectureTest {
     private static final Path MAIN = Path.of("src/main/java/org/targetbench");
 
     @ParameterizedTest
-    @ValueSource(strings = {"target", "camera", "perturb", "detect", "track", "score", "select", "servo", "pipeline"})
+    @ValueSource(strings = {"target", "camera", "perturb", "detect", "track", "score", "select", "servo", "arm", "pipeline"})
     void algorithmPackagesTouchNoScreensOrFiles(String pkg) throws IOException {
         Path dir = MAIN.resolve(pkg);
         assertTrue(Files.isDirectory(dir), "package " + pkg + " is missing");

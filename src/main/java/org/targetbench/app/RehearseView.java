@@ -64,7 +64,7 @@ final class RehearseView extends JPanel implements Session.Listener {
         left.add(sp, BorderLayout.CENTER);
         left.add(warnings, BorderLayout.SOUTH);
         add(left, BorderLayout.WEST);
-        add(new JScrollPane(charts), BorderLayout.CENTER);
+        add(ArmRehearsePanel.tabs(new JScrollPane(charts), new ArmRehearsePanel(ctx, () -> (Double) lambda.getValue())), BorderLayout.CENTER);
         session.addListener(this);
     }
 

@@ -76,6 +76,13 @@ public final class Calibration {
 
     public Board board() { return board; }
 
+    /** The board's inner corners in {@link #detect} order, in the detector's planar board frame, millimetres {x, y}. */
+    public List<double[]> layoutMm() {
+        List<double[]> out = new ArrayList<>();
+        for (var p : detector.getLayout()) out.add(new double[]{p.x, p.y});
+        return out;
+    }
+
     /**
      * The inner corners of the board in one frame, {u0, v0, u1, v1, ...} in board order and in the pixel-centre
      * convention; empty when the board is not found whole.

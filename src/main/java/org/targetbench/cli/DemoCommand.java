@@ -96,6 +96,7 @@ final class DemoCommand implements Callable<Integer> {
             RehearsalResult rehearsal = demo.rehearsal();
             ServoSteps.writeRehearsal(rehearsal, pick.set().get(), setName, demo.rehearsalSeconds(), output, "rehearsal/");
             org.targetbench.pipeline.TrackResult tracking = demo.tracking();
+            var armRehearsal = DemoArmStep.run(pick.set().orElseThrow(), setName, output);
             output.commit();
             Path target = output.target();
             ConsoleTable.print(result, w);
@@ -124,6 +125,7 @@ final class DemoCommand implements Callable<Integer> {
             w.println("Rehearsal:   " + target.resolve("rehearsal/rehearsal.html") + " (charts), rehearsal.csv, rehearsal-summary.json");
             w.println("Try:         targetbench rehearse --set " + target.resolve(setFiles.get(0)) + " --law current --envelope 20,20,20,5,5,170 --out results/what-if");
             TrackConsole.print(tracking, w);
+            DemoArmStep.print(armRehearsal, target, w);
             w.println();
             w.println("Safety: " + Safety.NOTICE);
             w.flush();

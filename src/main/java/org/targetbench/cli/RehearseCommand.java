@@ -73,11 +73,40 @@ final class RehearseCommand implements Callable<Integer> {
         return now;
     }
 
+    @Option(names = "--arm", paramLabel = "demo|ARM.json|ROBOT.urdf", description = "Rehearse on a six-axis arm with the camera on its flange: "
+            + "the invented demo arm, an arm.json (DH) or a URDF file. Without it the camera flies free.")
+    String arm;
+
+    @Option(names = "--tip", paramLabel = "LINK", description = "URDF link that carries the camera mount (default: the chain's only leaf).")
+    String tip;
+
+    @Option(names = "--hand-eye", paramLabel = "FILE|demo", description = "handeye.json: the camera pose in the flange frame (demo: the demo mount, default with the demo arm).")
+    String handEye;
+
+    @Option(names = "--start-joints", paramLabel = "FILE", description = "CSV of start joints, six angles in degrees per row (default: starts drawn from --envelope).")
+    Path startJoints;
+
+    @Option(names = "--reference-joints", paramLabel = "Q1,..,Q6", split = ",", description = "Joints where the reference view was taught, degrees (default: from arm.json, or the demo arm's).")
+    List<Double> referenceJoints;
+
+    @Option(names = "--latency-frames", paramLabel = "N", defaultValue = "0", description = "The image used by the law is N controller periods old (default: ${DEFAULT-VALUE}).")
+    int latencyFrames;
+
+    @Option(names = "--period-ms", paramLabel = "T", description = "Controller period, milliseconds (with --arm; default: --dt).")
+    Double periodMs;
+
+    @Option(names = "--hand-eye-error", paramLabel = "RX,RY,RZ,TX,TY,TZ", split = ",", description = "Hand-eye error the controller believes: rotation vector, degrees, and translation, mm.")
+    List<Double> handEyeError;
+
+    @Option(names = "--gain-sweep", description = "With --arm: sweep the gain and report the largest that converges from every start without oscillation.")
+    boolean gainSweep;
+
     @Override
     public Integer call() throws Exception {
         RehearsalConfig c = config();
         ServoSet s = ServoSetReader.read(set);
         ServoSteps.checkSet(s, set.toString());
+        if (arm != null) return callArm(c, s);
         RehearsalResult r;
         try (AtomicOutput output = AtomicOutput.open(out)) {
             r = ServoSteps.rehearse(s, set.toString(), c, output, "");
@@ -87,6 +116,23 @@ final class RehearseCommand implements Callable<Integer> {
         ServoSteps.printRehearsal(r, set.toString(), w);
         w.println();
         w.println("Written to " + out.toAbsolutePath().normalize() + ": rehearsal.csv, rehearsal-summary.json, rehearsal.html and 3 charts");
+        w.println("Safety: " + Safety.NOTICE);
+        w.flush();
+        return 0;
+    }
+
+    private int callArm(RehearsalConfig c, ServoSet s) throws Exception {
+        ArmSteps.Prepared p = ArmSteps.prepare(s, set.toString(), c, new ArmSteps.Options(arm, tip, handEye, startJoints, referenceJoints,
+                latencyFrames, periodMs, handEyeError, gainSweep));
+        org.targetbench.arm.ArmRehearsalResult r;
+        try (AtomicOutput output = AtomicOutput.open(out)) {
+            r = ArmSteps.run(p, output, "");
+            output.commit();
+        }
+        PrintWriter w = spec.commandLine().getOut();
+        ArmSteps.print(r, w);
+        w.println();
+        w.println("Written to " + out.toAbsolutePath().normalize() + ": arm-rehearsal.html, arm-rehearsal.csv, arm-rehearsal-summary.json, handeye.json and 4 images");
         w.println("Safety: " + Safety.NOTICE);
         w.flush();
         return 0;

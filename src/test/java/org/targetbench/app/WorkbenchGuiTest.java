@@ -218,6 +218,14 @@ class WorkbenchGuiTest {
         waitFor("rehearsed", () -> workbench.session().rehearsal() != null);
         pause(300);
         shot("rehearse");
+        // the same set on the demo arm, with one period of latency
+        window.tabbedPane("rehearse.tabs").selectTab("On the arm");
+        window.spinner("arm.starts").enterTextAndCommit("4");
+        window.button("arm.run").click();
+        waitFor("rehearsed on the arm", () -> GuiActionRunner.execute(() -> window.table("arm.table").target().getRowCount()) == 4);
+        window.label("arm.safety").requireText(java.util.regex.Pattern.compile(".*no collisions.*ISO 10218.*", java.util.regex.Pattern.DOTALL));
+        shot("rehearse-arm");
+        window.tabbedPane("rehearse.tabs").selectTab("Free-flying camera");
 
         window.list("nav").selectItem("Export");
         shot("export");

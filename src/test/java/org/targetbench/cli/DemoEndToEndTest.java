@@ -33,6 +33,7 @@ class DemoEndToEndTest {
                 "frames/truth.json", "frames/frame_000.png", "frames/frame_011.png", "overlays/frame_000_all.png", "overlays/frame_000_shi-tomasi.png",
                 "tracking/tracks.csv", "tracking/survival.csv", "tracking/drift.csv", "tracking/summary.json"))
             assertTrue(Files.isRegularFile(demo.resolve(f)), "missing " + f);
+        assertTrue(Files.isRegularFile(demo.resolve("arm/arm-rehearsal.html")), "the demo ends with a rehearsal on the demo arm");
         JsonNode summary = new ObjectMapper().readTree(demo.resolve("summary.json").toFile());
         assertEquals(5, summary.get("ranking").size());
         assertEquals(11, summary.get("frames_with_homography").asInt());
