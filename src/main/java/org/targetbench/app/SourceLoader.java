@@ -36,13 +36,6 @@ final class SourceLoader {
         }
     }
 
-    /** A short clip from a camera, {@code frames} frames long. */
-    static Loaded camera(int index, int frames) throws SourceException {
-        try (FrameSource s = org.targetbench.source.Webcams.open(index, org.targetbench.source.Webcams.DISCOVERY_TIMEOUT)) {
-            return read("camera " + index + " clip", s, Optional.empty(), frames);
-        }
-    }
-
     static Loaded folder(Path dir) throws SourceException {
         try (FrameSource s = ImageFolderSource.open(dir, null)) {
             return read(dir.getFileName() + " (" + dir + ")", s, Optional.empty());
