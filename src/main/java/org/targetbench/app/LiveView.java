@@ -69,7 +69,7 @@ final class LiveView extends JPanel implements Session.Listener {
         top.add(Ui.row(reopen, 
                 Ui.button("src.demo", "Demo scene", "Load the built-in scene: a checkerboard on the fixture plate seen from twelve arm positions", this::loadDemo),
                 Ui.button("src.folder", "Open frame folder...", "Load a folder of PNG/JPEG frames (with truth.json if present)", this::chooseFolder),
-                Ui.button("src.video", "Open video...", "Load an MP4, AVI or MJPEG video (with NAME.truth.json if present)", this::chooseVideo),
+                Ui.button("src.video", "Open video...", "Load a video: MP4, MOV, MKV, WebM, AVI or MJPEG (with NAME.truth.json if present)", this::chooseVideo),
                 Ui.button("src.camera", "Camera...", "Show a connected camera live", this::camera)),
                 BorderLayout.WEST);
         add(top, BorderLayout.NORTH);
@@ -165,7 +165,7 @@ final class LiveView extends JPanel implements Session.Listener {
 
     private void chooseVideo() {
         JFileChooser fc = new JFileChooser(ctx.prefs().get("lastVideoFolder", System.getProperty("user.dir")));
-        fc.setFileFilter(new javax.swing.filechooser.FileNameExtensionFilter("Videos (MP4, AVI, MJPEG)", "mp4", "mov", "m4v", "avi", "mjpeg", "mjpg"));
+        fc.setFileFilter(new javax.swing.filechooser.FileNameExtensionFilter("Videos (MP4, MOV, MKV, WebM, AVI, MJPEG)", "mp4", "mov", "m4v", "mkv", "webm", "avi", "mjpeg", "mjpg"));
         if (fc.showOpenDialog(ctx.window()) != JFileChooser.APPROVE_OPTION) return;
         Path f = fc.getSelectedFile().toPath();
         ctx.prefs().put("lastVideoFolder", String.valueOf(f.getParent()));

@@ -29,7 +29,7 @@ final class SourceLoader {
         }
     }
 
-    /** A video file (MP4, AVI, MJPEG), with its NAME.truth.json when present. */
+    /** A video file (any FFmpeg reads, or raw MJPEG), with its NAME.truth.json when present. */
     static Loaded video(Path file) throws SourceException {
         try (FrameSource s = org.targetbench.cli.SourceSpec.open(file.toString(), null)) {
             return read(file.getFileName().toString(), s, Optional.empty());
