@@ -46,7 +46,8 @@ public final class FfmpegSource implements FrameSource {
     private final long[] times;
     /** True when the packets lack distinct presentation times: pictures are then placed in decoding order. */
     private final boolean sequential;
-    private final int width, height;
+    /** Size of the first decoded picture (the display size after the stream's cropping); every frame must have it. */
+    private int width = -1, height = -1;
     private final String codec;
     private final TruthFile.Truth truth;
     private SourceFrame pending;
@@ -55,7 +56,7 @@ public final class FfmpegSource implements FrameSource {
     private int skipped;
     private boolean closed;
 
-    private FfmpegSource(Path file, FFmpegFrameGrabber grabber, long[] times, String codec, int width, int height, TruthFile.Truth truth) {
+    private FfmpegSource(Path file, FFmpegFrameGrabber grabber, long[] times, String codec, TruthFile.Truth truth) {
         this.file = file;
         this.grabber = grabber;
         this.times = times;
@@ -63,8 +64,6 @@ public final class FfmpegSource implements FrameSource {
         for (int i = 1; i < times.length && !seq; i++) seq = times[i] == times[i - 1];
         this.sequential = seq;
         this.codec = codec;
-        this.width = width;
-        this.height = height;
         this.truth = truth;
     }
 
@@ -95,7 +94,7 @@ public final class FfmpegSource implements FrameSource {
             String decoder = preferredDecoder(p.codec());
             if (decoder != null) g.setVideoCodecName(decoder);
             g.start();
-            s = new FfmpegSource(file, g, p.times(), p.codec(), p.width(), p.height(), VideoFrames.truth(file, truthFile, p.times().length));
+            s = new FfmpegSource(file, g, p.times(), p.codec(), VideoFrames.truth(file, truthFile, p.times().length));
             s.pending = s.decode();
             if (s.pending == null)
                 throw new SourceException("corrupt video " + file + ": none of its " + p.times().length + " " + p.codec() + " frames can be decoded");
@@ -213,6 +212,10 @@ public final class FfmpegSource implements FrameSource {
                 continue;
             }
             lastIndex = index;
+            if (width < 0) {
+                width = img.width;
+                height = img.height;
+            }
             if (img.width != width || img.height != height) continue; // counted as skipped by the gap it leaves
             String name = VideoFrames.name(index);
             return new SourceFrame(index, name, img, truth.forFrame(name));
