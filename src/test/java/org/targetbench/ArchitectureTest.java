@@ -52,7 +52,7 @@ class ArchitectureTest {
     private static final Pattern OWN = Pattern.compile("\\borg\\.targetbench\\.([a-z][a-z0-9]*)\\.");
     /** Imports an algorithm package may not use: Swing, AWT (windows and images), image I/O and file I/O. */
     private static final Pattern FORBIDDEN = Pattern.compile(
-            "^import\\s+(static\\s+)?(javax\\.swing|java\\.awt|javax\\.imageio|java\\.io\\.File|java\\.io\\.(Buffered)?(Reader|Writer|InputStream|OutputStream)|java\\.io\\.FileInputStream|java\\.nio\\.file|java\\.nio\\.channels|com\\.github\\.sarxos|org\\.jcodec|org\\.apache\\.pdfbox)",
+            "^import\\s+(static\\s+)?(javax\\.swing|java\\.awt|javax\\.imageio|java\\.io\\.File|java\\.io\\.(Buffered)?(Reader|Writer|InputStream|OutputStream)|java\\.io\\.FileInputStream|java\\.nio\\.file|java\\.nio\\.channels|com\\.github\\.sarxos|org\\.jcodec|org\\.bytedeco|org\\.apache\\.pdfbox)",
             Pattern.MULTILINE);
     /** Fully qualified uses that would dodge the import check. */
     private static final Pattern FORBIDDEN_INLINE = Pattern.compile("\\b(javax\\.swing|java\\.awt|javax\\.imageio|java\\.nio\\.file)\\.");

@@ -69,8 +69,8 @@ final class LiveView extends JPanel implements Session.Listener {
         top.add(Ui.row(reopen, 
                 Ui.button("src.demo", "Demo scene", "Load the built-in scene: a checkerboard on the fixture plate seen from twelve arm positions", this::loadDemo),
                 Ui.button("src.folder", "Open frame folder...", "Load a folder of PNG/JPEG frames (with truth.json if present)", this::chooseFolder),
-                Ui.button("src.video", "Open video...", "Load an MP4, AVI or MJPEG video (with NAME.truth.json if present)", this::chooseVideo),
-                Ui.button("src.camera", "Camera...", "Capture a short clip from a connected camera", this::camera)),
+                Ui.button("src.video", "Open video...", "Load a video: MP4, MOV, MKV, WebM, AVI or MJPEG (with NAME.truth.json if present)", this::chooseVideo),
+                Ui.button("src.camera", "Camera...", "Show a connected camera live", this::camera)),
                 BorderLayout.WEST);
         add(top, BorderLayout.NORTH);
 
@@ -163,12 +163,9 @@ final class LiveView extends JPanel implements Session.Listener {
         reopen.setVisible(true);
     }
 
-    /** Frames captured by "Camera...": 3 s at 30 frames/s. */
-    static final int CAMERA_CLIP_FRAMES = 90;
-
     private void chooseVideo() {
         JFileChooser fc = new JFileChooser(ctx.prefs().get("lastVideoFolder", System.getProperty("user.dir")));
-        fc.setFileFilter(new javax.swing.filechooser.FileNameExtensionFilter("Videos (MP4, AVI, MJPEG)", "mp4", "mov", "m4v", "avi", "mjpeg", "mjpg"));
+        fc.setFileFilter(new javax.swing.filechooser.FileNameExtensionFilter("Videos (MP4, MOV, MKV, WebM, AVI, MJPEG)", "mp4", "mov", "m4v", "mkv", "webm", "avi", "mjpeg", "mjpg"));
         if (fc.showOpenDialog(ctx.window()) != JFileChooser.APPROVE_OPTION) return;
         Path f = fc.getSelectedFile().toPath();
         ctx.prefs().put("lastVideoFolder", String.valueOf(f.getParent()));
@@ -178,6 +175,11 @@ final class LiveView extends JPanel implements Session.Listener {
     void loadVideo(Path f) {
         load(f.getFileName().toString(), () -> SourceLoader.video(f));
     }
+
+    private java.util.function.Consumer<org.targetbench.source.Webcams.Discovery> camerasFound;
+
+    /** Where "Camera..." hands the cameras it found (the camera view, which shows them live). */
+    void onCamerasFound(java.util.function.Consumer<org.targetbench.source.Webcams.Discovery> c) { camerasFound = c; }
 
     /** Looks for cameras off the event-dispatch thread; says plainly when there is none. */
     void camera() {
@@ -195,12 +197,7 @@ final class LiveView extends JPanel implements Session.Listener {
                                 + ".\nEverything else works on the demo scene, frame folders and videos.", "Camera", javax.swing.JOptionPane.INFORMATION_MESSAGE);
                         return;
                     }
-                    Object[] names = d.cameras().stream().map(c -> c.index() + ": " + c.name()).toArray();
-                    Object pick = javax.swing.JOptionPane.showInputDialog(ctx.window(), "Capture " + CAMERA_CLIP_FRAMES + " frames from:", "Camera",
-                            javax.swing.JOptionPane.QUESTION_MESSAGE, null, names, names[0]);
-                    if (pick == null) return;
-                    int index = Integer.parseInt(pick.toString().split(":")[0]);
-                    load("camera " + index, () -> SourceLoader.camera(index, CAMERA_CLIP_FRAMES));
+                    if (camerasFound != null) camerasFound.accept(d);
                 } catch (Exception e) {
                     ctx.status().accept("Camera: " + e.getMessage());
                 }

@@ -29,17 +29,10 @@ final class SourceLoader {
         }
     }
 
-    /** A video file (MP4, AVI, MJPEG), with its NAME.truth.json when present. */
+    /** A video file (any FFmpeg reads, or raw MJPEG), with its NAME.truth.json when present. */
     static Loaded video(Path file) throws SourceException {
         try (FrameSource s = org.targetbench.formats.SourceSpec.open(file.toString(), null)) {
             return read(file.getFileName().toString(), s, Optional.empty());
-        }
-    }
-
-    /** A short clip from a camera, {@code frames} frames long. */
-    static Loaded camera(int index, int frames) throws SourceException {
-        try (FrameSource s = org.targetbench.source.Webcams.open(index, org.targetbench.source.Webcams.DISCOVERY_TIMEOUT)) {
-            return read("camera " + index + " clip", s, Optional.empty(), frames);
         }
     }
 

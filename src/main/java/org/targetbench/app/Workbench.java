@@ -45,6 +45,7 @@ public final class Workbench extends JFrame {
     private final Preferences prefs;
     private final DetectionRunner runner;
     private final LiveView live;
+    private final CameraView camera;
     private final ServoView servo;
     private final ExportView exportView;
 
@@ -57,6 +58,11 @@ public final class Workbench extends JFrame {
         runner = new DetectionRunner(session);
         live = new LiveView(ctx);
         views.put("Live", live);
+        views.put("Camera", camera = new CameraView(ctx));
+        live.onCamerasFound(d -> {
+            show("Camera");
+            camera.offer(d, CameraView.WEBCAMS);
+        });
         views.put("Compare", new CompareView(ctx));
         views.put("Stress", new StressView(ctx));
         views.put("Track", new TrackView(ctx));
@@ -96,6 +102,7 @@ public final class Workbench extends JFrame {
             @Override public void windowClosed(WindowEvent e) {
                 saveBounds();
                 runner.shutdown();
+                camera.stop();
             }
         });
         String last = prefs.get("view", "Live");
@@ -161,6 +168,8 @@ public final class Workbench extends JFrame {
     public Session session() { return session; }
 
     LiveView live() { return live; }
+
+    CameraView camera() { return camera; }
 
     ServoView servo() { return servo; }
 

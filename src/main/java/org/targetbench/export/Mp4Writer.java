@@ -1,102 +1,110 @@
 package org.targetbench.export;
 
 import boofcv.struct.image.GrayF32;
-import org.jcodec.codecs.h264.H264Encoder;
-import org.jcodec.codecs.h264.encode.RateControl;
-import org.jcodec.codecs.h264.io.model.SliceType;
-import org.jcodec.common.Codec;
-import org.jcodec.common.MuxerTrack;
-import org.jcodec.common.VideoCodecMeta;
-import org.jcodec.common.VideoEncoder;
-import org.jcodec.common.io.NIOUtils;
-import org.jcodec.common.io.SeekableByteChannel;
-import org.jcodec.common.model.ColorSpace;
-import org.jcodec.common.model.Packet;
-import org.jcodec.common.model.Picture;
-import org.jcodec.common.model.Size;
-import org.jcodec.containers.mp4.muxer.MP4Muxer;
+import org.bytedeco.ffmpeg.global.avcodec;
+import org.bytedeco.ffmpeg.global.avutil;
+import org.bytedeco.javacv.FFmpegFrameRecorder;
+import org.bytedeco.javacv.Frame;
+import org.targetbench.source.Ffmpeg;
+import org.targetbench.source.SourceException;
 
 import java.io.IOException;
 import java.nio.ByteBuffer;
 import java.nio.file.Path;
-import java.util.Arrays;
 
 /**
- * H.264 in MP4 with JCodec 0.2.5's pure-Java encoder at a constant quantiser: grey frames become full-range YUV 4:2:0
- * pictures with neutral chroma (JCodec stores each sample as value - 128), an IDR frame every
- * {@value #KEY_INTERVAL} frames and P frames between.
+ * H.264 in MP4 through FFmpeg (JavaCV's {@link FFmpegFrameRecorder} with the OpenH264 encoder that JavaCPP's FFmpeg
+ * build carries) at a constant quantiser: grey frames become full-range ("pc", JPEG-range) YUV 4:2:0 pictures whose
+ * luma is the grey level and whose chroma is neutral (128), with a key frame every {@value #KEY_INTERVAL} frames and
+ * predicted frames between. The stream is flagged full range, so the video sources read the grey levels back as
+ * they were written.
  */
 public final class Mp4Writer implements VideoWriter {
     /** Frames between key frames. */
     static final int KEY_INTERVAL = 30;
-    /** Time units per second of the track. */
-    private static final int TIMESCALE = 90_000;
+    /** The H.264 encoder of the FFmpeg build (the build has no x264). */
+    static final String ENCODER = "libopenh264";
 
-    private final SeekableByteChannel channel;
-    private final MP4Muxer muxer;
-    private final H264Encoder encoder;
+    private final Path file;
+    private final int qp;
     private final double fps;
-    private MuxerTrack track;
-    private Picture picture;
-    private ByteBuffer buffer;
-    private int frames, width = -1, height = -1;
+    private FFmpegFrameRecorder recorder;
+    private ByteBuffer picture;
+    private int width = -1, height = -1;
 
     Mp4Writer(Path file, int qp, double fps) throws IOException {
-        org.targetbench.source.Mp4Source.class.getName(); // its static block quiets JCodec's logger
+        try {
+            Ffmpeg.load();
+        } catch (SourceException e) {
+            throw new IOException(e.getMessage());
+        }
+        this.file = file;
+        this.qp = qp;
         this.fps = fps;
-        this.channel = NIOUtils.writableChannel(file.toFile());
-        this.muxer = MP4Muxer.createMP4MuxerToChannel(channel);
-        this.encoder = new H264Encoder(new RateControl() {
-            @Override public int startPicture(Size size, int maxSize, SliceType sliceType) { return qp; }
-            @Override public int initialQpDelta() { return 0; }
-            @Override public int accept(int bits) { return 0; }
-        });
-        encoder.setKeyInterval(KEY_INTERVAL);
     }
 
     /**
-     * H.264 quantiser for a quality on the JPEG scale: qp = round(51 (100 - quality) / 100), clamped to 0..51, so
-     * 100 is near lossless and 50 is a typical streaming quantiser of about 26 (a mapping of our own).
+     * H.264 quantiser for a quality on the JPEG scale: qp = round(51 (100 - quality) / 100), clamped to 1..51 (the
+     * encoder's range), so 100 is near lossless and 50 is a typical streaming quantiser of about 26 (a mapping of
+     * our own).
      */
     public static int quantiser(int quality) {
-        return Math.max(0, Math.min(51, (int) Math.round(51 * (100 - quality) / 100.0)));
+        return Math.max(1, Math.min(51, (int) Math.round(51 * (100 - quality) / 100.0)));
     }
 
     @Override
     public void write(GrayF32 frame) throws IOException {
-        if (width < 0) {
-            width = frame.width;
-            height = frame.height;
-            track = muxer.addVideoTrack(Codec.H264, VideoCodecMeta.createSimpleVideoCodecMeta(new Size(width, height), ColorSpace.YUV420J));
-            picture = Picture.create(width, height, ColorSpace.YUV420J);
-            buffer = ByteBuffer.allocate(Math.max(1 << 16, width * height * 3));
-            Arrays.fill(picture.getPlaneData(1), (byte) 0);
-            Arrays.fill(picture.getPlaneData(2), (byte) 0);
-        } else if (frame.width != width || frame.height != height) {
+        if (width < 0) start(frame.width, frame.height);
+        else if (frame.width != width || frame.height != height)
             throw new IllegalArgumentException("frame is " + frame.width + "x" + frame.height + " but the video is " + width + "x" + height);
-        }
-        byte[] y = picture.getPlaneData(0);
-        int stride = picture.getPlaneWidth(0);
         for (int r = 0; r < height; r++)
             for (int c = 0; c < width; c++) {
                 float v = frame.unsafe_get(c, r);
-                int g = v <= 0 ? 0 : v >= 255 ? 255 : (int) (v + 0.5f);
-                y[r * stride + c] = (byte) (g - 128);
+                picture.put(r * width + c, (byte) (v <= 0 ? 0 : v >= 255 ? 255 : (int) (v + 0.5f)));
             }
-        buffer.clear();
-        VideoEncoder.EncodedFrame ef = encoder.encodeFrame(picture, buffer);
-        long ticks = Math.round(TIMESCALE / fps);
-        track.addFrame(Packet.createPacket(ef.getData(), frames * ticks, TIMESCALE, ticks, frames,
-                ef.isKeyFrame() ? Packet.FrameType.KEY : Packet.FrameType.INTER, null));
-        frames++;
+        try {
+            recorder.recordImage(width, height, Frame.DEPTH_UBYTE, 1, width, avutil.AV_PIX_FMT_YUV420P, picture);
+        } catch (FFmpegFrameRecorder.Exception e) {
+            throw new IOException("cannot encode a frame of " + file + ": " + e.getMessage());
+        }
+    }
+
+    private void start(int w, int h) throws IOException {
+        if (w % 2 != 0 || h % 2 != 0) throw new IOException("cannot write " + file.getFileName() + ": H.264 in MP4 needs an even frame size, got " + w + "x" + h + "; write AVI or MJPEG instead");
+        width = w;
+        height = h;
+        int luma = w * h, chroma = (w / 2) * (h / 2);
+        picture = ByteBuffer.allocateDirect(luma + 2 * chroma);
+        for (int i = luma; i < luma + 2 * chroma; i++) picture.put(i, (byte) 128);
+        recorder = new FFmpegFrameRecorder(file.toFile(), w, h, 0);
+        recorder.setFormat("mp4");
+        recorder.setVideoCodec(avcodec.AV_CODEC_ID_H264);
+        recorder.setVideoCodecName(ENCODER);
+        recorder.setPixelFormat(avutil.AV_PIX_FMT_YUV420P);
+        recorder.setFrameRate(fps);
+        recorder.setGopSize(KEY_INTERVAL);
+        recorder.setVideoBitrate((int) Math.min(Integer.MAX_VALUE, 8L * w * h * Math.max(1, fps)));
+        recorder.setVideoOption("qmin", Integer.toString(qp));
+        recorder.setVideoOption("qmax", Integer.toString(qp));
+        recorder.setVideoOption("color_range", "pc");
+        recorder.setVideoOption("threads", "1");
+        try {
+            recorder.start();
+        } catch (FFmpegFrameRecorder.Exception e) {
+            throw new IOException("cannot start writing " + file + ": " + e.getMessage());
+        }
     }
 
     @Override
     public void close() throws IOException {
+        if (recorder == null) return;
         try {
-            if (frames > 0) muxer.finish();
+            recorder.stop();
+            recorder.release();
+        } catch (FFmpegFrameRecorder.Exception e) {
+            throw new IOException("cannot finish " + file + ": " + e.getMessage());
         } finally {
-            NIOUtils.closeQuietly(channel);
+            recorder = null;
         }
     }
 }

@@ -5,7 +5,7 @@ import org.targetbench.pipeline.MotionScenarios;
 import org.targetbench.source.FrameSource;
 import org.targetbench.source.ImageFolderSource;
 import org.targetbench.source.MjpegSource;
-import org.targetbench.source.Mp4Source;
+import org.targetbench.source.FfmpegSource;
 import org.targetbench.source.SourceException;
 import org.targetbench.source.Webcams;
 
@@ -19,8 +19,11 @@ import java.util.regex.Pattern;
  */
 public final class SourceSpec {
     /** Kept in step with {@link MotionScenarios#NAMES} (a constant, for annotations). */
-    public static final String HELP = "a folder of PNG/JPEG frames, a video (.mp4, .avi, .mjpeg, .mjpg), webcam[:INDEX] or synthetic:NAME[,key=value...] "
+    public static final String HELP = "a folder of PNG/JPEG frames, a video file (.mp4, .mov, .mkv, .avi, .webm, .mjpeg, ... any FFmpeg reads), webcam[:INDEX] or synthetic:NAME[,key=value...] "
             + "with NAME one of approach, orbit, shake, vibration, still";
+    private static final Pattern IMAGE = Pattern.compile(".*\\.(png|jpe?g|bmp|gif|tiff?|pgm|ppm)$");
+    /** Files of this tool's own formats and other documents, which are never frames. */
+    private static final Pattern NOT_VIDEO = Pattern.compile(".*\\.(json|csv|txt|ya?ml|md|html?|pdf|svg|xml)$");
     private static final Pattern SCHEME = Pattern.compile("^([A-Za-z][A-Za-z0-9+.-]*):.*");
 
     private SourceSpec() {}
@@ -63,8 +66,10 @@ public final class SourceSpec {
         }
         if (Files.isDirectory(p)) return ImageFolderSource.open(p, truth);
         String n = p.getFileName().toString().toLowerCase(Locale.ROOT);
-        if (n.endsWith(".mp4") || n.endsWith(".mov") || n.endsWith(".m4v")) return Mp4Source.open(p, truth);
-        if (n.endsWith(".avi") || n.endsWith(".mjpeg") || n.endsWith(".mjpg")) return MjpegSource.open(p, truth);
-        throw new SourceException("unsupported source file " + p + ": use " + HELP);
+        if (n.endsWith(".mjpeg") || n.endsWith(".mjpg")) return MjpegSource.open(p, truth);
+        if (NOT_VIDEO.matcher(n).matches()) throw new SourceException("unsupported source file " + p + ": use " + HELP);
+        if (IMAGE.matcher(n).matches())
+            throw new SourceException("not a video: " + p + " is a single image; put the frames in a folder and give the folder");
+        return FfmpegSource.open(p, truth);
     }
 }

@@ -84,6 +84,14 @@ public final class Webcams {
      * @throws SourceException when there is no camera, the index does not exist, or the camera cannot be opened
      */
     public static WebcamSource open(int index, Duration timeout) throws SourceException {
+        return open(index, null, timeout);
+    }
+
+    /**
+     * Opens camera {@code index} at {@code wxh} (one of {@link CameraInfo#sizes()}), or as
+     * {@link #open(int, Duration)} does when {@code wxh} is null.
+     */
+    public static WebcamSource open(int index, String wxh, Duration timeout) throws SourceException {
         if (index < 0) throw new SourceException("webcam index must be >= 0, got " + index);
         Discovery d = discover(timeout);
         if (d.cameras().isEmpty())
@@ -94,8 +102,15 @@ public final class Webcams {
         try {
             Webcam w = quietly(() -> Webcam.getWebcams().get(index));
             Dimension best = null;
-            for (Dimension s : w.getViewSizes())
-                if (s.width <= 640 && s.height <= 480 && (best == null || s.width * s.height > best.width * best.height)) best = s;
+            for (Dimension s : w.getViewSizes()) {
+                if (wxh != null) {
+                    if (wxh.equals(s.width + "x" + s.height)) best = s;
+                } else if (s.width <= 640 && s.height <= 480 && (best == null || s.width * s.height > best.width * best.height)) {
+                    best = s;
+                }
+            }
+            if (wxh != null && best == null) throw new SourceException("webcam " + index + " does not offer " + wxh + "; it offers "
+                    + String.join(", ", java.util.Arrays.stream(w.getViewSizes()).map(v -> v.width + "x" + v.height).toList()));
             if (best != null) w.setViewSize(best);
             if (!quietly(w::open)) throw new SourceException("webcam " + index + " (" + w.getName() + ") could not be opened; is another program using it?");
             Dimension size = w.getViewSize();

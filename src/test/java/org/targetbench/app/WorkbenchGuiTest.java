@@ -310,4 +310,55 @@ class WorkbenchGuiTest {
                 && workbench.session().detections() != null
                 && workbench.session().detections().points().get(org.targetbench.detect.DetectorType.SHI_TOMASI).size() == 20);
     }
+
+    @Test
+    @Order(11)
+    void theCameraRunsLiveAgainstASimulatedCamera(@org.junit.jupiter.api.io.TempDir Path tmp) throws Exception {
+        awaitDialogsClosed();
+        CameraView cv = workbench.camera();
+        // no camera: said plainly, nothing to start
+        GuiActionRunner.execute(() -> cv.offer(new org.targetbench.source.Webcams.Discovery(java.util.List.of(), "no video devices (/dev/video*) on this machine"),
+                CameraView.WEBCAMS));
+        window.list("nav").selectItem("Camera");
+        window.label("camera.message").requireText(java.util.regex.Pattern.compile("No camera found: no video devices.*"));
+        window.button("camera.start").requireDisabled();
+        // a simulated camera behind the Camera interface: 100 images, one every 10 ms, then unplugged
+        java.util.concurrent.atomic.AtomicReference<String> opened = new java.util.concurrent.atomic.AtomicReference<>();
+        CameraView.Opener simulated = (index, size) -> {
+            opened.set(size);
+            String[] wh = size.split("x");
+            return new org.targetbench.source.WebcamSource(new org.targetbench.source.FakeCamera(Integer.parseInt(wh[0]), Integer.parseInt(wh[1]), 100, false, 10),
+                    "simulated camera at " + size);
+        };
+        GuiActionRunner.execute(() -> cv.offer(new org.targetbench.source.Webcams.Discovery(java.util.List.of(
+                new org.targetbench.source.Webcams.CameraInfo(0, "simulated camera", java.util.List.of("160x120", "320x240", "1280x720"))), ""), simulated));
+        window.comboBox("camera.size").requireSelection("320x240"); // the largest within 640 x 480
+        window.button("camera.start").click();
+        int detectors = org.targetbench.detect.DetectorType.values().length;
+        waitFor("live frames scored and shown", () -> cv.shownFrames() >= 3 && window.table("camera.scores").target().getRowCount() == detectors);
+        assertEquals("320x240", opened.get());
+        Path rec = tmp.resolve("live.avi");
+        GuiActionRunner.execute(() -> cv.startRecording(rec));
+        window.button("camera.record").requireText("Stop recording");
+        window.button("camera.freeze").click();
+        window.button("camera.freeze").requireText("Resume");
+        int frozenAt = GuiActionRunner.execute(cv::shownFrames);
+        pause(300);
+        assertEquals(frozenAt, (int) GuiActionRunner.execute(cv::shownFrames), "a frozen view does not change");
+        window.button("camera.freeze").click();
+        shot("camera");
+        // the camera goes away mid-stream: a plain message, and the recording is kept and reads back
+        waitFor("the stream ended with the camera", () -> !cv.running());
+        window.label("camera.message").requireText(java.util.regex.Pattern.compile(
+                "The camera stream ended: simulated camera stopped delivering images after 100 frames.*\\d+ frames recorded to .*live\\.avi and kept\\."));
+        var m = java.util.regex.Pattern.compile("([0-9.]+) frames/s scored and shown of the camera's ([0-9.]+) frames/s; (\\d+) of (\\d+) images dropped.*")
+                .matcher(window.label("camera.rates").text());
+        assertTrue(m.matches(), window.label("camera.rates").text());
+        assertTrue(Integer.parseInt(m.group(3)) > 0, "the detectors fall behind a 100 frames/s camera and frames are dropped: " + m.group());
+        try (org.targetbench.source.FrameSource s = org.targetbench.source.FfmpegSource.open(rec, null)) {
+            assertEquals(320, s.width());
+            assertTrue(s.frameCount() > 10, "frames recorded: " + s.frameCount());
+        }
+        window.button("camera.start").requireText("Start");
+    }
 }

@@ -182,6 +182,14 @@ class TrackCommandTest {
         bad("empty video", "track", "--source", emptyMp4.toString(), "--out", out.toString());
         bad("source not found", "track", "--source", tmp.resolve("nope.mp4").toString(), "--out", out.toString());
         bad("unsupported source file", "track", "--source", tmp.resolve("clips/still.truth.json").toString(), "--out", out.toString());
+        // FFmpeg: a file without a video stream (reference clip made with Debian's ffmpeg, see its PROVENANCE.md) and a text file
+        bad("no video stream", "track", "--source", "src/test/resources/reference/video/audio-only.m4a", "--out", out.toString());
+        Path notes = tmp.resolve("bad/notes.mkv");
+        Files.writeString(notes, "not a video at all\n".repeat(50));
+        bad("not a video", "track", "--source", notes.toString(), "--out", out.toString());
+        Path still = tmp.resolve("bad/still.png");
+        Files.copy(Path.of("src/test/resources/reference/video/frames/frame_000.png"), still);
+        bad("not a video", "track", "--source", still.toString(), "--out", out.toString());
     }
 
     @Test

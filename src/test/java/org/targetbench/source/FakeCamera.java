@@ -6,15 +6,23 @@ import java.awt.image.BufferedImage;
 
 /**
  * A simulated camera for tests: delivers {@code frames} images of a slowly moving texture, then behaves as if
- * unplugged (returns null, or throws when {@code failHard}).
+ * unplugged (returns null, or throws when {@code failHard}). With an interval it paces its images as a real camera
+ * does (one every {@code intervalMs} ms); without, it delivers as fast as asked.
  */
 public final class FakeCamera implements Camera {
     private final int width, height, frames;
     private final boolean failHard;
+    private final long intervalMs;
+    private long nextAt;
     private int delivered;
     private boolean closed;
 
     public FakeCamera(int width, int height, int frames, boolean failHard) {
+        this(width, height, frames, failHard, 0);
+    }
+
+    public FakeCamera(int width, int height, int frames, boolean failHard, long intervalMs) {
+        this.intervalMs = intervalMs;
         this.width = width;
         this.height = height;
         this.frames = frames;
@@ -26,7 +34,12 @@ public final class FakeCamera implements Camera {
     @Override public int height() { return height; }
 
     @Override
-    public BufferedImage grab() {
+    public BufferedImage grab() throws InterruptedException {
+        if (intervalMs > 0) {
+            long now = System.nanoTime();
+            if (nextAt > now) Thread.sleep((nextAt - now) / 1_000_000, (int) ((nextAt - now) % 1_000_000));
+            nextAt = Math.max(now, nextAt) + intervalMs * 1_000_000;
+        }
         if (closed) return null;
         if (delivered >= frames) {
             if (failHard) throw new IllegalStateException("device /dev/video0 vanished");

@@ -52,8 +52,8 @@ class SourceContractTest {
                 Arguments.of("image folder", (Opener) () -> ImageFolderSource.open(folder, null)),
                 Arguments.of("synthetic motion", (Opener) () -> org.targetbench.pipeline.MotionScenarios.open("shake,frames=3")),
                 Arguments.of("MJPEG stream", (Opener) () -> MjpegSource.open(tmp.resolve("clip.mjpeg"), null)),
-                Arguments.of("MJPEG in AVI", (Opener) () -> MjpegSource.open(tmp.resolve("clip.avi"), null)),
-                Arguments.of("H.264 MP4", (Opener) () -> Mp4Source.open(tmp.resolve("clip.mp4"), null)),
+                Arguments.of("MJPEG in AVI", (Opener) () -> FfmpegSource.open(tmp.resolve("clip.avi"), null)),
+                Arguments.of("H.264 MP4", (Opener) () -> FfmpegSource.open(tmp.resolve("clip.mp4"), null)),
                 Arguments.of("webcam (simulated camera)", (Opener) () -> new WebcamSource(new FakeCamera(320, 240, 3, false), "simulated")));
     }
 

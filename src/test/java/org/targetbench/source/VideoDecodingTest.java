@@ -17,13 +17,16 @@ import java.util.Optional;
 import static org.junit.jupiter.api.Assertions.*;
 
 /**
- * Video decoding against the PNG each frame was encoded from: clips are made in the test (JCodec's H.264 encoder for
- * MP4, the JDK's JPEG encoder for MJPEG streams and AVI) at the highest quality, then read back through the sources.
+ * Video decoding against the PNG each frame was encoded from: clips are made in the test by our own writers (FFmpeg's
+ * OpenH264 encoder for MP4, the JDK's JPEG encoder for MJPEG streams and AVI) at the highest quality, then read back
+ * through the sources (FFmpeg for MP4 and AVI, the JDK's JPEG reader for raw MJPEG streams).
  * Also: an undecodable frame in the middle is skipped and counted; cut-short, empty and foreign files are refused.
  */
 class VideoDecodingTest {
-    /** Largest grey-level difference from the source PNG (one grey level of codec round-off with one of margin: common practice, no source; measured 1). */
+    /** Largest grey-level difference from the source PNG for MJPEG at quality 100 (measured 1, plus one grey level of margin: common practice, no source). */
     static final int GREY_TOL = 2;
+    /** The same for H.264 at OpenH264's finest quantiser, which is not lossless (measured 3). */
+    static final int GREY_TOL_H264 = 3;
     static final int W = 160, H = 128, FRAMES = 6;
 
     @TempDir Path tmp;
@@ -40,7 +43,7 @@ class VideoDecodingTest {
     }
 
     static FrameSource open(Path p) throws SourceException {
-        return p.toString().endsWith(".mp4") ? Mp4Source.open(p, null) : MjpegSource.open(p, null);
+        return p.toString().endsWith(".mjpeg") ? MjpegSource.open(p, null) : FfmpegSource.open(p, null);
     }
 
     @ParameterizedTest
@@ -59,7 +62,7 @@ class VideoDecodingTest {
                 GrayF32 got = f.get().image(), want = ref.get(f.get().index());
                 double worst = 0;
                 for (int i = 0; i < got.data.length; i++) worst = Math.max(worst, Math.abs(got.data[i] - want.data[i]));
-                assertTrue(worst <= GREY_TOL, ext + " frame " + f.get().index() + " differs by " + worst + " grey levels");
+                assertTrue(worst <= (ext.equals("mp4") ? GREY_TOL_H264 : GREY_TOL), ext + " frame " + f.get().index() + " differs by " + worst + " grey levels");
                 assertEquals(String.format("frame_%03d.png", n), f.get().name());
                 n++;
             }
@@ -67,13 +70,16 @@ class VideoDecodingTest {
         }
     }
 
-    /** Replaces the bytes of the (k+1)-th JPEG (after its start marker) with garbage that keeps the markers out. */
+    /**
+     * Replaces the body of the (k+1)-th JPEG (everything between its start and end markers) with garbage that holds
+     * no marker, so no decoder can recover the frame (FFmpeg's decoder skips damage in front of intact markers).
+     */
     static byte[] breakJpeg(byte[] file, int k) {
         byte[] b = file.clone();
         int seen = -1;
         for (int i = 0; i + 1 < b.length; i++) {
             if ((b[i] & 0xFF) == 0xFF && (b[i + 1] & 0xFF) == 0xD8 && ++seen == k) {
-                for (int j = i + 2; j < i + 40; j++) b[j] = 0x11;
+                for (int j = i + 2; j + 1 < b.length && !((b[j] & 0xFF) == 0xFF && (b[j + 1] & 0xFF) == 0xD9); j++) b[j] = 0x11;
                 return b;
             }
         }

@@ -1,0 +1,488 @@
+package org.targetbench.app;
+
+import boofcv.struct.image.GrayF32;
+import org.targetbench.detect.Detection;
+import org.targetbench.detect.DetectorType;
+import org.targetbench.export.VideoWriter;
+import org.targetbench.pipeline.LiveScoring;
+import org.targetbench.source.FrameSource;
+import org.targetbench.source.SourceException;
+import org.targetbench.source.SourceFrame;
+import org.targetbench.source.Webcams;
+
+import javax.swing.BorderFactory;
+import javax.swing.Box;
+import javax.swing.BoxLayout;
+import javax.swing.JButton;
+import javax.swing.JComboBox;
+import javax.swing.JFileChooser;
+import javax.swing.JLabel;
+import javax.swing.JPanel;
+import javax.swing.JScrollPane;
+import javax.swing.JTable;
+import javax.swing.SwingUtilities;
+import javax.swing.SwingWorker;
+import javax.swing.table.DefaultTableModel;
+import java.awt.BorderLayout;
+import java.awt.Dimension;
+import java.io.IOException;
+import java.nio.file.Path;
+import java.time.LocalDateTime;
+import java.time.format.DateTimeFormatter;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Optional;
+import java.util.concurrent.atomic.AtomicInteger;
+import java.util.concurrent.atomic.AtomicReference;
+
+/**
+ * The camera, live. One thread takes every image the camera delivers (and writes it to the recording, when one is
+ * running); another scores the newest image with every detector ({@link LiveScoring}) and shows it, so when the
+ * detectors are slower than the camera the images in between are dropped, counted and never queued. The achieved
+ * rates are shown: images scored and shown per second against images the camera delivered per second.
+ *
+ * <p>Freeze keeps the shown frame and its points (zoom and pan still work) while the camera and a recording go on.
+ * A camera that stops delivering (unplugged, driver failure) ends the stream with a plain message, and a recording
+ * is finished and kept. Truth: the {@link LiveScoring.Registration} hook ({@link #setRegistration}); until a
+ * frame-to-design registration is plugged in, repeatability is measured against the previous scored frame.
+ */
+final class CameraView extends JPanel {
+    /** Opens camera {@code index} at {@code size} (WxH, or null for its default); webcams here, a simulated camera in tests. */
+    interface Opener {
+        FrameSource open(int index, String size) throws SourceException;
+    }
+
+    static final Opener WEBCAMS = (index, size) -> Webcams.open(index, size, Webcams.DISCOVERY_TIMEOUT);
+    /** Quality of recordings, JPEG scale (MP4: the H.264 quantiser derived from it). */
+    static final int RECORD_QUALITY = 90;
+    /** Frame rate written into a recording when the camera's own has not been measured yet. */
+    static final double DEFAULT_FPS = 30;
+    /** Longest size offered by default: the largest at most this wide and high. */
+    static final int DEFAULT_MAX_W = 640, DEFAULT_MAX_H = 480;
+    /** Window over which the achieved rates are measured, seconds. */
+    static final double RATE_WINDOW_S = 1.0;
+
+    private final AppContext ctx;
+    private final FrameCanvas canvas = new FrameCanvas("camera.canvas");
+    private final JComboBox<String> device = Ui.named(new JComboBox<>(), "camera.device", "Camera to show");
+    private final JComboBox<String> size = Ui.named(new JComboBox<>(), "camera.size", "Image size, among those the camera offers");
+    private final JButton startStop, freeze, record;
+    private final JLabel rates = Ui.named(new JLabel(" "), "camera.rates", null);
+    private final JLabel message = Ui.named(new JLabel("Press \"Find cameras\"."), "camera.message", null);
+    private final JLabel against = Ui.named(new JLabel(" "), "camera.against", null);
+    private final DefaultTableModel scores = new DefaultTableModel(new Object[]{"Detector", "Points", "Repeatability", "Coverage", "Loc. RMS", "Found", "ms"}, 0) {
+        @Override public boolean isCellEditable(int r, int c) { return false; }
+    };
+    private Webcams.Discovery discovery = new Webcams.Discovery(List.of(), "not looked for yet");
+    private Opener opener = WEBCAMS;
+    private LiveScoring.Registration registration = LiveScoring.NO_REGISTRATION;
+    private Stream stream;
+
+    CameraView(AppContext ctx) {
+        super(new BorderLayout(6, 6));
+        this.ctx = ctx;
+        setName("view.camera");
+        startStop = Ui.button("camera.start", "Start", "Show the chosen camera live, or stop it", this::toggle);
+        freeze = Ui.button("camera.freeze", "Freeze", "Hold the shown frame and its points; the camera and a recording go on", this::toggleFreeze);
+        record = Ui.button("camera.record", "Record...", "Record every image the camera delivers to an MP4, AVI or MJPEG file while you watch", this::toggleRecord);
+        device.addActionListener(e -> fillSizes());
+        add(Ui.row(Ui.button("camera.find", "Find cameras", "Look for connected cameras", this::find), device, size, startStop, freeze, record),
+                BorderLayout.NORTH);
+        add(canvas, BorderLayout.CENTER);
+        JPanel bottom = new JPanel(new BorderLayout());
+        bottom.add(Ui.row(message), BorderLayout.NORTH);
+        bottom.add(Ui.row(rates), BorderLayout.SOUTH);
+        add(bottom, BorderLayout.SOUTH);
+        JPanel side = new JPanel();
+        side.setLayout(new BoxLayout(side, BoxLayout.Y_AXIS));
+        side.setBorder(BorderFactory.createEmptyBorder(0, 6, 0, 6));
+        side.add(Ui.heading("This frame"));
+        JTable table = Ui.named(new JTable(scores), "camera.scores", null);
+        table.getTableHeader().setToolTipText("Points: " + Ui.TIP_COUNT + "  Repeatability: see the line below the table.  Coverage: " + Ui.TIP_COVERAGE
+                + "  Loc. RMS and Found: against registered truth only.  ms: the detector's time on this frame.");
+        JScrollPane sp = new JScrollPane(table);
+        sp.setPreferredSize(new Dimension(420, 130));
+        side.add(sp);
+        side.add(Ui.row(against));
+        side.add(Box.createVerticalGlue());
+        add(side, BorderLayout.EAST);
+        updateButtons();
+    }
+
+    /** Cameras found by a discovery, opened with {@code opener}; says plainly when there is none. */
+    void offer(Webcams.Discovery d, Opener opener) {
+        this.discovery = d;
+        this.opener = opener;
+        device.removeAllItems();
+        for (Webcams.CameraInfo c : d.cameras()) device.addItem(c.index() + ": " + c.name());
+        fillSizes();
+        if (d.cameras().isEmpty()) say("No camera found: " + d.problem() + ". Everything else works on the demo scene, frame folders and videos.");
+        else say(d.cameras().size() + (d.cameras().size() == 1 ? " camera" : " cameras") + " found; press Start.");
+        updateButtons();
+    }
+
+    /** The hook for live truth: frame-to-design registration, when a target is chosen. */
+    void setRegistration(LiveScoring.Registration r) { registration = r; }
+
+    private void find() {
+        say("Looking for cameras...");
+        new SwingWorker<Webcams.Discovery, Void>() {
+            @Override protected Webcams.Discovery doInBackground() { return Webcams.discover(Webcams.DISCOVERY_TIMEOUT); }
+            @Override protected void done() {
+                try {
+                    offer(get(), WEBCAMS);
+                } catch (Exception e) {
+                    say("Camera: " + e.getMessage());
+                }
+            }
+        }.execute();
+    }
+
+    private void fillSizes() {
+        size.removeAllItems();
+        int i = device.getSelectedIndex();
+        if (i < 0 || i >= discovery.cameras().size()) return;
+        List<String> sizes = discovery.cameras().get(i).sizes();
+        String best = null;
+        long bestArea = -1;
+        for (String s : sizes) {
+            size.addItem(s);
+            int[] wh = parse(s);
+            if (wh != null && wh[0] <= DEFAULT_MAX_W && wh[1] <= DEFAULT_MAX_H && (long) wh[0] * wh[1] > bestArea) {
+                best = s;
+                bestArea = (long) wh[0] * wh[1];
+            }
+        }
+        if (best != null) size.setSelectedItem(best);
+        size.setEnabled(sizes.size() > 1);
+    }
+
+    private static int[] parse(String wxh) {
+        String[] p = wxh.split("x");
+        try {
+            return p.length == 2 ? new int[]{Integer.parseInt(p[0].trim()), Integer.parseInt(p[1].trim())} : null;
+        } catch (NumberFormatException e) {
+            return null;
+        }
+    }
+
+    private void say(String text) {
+        message.setText(text);
+        ctx.status().accept(text);
+    }
+
+    private void toggle() {
+        if (stream != null) stop();
+        else start();
+    }
+
+    /** Opens the chosen camera off the event-dispatch thread and starts the stream. */
+    void start() {
+        if (stream != null) return;
+        int i = device.getSelectedIndex();
+        if (i < 0) {
+            offer(discovery, opener);
+            return;
+        }
+        int index = discovery.cameras().get(i).index();
+        String wxh = size.getItemCount() > 0 ? (String) size.getSelectedItem() : null;
+        Opener o = opener;
+        say("Opening camera " + index + (wxh == null ? "" : " at " + wxh) + "...");
+        startStop.setEnabled(false);
+        new SwingWorker<FrameSource, Void>() {
+            @Override protected FrameSource doInBackground() throws SourceException { return o.open(index, wxh); }
+            @Override protected void done() {
+                startStop.setEnabled(true);
+                try {
+                    FrameSource s = get();
+                    stream = new Stream(s);
+                    say("Live: " + s.description());
+                    stream.begin();
+                } catch (java.util.concurrent.ExecutionException e) {
+                    say("Camera " + index + " could not be opened: " + (e.getCause() == null ? e : e.getCause()).getMessage());
+                } catch (InterruptedException e) {
+                    Thread.currentThread().interrupt();
+                }
+                updateButtons();
+            }
+        }.execute();
+    }
+
+    /** Stops the stream (a recording is finished and kept). */
+    void stop() {
+        if (stream != null) stream.halt(null);
+    }
+
+    private void toggleFreeze() {
+        if (stream == null) return;
+        stream.frozen = !stream.frozen;
+        updateButtons();
+    }
+
+    private void toggleRecord() {
+        if (stream == null) return;
+        if (stream.recording() != null) {
+            stream.stopRecording();
+            return;
+        }
+        JFileChooser fc = new JFileChooser(ctx.prefs().get("lastRecordFolder", System.getProperty("user.dir")));
+        fc.setDialogTitle("Record the camera to");
+        fc.setSelectedFile(new java.io.File(fc.getCurrentDirectory(), "camera-" + LocalDateTime.now().format(DateTimeFormatter.ofPattern("yyyyMMdd-HHmmss")) + ".mp4"));
+        if (fc.showSaveDialog(ctx.window()) != JFileChooser.APPROVE_OPTION) return;
+        Path f = fc.getSelectedFile().toPath();
+        ctx.prefs().put("lastRecordFolder", String.valueOf(f.getParent()));
+        startRecording(f);
+    }
+
+    /** Starts recording every camera image to {@code file} (MP4, AVI or MJPEG by its extension). */
+    void startRecording(Path file) {
+        if (stream == null) return;
+        try {
+            stream.startRecording(file);
+            say("Recording to " + file);
+        } catch (IOException | IllegalArgumentException e) {
+            say("Cannot record to " + file + ": " + e.getMessage());
+        }
+        updateButtons();
+    }
+
+    private void updateButtons() {
+        boolean live = stream != null;
+        startStop.setText(live ? "Stop" : "Start");
+        startStop.setEnabled(live || !discovery.cameras().isEmpty());
+        device.setEnabled(!live);
+        size.setEnabled(!live && size.getItemCount() > 1);
+        freeze.setEnabled(live);
+        freeze.setText(live && stream.frozen ? "Resume" : "Freeze");
+        record.setEnabled(live);
+        record.setText(live && stream.recording() != null ? "Stop recording" : "Record...");
+    }
+
+    boolean running() { return stream != null; }
+
+    /** Frames scored and shown in the current or last stream. */
+    int shownFrames() { return shown.get(); }
+
+    private final AtomicInteger shown = new AtomicInteger();
+
+    /** Counts events and gives their rate over the last {@link #RATE_WINDOW_S} s. */
+    private static final class Rate {
+        private final long[] times = new long[512];
+        private int n, head;
+
+        synchronized void tick() {
+            times[head] = System.nanoTime();
+            head = (head + 1) % times.length;
+            n = Math.min(n + 1, times.length);
+        }
+
+        synchronized double perSecond() {
+            long now = System.nanoTime(), window = (long) (RATE_WINDOW_S * 1e9);
+            int count = 0;
+            for (int k = 0; k < n; k++) {
+                long t = times[(head - 1 - k + times.length) % times.length];
+                if (now - t > window) break;
+                count++;
+            }
+            return count / RATE_WINDOW_S;
+        }
+    }
+
+    /** One run of the camera: the grabbing thread, the scoring thread and the recording. */
+    private final class Stream {
+        final FrameSource source;
+        final AtomicReference<GrayF32> newest = new AtomicReference<>();
+        final Rate cameraRate = new Rate(), shownRate = new Rate();
+        final AtomicInteger delivered = new AtomicInteger(), dropped = new AtomicInteger();
+        final Object recordLock = new Object();
+        final Thread grabber, scorer;
+        volatile boolean frozen, halted;
+        private VideoWriter writer;
+        private Path recording;
+        private int recorded;
+
+        Stream(FrameSource source) {
+            this.source = source;
+            grabber = new Thread(this::grabLoop, "targetbench-camera-grab");
+            scorer = new Thread(this::scoreLoop, "targetbench-camera-score");
+            grabber.setDaemon(true);
+            scorer.setDaemon(true);
+        }
+
+        void begin() {
+            shown.set(0);
+            grabber.start();
+            scorer.start();
+        }
+
+        Path recording() {
+            synchronized (recordLock) {
+                return recording;
+            }
+        }
+
+        void startRecording(Path file) throws IOException {
+            double fps = cameraRate.perSecond();
+            synchronized (recordLock) {
+                if (writer != null) return;
+                writer = VideoWriter.open(file, RECORD_QUALITY, fps >= 1 ? fps : DEFAULT_FPS);
+                recording = file;
+                recorded = 0;
+            }
+        }
+
+        /** Finishes the recording; returns a sentence saying what was kept, or null when none was running. */
+        String finishRecording() {
+            synchronized (recordLock) {
+                if (writer == null) return null;
+                String note;
+                try {
+                    writer.close();
+                    note = recorded + " frames recorded to " + recording + " and kept";
+                } catch (IOException e) {
+                    note = "the recording " + recording + " could not be finished: " + e.getMessage();
+                }
+                writer = null;
+                recording = null;
+                return note;
+            }
+        }
+
+        void stopRecording() {
+            String note = finishRecording();
+            if (note != null) say(Character.toUpperCase(note.charAt(0)) + note.substring(1) + ".");
+            updateButtons();
+        }
+
+        private void grabLoop() {
+            String end = null;
+            try {
+                while (!halted) {
+                    Optional<SourceFrame> f;
+                    try {
+                        f = source.next();
+                    } catch (SourceException e) {
+                        end = e.getMessage();
+                        break;
+                    }
+                    if (f.isEmpty()) {
+                        if (!halted) end = source.endNote().orElse("the camera stopped delivering images");
+                        break;
+                    }
+                    GrayF32 img = f.get().image();
+                    delivered.incrementAndGet();
+                    cameraRate.tick();
+                    synchronized (recordLock) {
+                        if (writer != null) {
+                            try {
+                                writer.write(img);
+                                recorded++;
+                            } catch (IOException | IllegalArgumentException e) {
+                                String failed = "recording stopped: " + e.getMessage();
+                                try {
+                                    writer.close();
+                                } catch (IOException ignored) {
+                                    // already failing; the message says so
+                                }
+                                writer = null;
+                                recording = null;
+                                SwingUtilities.invokeLater(() -> {
+                                    say(failed);
+                                    updateButtons();
+                                });
+                            }
+                        }
+                    }
+                    if (frozen) continue;
+                    if (newest.getAndSet(img) != null) dropped.incrementAndGet();
+                    synchronized (newest) {
+                        newest.notifyAll();
+                    }
+                }
+            } finally {
+                source.close();
+                if (end != null) halt(end);
+            }
+        }
+
+        private void scoreLoop() {
+            int version = ctx.session().configVersion();
+            LiveScoring scoring = new LiveScoring(ctx.session().configs(), registration);
+            while (!halted) {
+                GrayF32 img;
+                synchronized (newest) {
+                    while ((img = newest.getAndSet(null)) == null && !halted) {
+                        try {
+                            newest.wait(100);
+                        } catch (InterruptedException e) {
+                            return;
+                        }
+                    }
+                }
+                if (img == null) return;
+                if (ctx.session().configVersion() != version) {
+                    version = ctx.session().configVersion();
+                    scoring = new LiveScoring(ctx.session().configs(), registration);
+                }
+                LiveScoring.Scored s = scoring.score(img);
+                shownRate.tick();
+                SwingUtilities.invokeLater(() -> show(s));
+            }
+        }
+
+        /** Ends the stream; {@code why} is the camera's reason when it ended on its own, null when the user stopped it. */
+        void halt(String why) {
+            if (halted) return;
+            halted = true;
+            grabber.interrupt();
+            synchronized (newest) {
+                newest.notifyAll();
+            }
+            new Thread(() -> {
+                try {
+                    grabber.join();
+                    scorer.join();
+                } catch (InterruptedException e) {
+                    Thread.currentThread().interrupt();
+                }
+                String kept = finishRecording();
+                SwingUtilities.invokeLater(() -> ended(this, why, kept));
+            }, "targetbench-camera-stop").start();
+        }
+
+        private void show(LiveScoring.Scored s) {
+            if (stream != this || frozen) return;
+            shown.incrementAndGet();
+            canvas.setFrame(s.frame());
+            Map<DetectorType, List<Detection>> pts = new LinkedHashMap<>();
+            for (var e : s.points().entrySet()) if (ctx.session().shown().contains(e.getKey())) pts.put(e.getKey(), e.getValue());
+            canvas.setOverlay(pts, s.truth().map(org.targetbench.source.FrameTruth::features).orElse(List.of()));
+            scores.setRowCount(0);
+            for (var e : s.figures().entrySet()) {
+                var f = e.getValue();
+                scores.addRow(new Object[]{e.getKey().label(), f.points(), Ui.fmt(f.repeatability(), 3), Ui.pct(f.coverage()),
+                        Ui.fmt(f.localisationPx(), 3), Double.isNaN(f.foundShare()) ? "" : Ui.pct(f.foundShare()), Ui.fmt(f.detectMs(), 1)});
+            }
+            against.setText(switch (s.against()) {
+                case NOTHING -> "Repeatability: first frame, nothing to compare with yet";
+                case PREVIOUS_FRAME -> "Repeatability: against the previous shown frame, as if nothing moved (hold still)";
+                case REGISTERED_REFERENCE -> "Repeatability: against the first registered frame, through the target";
+            });
+            rates.setText(String.format(Locale.ROOT, "%.1f frames/s scored and shown of the camera's %.1f frames/s; %d of %d images dropped%s",
+                    shownRate.perSecond(), cameraRate.perSecond(), dropped.get(), delivered.get(),
+                    recording() == null ? "" : "; recording to " + recording().getFileName()));
+        }
+    }
+
+    /** On the event-dispatch thread once a stream has fully stopped. */
+    private void ended(Stream s, String why, String kept) {
+        if (stream != s) return;
+        stream = null;
+        String text = why == null ? "Camera stopped." : "The camera stream ended: " + why + ".";
+        if (kept != null) text += " " + Character.toUpperCase(kept.charAt(0)) + kept.substring(1) + ".";
+        say(text);
+        updateButtons();
+    }
+}
