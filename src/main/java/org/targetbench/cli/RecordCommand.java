@@ -47,7 +47,8 @@ final class RecordCommand implements Callable<Integer> {
     @Override
     public Integer call() throws Exception {
         if (quality < 1 || quality > 100) throw new UserError("--quality must be 1..100, got " + quality);
-        if (frames < 0) throw new UserError("--frames must be >= 1 (or 0 for all), got " + frames);
+        if (frames < 0 || frames == 0 && spec.commandLine().getParseResult().hasMatchedOption("--frames"))
+            throw new UserError("--frames must be >= 1, got " + frames + " (leave it out to record every frame)");
         String name = out.getFileName().toString();
         String lower = name.toLowerCase(java.util.Locale.ROOT);
         if (!(lower.endsWith(".mp4") || lower.endsWith(".avi") || lower.endsWith(".mjpeg") || lower.endsWith(".mjpg")))

@@ -96,7 +96,8 @@ final class TrackCommand implements Callable<Integer> {
     public Integer call() throws Exception {
         KltConfig k = trackerConfig();
         DetectorConfig seed = seeding(detector);
-        if (frames < 0) throw new UserError("--frames must be >= 1 (or 0 for all), got " + frames);
+        if (frames < 0 || frames == 0 && spec.commandLine().getParseResult().hasMatchedOption("--frames"))
+            throw new UserError("--frames must be >= 1, got " + frames + " (leave it out to track every frame)");
         if (survivalAt < 0) throw new UserError("--survival-at must be >= 0, got " + survivalAt);
         boolean live = SourceSpec.isLive(source);
         try (FrameSource src = SourceSpec.open(source, truth);

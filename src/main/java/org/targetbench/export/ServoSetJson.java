@@ -89,6 +89,8 @@ public final class ServoSetJson {
         if (!root.has("format")) throw in.error("format", "is missing; a servo set must say \"format\": \"" + FORMAT + "\"");
         if (!root.has("version")) throw in.error("version", "is missing; this build reads " + FORMAT + " versions 1.." + VERSION);
         in.expectFormat(root, FORMAT, VERSION);
+        in.knownKeys(root, "format", "version", "tool_version", "created", "safety", "conventions", "camera", "target", "reference_pose",
+                "reference_pose_method", "settings", "set", "points");
         JsonNode cam = root.get("camera");
         if (cam == null || !cam.isObject()) throw in.error("camera", "is missing: the intrinsics are needed");
         JsonNode dist = cam.path("distortion");
@@ -101,6 +103,8 @@ public final class ServoSetJson {
         } catch (IllegalArgumentException e) {
             throw in.error("camera", e.getMessage());
         }
+        var implausible = org.targetbench.camera.CameraChecks.problem(camera);
+        if (implausible.isPresent()) throw in.error("camera", implausible.get());
         JsonNode tgt = root.path("target");
         Optional<Pose> pose = Optional.empty();
         JsonNode pn = root.get("reference_pose");
@@ -134,6 +138,8 @@ public final class ServoSetJson {
                 throw in.error(w, e.getMessage());
             }
         }
+        var inconsistent = org.targetbench.servo.SetConsistency.problem(camera, pts);
+        if (inconsistent.isPresent()) throw new SourceException(file + ": " + inconsistent.get());
         return new ServoSet(root.path("tool_version").asText(""), root.path("created").asText(""), camera, tgt.path("id").asText(""),
                 tgt.path("design").asText(""), pose, root.path("reference_pose_method").asText(""), settings.path("detector").asText(""),
                 settings.path("detector_config").isMissingNode() ? "{}" : settings.path("detector_config").toString(),

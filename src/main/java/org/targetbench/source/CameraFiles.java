@@ -36,7 +36,10 @@ public final class CameraFiles {
         String s = text.startsWith("\uFEFF") ? text.substring(1) : text;
         if (s.isBlank()) throw new SourceException("camera file " + file + " is empty");
         if (s.stripLeading().startsWith("{")) return CameraFile.read(file);
-        return CameraYaml.read(file, s);
+        CameraModel c = CameraYaml.read(file, s);
+        var implausible = org.targetbench.camera.CameraChecks.problem(c);
+        if (implausible.isPresent()) throw new SourceException(file + ": " + implausible.get());
+        return c;
     }
 
     public static void write(CameraModel c, Path file, Layout layout) throws IOException {

@@ -87,7 +87,7 @@ public final class MjpegSource implements FrameSource {
             if (count == 0) throw new SourceException("empty video: no JPEG frames in " + file);
             first = decodeOrFail(withEnd(firstJpeg), file);
         }
-        return new MjpegSource(file, avi, chunks, count, first, VideoFrames.truth(file, truthFile, count));
+        return new MjpegSource(file, avi, chunks, count, first, VideoFrames.truth(file, truthFile, count, first.width, first.height));
     }
 
     private static GrayF32 decodeOrFail(byte[] jpeg, Path file) throws SourceException {
