@@ -72,11 +72,22 @@ final class DemoCommand implements Callable<Integer> {
     /** Tilt range of the demo's feasibility section, degrees: the demo poses tilt the target by up to 40 degrees. */
     static final double DEMO_TILT_DEG = 40;
 
+    /** The demo's stages, in order; Ctrl-C keeps the stages finished (a sweep or tracking run cut short keeps its part). */
+    static final List<String> STAGES = List.of("inputs and frames", "compare", "stress sweep", "servo set and rehearsal", "tracking");
+
+    /** Commits the stages done and says so in one line; exit code 130. */
+    private static int stopped(AtomicOutput output, PrintWriter w, int stagesDone) throws org.targetbench.export.OutputException {
+        output.commit();
+        w.println(SweepJob.stoppedLine(stagesDone, STAGES.size(), "stages (" + String.join(", ", STAGES.subList(0, stagesDone)) + ")", output.target()));
+        w.flush();
+        return SweepJob.EXIT_CANCELLED;
+    }
+
     @Override
     public Integer call() throws Exception {
         var configs = detectorOptions.configs();
         PrintWriter w = spec.commandLine().getOut();
-        try (AtomicOutput output = AtomicOutput.open(out)) {
+        try (AtomicOutput output = AtomicOutput.open(out); SweepJob job = new SweepJob()) {
             w.println("Demo scenario: target " + DemoScenario.target().name() + " on the fixture plate, camera "
                     + DemoScenario.camera().width() + "x" + DemoScenario.camera().height() + " at " + DemoScenario.STANDOFF_M + " m.");
             w.flush();
@@ -84,6 +95,7 @@ final class DemoCommand implements Callable<Integer> {
             CameraFile.write(DemoScenario.camera(), output.file("camera.json"));
             PosesFile.write(DemoScenario.poses(), output.file("poses.json"));
             FrameSetWriter.write(DemoScenario.source(), output, "frames", new ConsoleProgress("rendering"));
+            if (job.cancelled()) return stopped(output, w, 1);
             // compare on the written frames exactly as 'compare --frames' would
             CompareResult result;
             try (ImageFolderSource frames = ImageFolderSource.open(output.folder("frames"), null, out.resolve("frames").toString())) {
@@ -91,12 +103,12 @@ final class DemoCommand implements Callable<Integer> {
             }
             CompareWriter.write(result, output);
             var overlays = OverlayWriter.write(result, output);
+            if (job.cancelled()) return stopped(output, w, 2);
             SweepResult sweep;
-            try (SweepJob job = new SweepJob()) {
-                sweep = new SweepRun(demoSweep(configs)).run(SweepBase.render(DemoScenario.target(), DemoScenario.camera(),
-                        DemoScenario.lighting(), DemoScenario.STANDOFF_M, SWEEP_VIEWS, 1), new ConsoleProgress("stress sweep"), job::cancelled);
-                SweepCommand.write(sweep, Map.of(), output.sub("sweep"));
-            }
+            sweep = new SweepRun(demoSweep(configs)).run(SweepBase.render(DemoScenario.target(), DemoScenario.camera(),
+                    DemoScenario.lighting(), DemoScenario.STANDOFF_M, SWEEP_VIEWS, 1), new ConsoleProgress("stress sweep"), job::cancelled);
+            SweepCommand.write(sweep, Map.of(), output.sub("sweep"));
+            if (job.cancelled()) return stopped(output, w, 3);
             // pick a servo set from the results just written, exactly as 'pick --from' would, then rehearse it
             ResultsFolder.Data data = ResultsFolder.read(output.folder("."), ResultsFolder.Overrides.none(), out.toString());
             PickRun.Result pick = ServoSteps.pick(data, null, new SelectConfig());
@@ -105,12 +117,14 @@ final class DemoCommand implements Callable<Integer> {
             rc.starts = REHEARSAL_STARTS;
             String setName = out.resolve("servo-set.json").toString();
             RehearsalResult rehearsal = ServoSteps.rehearse(pick.set().orElseThrow(), setName, rc, output, "rehearsal/");
+            if (job.cancelled()) return stopped(output, w, 4);
             org.targetbench.pipeline.TrackResult tracking;
             try (org.targetbench.export.TrackWriter tw = new org.targetbench.export.TrackWriter(output.sub("tracking"))) {
                 tracking = new org.targetbench.pipeline.TrackRun(new org.targetbench.track.KltConfig(), TrackCommand.seeding("shi-tomasi"), 30, false, 0)
-                        .run(org.targetbench.pipeline.MotionScenarios.open(TRACK_MOTION), tw, new ConsoleProgress("tracking"), () -> false);
+                        .run(org.targetbench.pipeline.MotionScenarios.open(TRACK_MOTION), tw, new ConsoleProgress("tracking"), job::cancelled);
                 tw.finish(tracking);
             }
+            if (job.cancelled()) return stopped(output, w, 5);
             output.commit();
             Path target = output.target();
             ConsoleTable.print(result, w);
