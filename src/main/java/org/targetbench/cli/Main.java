@@ -26,6 +26,13 @@ public final class Main implements Runnable {
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
 
+    /** --overwrite, given to every command: let --out replace files this tool did not write. */
+    @CommandLine.Option(names = "--overwrite", scope = CommandLine.ScopeType.INHERIT,
+            description = "Let --out replace files this tool did not write (default: refuse such a folder).")
+    void setOverwrite(boolean overwrite) {
+        org.targetbench.export.AtomicOutput.allowOverwrite(overwrite);
+    }
+
     @Override
     public void run() {
         spec.commandLine().usage(spec.commandLine().getOut());
@@ -37,7 +44,13 @@ public final class Main implements Runnable {
 
     /** A command line wired with this tool's error handling. */
     public static CommandLine commandLine() {
+        org.targetbench.export.AtomicOutput.allowOverwrite(false);
+        org.targetbench.export.AtomicOutput.guardWholeFolders(true);
         CommandLine cl = new CommandLine(new Main());
+        org.targetbench.export.AtomicOutput.onNotice(m -> {
+            cl.getErr().println("targetbench: note: " + m);
+            cl.getErr().flush();
+        });
         cl.setExecutionExceptionHandler((ex, cmd, parseResult) -> {
             PrintWriter err = cmd.getErr();
             if (ex instanceof UserError || ex instanceof SourceException || ex instanceof OutputException) {

@@ -56,7 +56,7 @@ final class RecordCommand implements Callable<Integer> {
         if (Files.isDirectory(out)) throw new UserError("--out must name a video file, not a folder: " + out);
         Path folder = out.toAbsolutePath().getParent();
         String truthName = name.substring(0, name.lastIndexOf('.')) + ".truth.json";
-        try (FrameSource src = SourceSpec.open(source, null); AtomicOutput output = AtomicOutput.open(folder); SweepJob job = new SweepJob()) {
+        try (FrameSource src = SourceSpec.open(source, null); AtomicOutput output = AtomicOutput.openBeside(folder); SweepJob job = new SweepJob()) {
             double rate = fps != null ? fps : src instanceof MotionSource m ? m.config().fps : 30;
             if (!(rate > 0) || !Double.isFinite(rate)) throw new UserError("--fps must be > 0, got " + rate);
             Map<String, FrameTruth> truth = new LinkedHashMap<>();

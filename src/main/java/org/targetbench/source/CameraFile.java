@@ -30,6 +30,14 @@ public final class CameraFile {
     }
 
     public static CameraModel read(Path file) throws SourceException {
+        CameraModel c = readUnchecked(file);
+        var implausible = org.targetbench.camera.CameraChecks.problem(c);
+        if (implausible.isPresent()) throw new SourceException(file + ": camera " + implausible.get());
+        return c;
+    }
+
+    /** As {@link #read}, without the plausibility checks of {@link org.targetbench.camera.CameraChecks}. */
+    static CameraModel readUnchecked(Path file) throws SourceException {
         JsonIn.Parsed parsed = JsonIn.parse(file);
         JsonIn in = parsed.in();
         JsonNode r = parsed.root();
@@ -45,8 +53,6 @@ public final class CameraFile {
         } catch (IllegalArgumentException e) {
             throw in.error("camera", e.getMessage());
         }
-        var implausible = org.targetbench.camera.CameraChecks.problem(c);
-        if (implausible.isPresent()) throw in.error("camera", implausible.get());
         return c;
     }
 }

@@ -1,12 +1,18 @@
 package org.targetbench.cli;
 
-import java.nio.file.Path;
+import org.targetbench.export.AtomicOutput;
 
-/** Makes files in a folder count as written by an earlier run of this tool. */
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.StandardOpenOption;
+import java.util.List;
+
+/** Makes files in a folder count as written by an earlier run of this tool (listed in its manifest). */
 final class OutputGuardFixture {
     private OutputGuardFixture() {}
 
-    static void adopt(Path folder, String... files) {
-        // no output-folder guard yet: every file counts as the tool's own
+    static void adopt(Path folder, String... files) throws IOException {
+        Files.write(folder.resolve(AtomicOutput.MANIFEST), List.of(files), StandardOpenOption.CREATE, StandardOpenOption.APPEND);
     }
 }

@@ -138,6 +138,7 @@ class StrictInputTest {
         // an earlier run's file in --out must come through untouched
         Path earlier = out.resolve("earlier.txt");
         Files.writeString(earlier, "kept");
+        OutputGuardFixture.adopt(out, "earlier.txt"); // an earlier run's file, so the output-folder guard is not what refuses the run
         Cli.Result r = Cli.run(args);
         assertEquals(2, r.exit(), "exit code; stderr was: " + r.err() + " stdout: " + r.out());
         String[] lines = r.err().strip().split("\\R");
