@@ -78,7 +78,7 @@ public final class ServoSetCsv {
     }
 
     public static ServoSet read(Path file) throws SourceException {
-        if (!Files.isRegularFile(file)) throw new SourceException("file not found: " + file);
+        if (!Files.isRegularFile(file)) throw org.targetbench.source.Missing.file(file, "file");
         List<String> lines;
         try {
             lines = Files.readAllLines(file, StandardCharsets.UTF_8);

@@ -40,7 +40,7 @@ public final class ImageFolderSource implements FrameSource {
 
     /** As {@link #open(Path, Path)}, shown to people as {@code description}. */
     public static ImageFolderSource open(Path folder, Path truthFile, String description) throws SourceException {
-        if (!Files.isDirectory(folder)) throw new SourceException("frame folder not found: " + folder);
+        if (!Files.isDirectory(folder)) throw Missing.folder(folder, "frame folder");
         List<Path> files;
         try (Stream<Path> s = Files.list(folder)) {
             files = s.filter(p -> ImageFiles.isImageName(p.getFileName().toString()) && !Files.isDirectory(p))

@@ -30,8 +30,7 @@ public final class JsonIn {
 
     /** Parses a whole file; throws with the line and column of a syntax error. */
     public static Parsed parse(Path file) throws SourceException {
-        if (Files.isDirectory(file)) throw new SourceException("is a folder, expected a JSON file: " + file);
-        if (!Files.isRegularFile(file)) throw new SourceException("file not found: " + file);
+        if (!Files.isRegularFile(file)) throw Missing.file(file, "file");
         try (JsonParser p = MAPPER.createParser(file.toFile())) {
             JsonNode root = MAPPER.readTree(p);
             if (root == null || !root.isObject()) throw new SourceException("malformed JSON in " + file + ": expected an object at the top level");

@@ -110,7 +110,7 @@ public final class TargetFile {
                     in.number(root, "quiet_zone_mm", "target", 0), shapes, features,
                     root.path("pattern").asText("custom"), params);
         } catch (IllegalArgumentException e) {
-            throw in.error("target", e.getMessage());
+            throw in.error("design:", e.getMessage()); // the message names what ("target size ...", "feature 3 ...")
         }
         // a design with nothing for a detector to find would pass every check and win every comparison with 1.0
         if (org.targetbench.target.FeatureVisibility.drawnCount(d) == 0)

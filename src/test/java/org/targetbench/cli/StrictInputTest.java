@@ -125,6 +125,11 @@ class StrictInputTest {
                 "--standoff", "300", "--out", "OUT"));
         c.add(new Case("shootout: two designs with one id", "two designs have the id", "shootout", "--targets", TARGET + "," + TARGET, "--camera", CAMERA,
                 "--standoff", "300", "--out", "OUT"));
+        String negative = text("negative.json", Files.readString(Path.of(TARGET)).replaceFirst("\"width_mm\"\\s*:\\s*[0-9.]+", "\"width_mm\": -5")).toString();
+        c.add(new Case("render: negative design size (wording: once 'target')", "design: target size must be positive", "render", "--target", negative,
+                "--camera", CAMERA, "--poses", poses, "--out", "OUT"));
+        c.add(new Case("rehearse: --set names a folder (wording: not 'file not found')", "is a folder, expected a file", "rehearse", "--set",
+                Files.createDirectories(tmp.resolve("set.json")).toString(), "--out", "OUT"));
         c.add(new Case("track: --frames 0", "--frames must be >= 1", "track", "--source", frames.toString(), "--frames", "0", "--out", "OUT"));
         return c.stream().map(Arguments::of);
     }
