@@ -130,6 +130,19 @@ class StrictInputTest {
                 "--camera", CAMERA, "--poses", poses, "--out", "OUT"));
         c.add(new Case("rehearse: --set names a folder (wording: not 'file not found')", "is a folder, expected a file", "rehearse", "--set",
                 Files.createDirectories(tmp.resolve("set.json")).toString(), "--out", "OUT"));
+        // a count of 0 is an error wherever it is not documented to mean something
+        String set = text("good-set.json", org.targetbench.export.ServoSetJson.toJson(org.targetbench.servo.ServoFixtures.centredSquare(100, 0.5)).toString()).toString();
+        c.add(new Case("rehearse: --starts 0", "--starts", "rehearse", "--set", set, "--starts", "0", "--out", "OUT"));
+        c.add(new Case("sweep: --views 0", "--views", "sweep", "--target", TARGET, "--views", "0", "--out", "OUT"));
+        c.add(new Case("sweep: --levels 0", "--levels", "sweep", "--target", TARGET, "--levels", "0", "--out", "OUT"));
+        c.add(new Case("compare: --max-features 0", "0", "compare", "--frames", frames.toString(), "--max-features", "0", "--out", "OUT"));
+        c.add(new Case("pick: --count 0", "--count", "pick", "--from", tmp.toString(), "--count", "0", "--out", "OUT/set.json"));
+        c.add(new Case("record: --frames 0", "--frames must be >= 1", "record", "--source", frames.toString(), "--frames", "0", "--out", "OUT/clip.avi"));
+        c.add(new Case("design: --count 0", "0", "design", "--pattern", "xcorners", "--count", "0", "--out", "OUT"));
+        c.add(new Case("shootout: --views 0", "--views", "shootout", "--targets", TARGET + "," + DESIGNS.resolve("fixture-dots20/target.json"),
+                "--camera", CAMERA, "--standoff", "300", "--views", "0", "--out", "OUT"));
+        c.add(new Case("calibrate: photo is a dangling link", "dangling link", "calibrate", "--frames", dangling.toString(), "--board", "9x6",
+                "--square", "25", "--out", "OUT/camera.json"));
         c.add(new Case("track: --frames 0", "--frames must be >= 1", "track", "--source", frames.toString(), "--frames", "0", "--out", "OUT"));
         return c.stream().map(Arguments::of);
     }
@@ -139,7 +152,7 @@ class StrictInputTest {
     void refusedWithOneLine(Case k) throws IOException {
         Path out = tmp.resolve("out-" + Math.abs(k.name().hashCode()));
         Files.createDirectories(out);
-        String[] args = Arrays.stream(k.args()).map(a -> a.equals("OUT") ? out.toString() : a).toArray(String[]::new);
+        String[] args = Arrays.stream(k.args()).map(a -> a.startsWith("OUT") ? out + a.substring(3) : a).toArray(String[]::new);
         // an earlier run's file in --out must come through untouched
         Path earlier = out.resolve("earlier.txt");
         Files.writeString(earlier, "kept");
