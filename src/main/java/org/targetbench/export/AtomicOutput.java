@@ -130,7 +130,11 @@ public final class AtomicOutput implements AutoCloseable {
             throw new OutputException("cannot create output folder " + dir + ": " + e.getFile() + " is in the way");
         } catch (IOException | SecurityException e) {
             if (o != null) o.close();
-            throw new OutputException("cannot write to output folder " + dir + ": " + oneLine(e));
+            String why = oneLine(e);
+            // the file-system message often is just the folder's own path: say only what went wrong with it
+            if (e instanceof java.nio.file.FileSystemException f && f.getFile() != null && Path.of(f.getFile()).toAbsolutePath().normalize().equals(target))
+                why = why.substring(f.getFile().length()).strip();
+            throw new OutputException("cannot write to output folder " + dir + ": " + why);
         } catch (OutputException | RuntimeException e) {
             if (o != null) o.close();
             throw e;
