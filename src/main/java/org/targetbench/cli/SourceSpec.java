@@ -6,6 +6,7 @@ import org.targetbench.source.ImageFolderSource;
 import org.targetbench.source.MjpegSource;
 import org.targetbench.source.Mp4Source;
 import org.targetbench.source.SourceException;
+import org.targetbench.source.TruthCheckedSource;
 import org.targetbench.source.Webcams;
 
 import java.nio.file.Files;
@@ -60,10 +61,10 @@ public final class SourceSpec {
                 throw new UserError("unknown source scheme \"" + m.group(1) + ":\"; use " + HELP);
             throw new SourceException("source not found: " + s);
         }
-        if (Files.isDirectory(p)) return ImageFolderSource.open(p, truth);
+        if (Files.isDirectory(p)) return TruthCheckedSource.wrap(ImageFolderSource.open(p, truth));
         String n = p.getFileName().toString().toLowerCase(Locale.ROOT);
-        if (n.endsWith(".mp4") || n.endsWith(".mov") || n.endsWith(".m4v")) return Mp4Source.open(p, truth);
-        if (n.endsWith(".avi") || n.endsWith(".mjpeg") || n.endsWith(".mjpg")) return MjpegSource.open(p, truth);
+        if (n.endsWith(".mp4") || n.endsWith(".mov") || n.endsWith(".m4v")) return TruthCheckedSource.wrap(Mp4Source.open(p, truth));
+        if (n.endsWith(".avi") || n.endsWith(".mjpeg") || n.endsWith(".mjpg")) return TruthCheckedSource.wrap(MjpegSource.open(p, truth));
         throw new SourceException("unsupported source file " + p + ": use " + HELP);
     }
 }

@@ -143,6 +143,8 @@ class StrictInputTest {
                 "--camera", CAMERA, "--standoff", "300", "--views", "0", "--out", "OUT"));
         c.add(new Case("calibrate: photo is a dangling link", "dangling link", "calibrate", "--frames", dangling.toString(), "--board", "9x6",
                 "--square", "25", "--out", "OUT/camera.json"));
+        c.add(new Case("track: another clip's truth (same frame count and size)", "does not fit the footage", "track", "--source",
+                "sample-video/approach.mp4", "--truth", "sample-video/orbit.truth.json", "--out", "OUT"));
         c.add(new Case("track: --frames 0", "--frames must be >= 1", "track", "--source", frames.toString(), "--frames", "0", "--out", "OUT"));
         return c.stream().map(Arguments::of);
     }
