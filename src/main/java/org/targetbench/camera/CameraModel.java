@@ -34,8 +34,16 @@ import georegression.struct.point.Point2D_F64;
 public record CameraModel(int width, int height, double fx, double fy, double cx, double cy,
                           double k1, double k2, double k3, double p1, double p2) {
 
+    /**
+     * Largest image side this tool accepts, pixels (16,384: a 16k x 16k grey image already needs 1 GiB as floats).
+     * Larger cameras and images are refused before any pixels are allocated.
+     */
+    public static final int MAX_SIDE = 16_384;
+
     public CameraModel {
         if (width < 1 || height < 1) throw new IllegalArgumentException("image size must be positive, got " + width + " x " + height);
+        if (width > MAX_SIDE || height > MAX_SIDE)
+            throw new IllegalArgumentException("image size " + width + " x " + height + " exceeds the cap of " + MAX_SIDE + " x " + MAX_SIDE + " px");
         if (!(fx > 0) || !(fy > 0) || !Double.isFinite(fx) || !Double.isFinite(fy))
             throw new IllegalArgumentException("focal lengths must be positive and finite, got fx=" + fx + " fy=" + fy);
         for (double v : new double[]{cx, cy, k1, k2, k3, p1, p2})

@@ -19,13 +19,15 @@ public final class Projection {
     public record ProjectedFeature(int featureId, double u, double v, double depthM) {}
 
     /**
-     * Pixel of each target feature that lies in front of the camera and inside the image, in feature-id order.
+     * Pixel of each target feature that is drawn ({@link org.targetbench.target.FeatureVisibility}), lies in front of the
+     * camera and inside the image, in feature-id order.
      */
     public static List<ProjectedFeature> visibleFeatures(TargetDesign design, CameraModel camera, Pose pose) {
         Point2Transform2_F64 toPixel = camera.normalisedToPixel();
         Point2D_F64 px = new Point2D_F64();
         List<ProjectedFeature> out = new ArrayList<>();
         for (TargetFeature f : design.features()) {
+            if (!org.targetbench.target.FeatureVisibility.drawn(design, f)) continue; // hidden under a later shape: not truth
             double[] pc = pose.targetToCamera(f.xMm(), f.yMm());
             if (!(pc[2] > 0)) continue;
             toPixel.compute(pc[0] / pc[2], pc[1] / pc[2], px);

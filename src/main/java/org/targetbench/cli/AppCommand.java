@@ -13,6 +13,7 @@ final class AppCommand implements Callable<Integer> {
     public Integer call() throws Exception {
         if (!WorkbenchApp.canShowWindows())
             throw new UserError("no display to open a window on; set DISPLAY (or use the command-line tools)");
+        org.targetbench.export.AtomicOutput.guardWholeFolders(false); // folders are picked in a save dialog; same-named files are still guarded
         var w = WorkbenchApp.open(Preferences.userRoot().node(WorkbenchApp.PREFS_NODE));
         // keep the command running until the window closes
         while (w.isDisplayable()) Thread.sleep(250);

@@ -92,12 +92,15 @@ final class CalibrateCommand implements Callable<Integer> {
         }
         CalibrationResult r = (CalibrationResult) outcome;
         List<String> written;
-        try (AtomicOutput output = AtomicOutput.open(dir)) {
+        try (AtomicOutput output = AtomicOutput.openBeside(dir)) {
             written = new ArrayList<>(CalibrationWriter.write(r, frames.toString(), output, stem));
             written.add(CoveragePlot.write(r, output, stem + ".coverage.png"));
             output.commit();
         }
         print(r, config, frames, written, dir, spec.commandLine().getOut());
+        org.targetbench.camera.CameraChecks.problem(r.camera()).ifPresent(p -> spec.commandLine().getOut().println(
+                "Warning: the calibrated camera's " + p + ". Other commands will refuse it: take more photos with the board near the image corners."));
+        spec.commandLine().getOut().flush();
         return 0;
     }
 

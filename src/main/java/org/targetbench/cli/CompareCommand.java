@@ -37,8 +37,9 @@ final class CompareCommand implements Callable<Integer> {
     public Integer call() throws Exception {
         var configs = detectorOptions.configs();
         try (ImageFolderSource source = ImageFolderSource.open(frames, truth);
-             AtomicOutput output = AtomicOutput.open(out)) {
-            CompareResult result = new CompareRun(configs, detectorOptions.epsilon).run(source, new ConsoleProgress("detecting"));
+             AtomicOutput output = AtomicOutput.open(out); SweepJob job = new SweepJob()) {
+            StoppableFrames stoppable = new StoppableFrames(source, job::cancelled, 2 * Runtime.getRuntime().availableProcessors());
+            CompareResult result = new CompareRun(configs, detectorOptions.epsilon).run(stoppable, stoppable.progress(new ConsoleProgress("detecting")));
             CompareWriter.write(result, output);
             OverlayWriter.write(result, output);
             output.commit();
@@ -46,8 +47,9 @@ final class CompareCommand implements Callable<Integer> {
             ConsoleTable.print(result, w);
             w.println();
             w.println("Results written to " + output.target());
+            if (stoppable.stopped()) w.println(SweepJob.stoppedLine(stoppable.read(), source.frameCount(), "frames", output.target()));
             w.flush();
+            return stoppable.stopped() ? SweepJob.EXIT_CANCELLED : 0;
         }
-        return 0;
     }
 }

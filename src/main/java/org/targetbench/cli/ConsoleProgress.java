@@ -7,7 +7,8 @@ import java.util.Locale;
 
 /**
  * Progress on stderr for interactive use: a single self-overwriting line with a bar, the count and an ETA when the
- * total is known. Silent when stderr is not a terminal, so pipes, logs and tests stay clean.
+ * total is known. Silent when stderr is not a terminal, so pipes, logs and tests stay clean (TARGETBENCH_PROGRESS=1 turns
+ * it on anyway; the interrupt tests use it to see a run under way).
  */
 final class ConsoleProgress implements Progress {
     private static final int BAR = 28;
@@ -22,7 +23,7 @@ final class ConsoleProgress implements Progress {
     private int lastLength;
 
     ConsoleProgress(String label) {
-        this(label, System.console() != null);
+        this(label, System.console() != null || "1".equals(System.getenv("TARGETBENCH_PROGRESS")));
     }
 
     ConsoleProgress(String label, boolean enabled) {

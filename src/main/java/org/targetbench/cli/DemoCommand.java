@@ -54,21 +54,40 @@ final class DemoCommand implements Callable<Integer> {
 
     @Mixin DetectorOptions detectorOptions;
 
+    /** The demo's stages: the run's own, then the rehearsal on the demo arm. */
+    static final List<String> STAGES = java.util.stream.Stream.concat(DemoRun.STAGES.stream(), java.util.stream.Stream.of("arm rehearsal")).toList();
+
+    /** Commits the stages done and says so in one line; exit code 130. */
+    private static int stopped(AtomicOutput output, PrintWriter w, int stagesDone) throws org.targetbench.export.OutputException {
+        output.commit();
+        w.println(SweepJob.stoppedLine(stagesDone, STAGES.size(), "stages (" + String.join(", ", STAGES.subList(0, stagesDone)) + ")", output.target()));
+        w.flush();
+        return SweepJob.EXIT_CANCELLED;
+    }
+
     @Override
     public Integer call() throws Exception {
         var configs = detectorOptions.configs();
         PrintWriter w = spec.commandLine().getOut();
-        try (AtomicOutput output = AtomicOutput.open(out)) {
+        try (AtomicOutput output = AtomicOutput.open(out); SweepJob job = new SweepJob()) {
             w.println("Demo scenario: target " + DemoScenario.target().name() + " on the fixture plate, camera "
                     + DemoScenario.camera().width() + "x" + DemoScenario.camera().height() + " at " + DemoScenario.STANDOFF_M + " m.");
             w.flush();
             DemoRun.Result demo;
             String setName = out.resolve("servo-set.json").toString();
-            try (SweepJob job = new SweepJob(); TrackWriter tw = new TrackWriter(output.sub("tracking"))) {
+            TrackWriter[] tw = {null};
+            try {
                 DemoRun.Steps steps = new DemoRun.Steps() {
                     @Override public Progress progress(String step) { return new ConsoleProgress(step); }
                     @Override public boolean cancelled() { return job.cancelled(); }
-                    @Override public TrackSink trackSink() { return tw; }
+                    @Override public TrackSink trackSink() {
+                        try {
+                            if (tw[0] == null) tw[0] = new TrackWriter(output.sub("tracking"));
+                        } catch (java.io.IOException e) {
+                            throw new java.io.UncheckedIOException(e);
+                        }
+                        return tw[0];
+                    }
                 };
                 try {
                     demo = DemoRun.run(configs, detectorOptions.epsilon, out.resolve("frames").toString(),
@@ -78,25 +97,32 @@ final class DemoCommand implements Callable<Integer> {
                 } catch (PickRun.Refused e) {
                     throw new UserError(PickRefusals.explain(e, new PickRefusals.Where(out.toString(), "frames/truth.json", "poses.json", "frame_000.png")));
                 }
-                tw.finish(demo.tracking());
-                TargetFile.write(DemoScenario.target(), output.file("target.json"));
-                CameraFile.write(DemoScenario.camera(), output.file("camera.json"));
-                PosesFile.write(DemoScenario.poses(), output.file("poses.json"));
-                FrameSetWriter.write(new FrameList(out.resolve("frames").toString(), demo.frames(), demo.compare().referenceName()), output,
-                        "frames", Progress.NONE);
-                CompareWriter.write(demo.compare(), output);
-                SweepCommand.write(demo.sweep(), Map.of(), output.sub("sweep"));
+                if (demo.tracking() != null) tw[0].finish(demo.tracking());
+            } finally {
+                if (tw[0] != null) tw[0].close();
             }
+            TargetFile.write(DemoScenario.target(), output.file("target.json"));
+            CameraFile.write(DemoScenario.camera(), output.file("camera.json"));
+            PosesFile.write(DemoScenario.poses(), output.file("poses.json"));
+            FrameSetWriter.write(new FrameList(out.resolve("frames").toString(), demo.frames(), DemoScenario.source().referenceName()), output,
+                    "frames", Progress.NONE);
+            if (demo.stagesDone() < 2) return stopped(output, w, demo.stagesDone());
             CompareResult result = demo.compare();
+            CompareWriter.write(result, output);
             var overlays = OverlayWriter.write(result, output);
+            if (demo.stagesDone() < 3) return stopped(output, w, demo.stagesDone());
             SweepResult sweep = demo.sweep();
+            SweepCommand.write(sweep, Map.of(), output.sub("sweep"));
+            if (demo.stagesDone() < 4) return stopped(output, w, demo.stagesDone());
             PickRun.Result pick = demo.pick();
             if (pick.set().isEmpty()) throw new ServoSteps.NoAcceptableSet(Reasons.selection(pick.selection()));
             List<String> setFiles = ServoSteps.writePick(pick, output, "servo-set");
             RehearsalResult rehearsal = demo.rehearsal();
             ServoSteps.writeRehearsal(rehearsal, pick.set().get(), setName, demo.rehearsalSeconds(), output, "rehearsal/");
+            if (demo.stagesDone() < 5 || job.cancelled()) return stopped(output, w, demo.stagesDone());
             org.targetbench.pipeline.TrackResult tracking = demo.tracking();
             var armRehearsal = DemoArmStep.run(pick.set().orElseThrow(), setName, output);
+            if (job.cancelled()) return stopped(output, w, STAGES.size());
             output.commit();
             Path target = output.target();
             ConsoleTable.print(result, w);

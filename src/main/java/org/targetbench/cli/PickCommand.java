@@ -79,7 +79,7 @@ final class PickCommand implements Callable<Integer> {
         Path dir = file.toAbsolutePath().getParent();
         String stem = name.substring(0, name.length() - ".json".length());
         List<String> written;
-        try (AtomicOutput output = AtomicOutput.open(dir)) {
+        try (AtomicOutput output = AtomicOutput.openBeside(dir)) {
             written = ServoSteps.writePick(r, output, stem);
             output.commit();
         }

@@ -54,7 +54,9 @@ final class RecordCommand implements Callable<Integer> {
     @Override
     public Integer call() throws Exception {
         if (quality < 1 || quality > 100) throw new UserError("--quality must be 1..100, got " + quality);
-        if (frames < 0) throw new UserError("--frame-count must be >= 1 (or 0 for all), got " + frames);
+        var parsed = spec.commandLine().getParseResult();
+        if (frames < 0 || frames == 0 && (parsed.hasMatchedOption("--frame-count") || parsed.hasMatchedOption("--frames")))
+            throw new UserError("--frame-count must be >= 1, got " + frames + " (leave it out to record every frame)");
         String name = out.getFileName().toString();
         String lower = name.toLowerCase(java.util.Locale.ROOT);
         if (!(lower.endsWith(".mp4") || lower.endsWith(".avi") || lower.endsWith(".mjpeg") || lower.endsWith(".mjpg")))
@@ -62,7 +64,7 @@ final class RecordCommand implements Callable<Integer> {
         if (Files.isDirectory(out)) throw new UserError("--out must name a video file, not a folder: " + out);
         Path folder = out.toAbsolutePath().getParent();
         String truthName = name.substring(0, name.lastIndexOf('.')) + ".truth.json";
-        try (FrameSource src = SourceSpec.open(source, null); AtomicOutput output = AtomicOutput.open(folder); SweepJob job = new SweepJob()) {
+        try (FrameSource src = SourceSpec.open(source, null); AtomicOutput output = AtomicOutput.openBeside(folder); SweepJob job = new SweepJob()) {
             double rate = fps != null ? fps : src instanceof MotionSource m ? m.config().fps : 30;
             if (!(rate > 0) || !Double.isFinite(rate)) throw new UserError("--fps must be > 0, got " + rate);
             Map<String, FrameTruth> truth = new LinkedHashMap<>();

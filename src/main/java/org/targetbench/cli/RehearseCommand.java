@@ -45,7 +45,7 @@ final class RehearseCommand implements Callable<Integer> {
     @Option(names = "--depth", paramLabel = "MODE", description = "Depths the controller believes: true, constant (Z*) or scaled (Z* x --depth-error) (default: true, or scaled when --depth-error is given).")
     String depth;
 
-    @Option(names = "--depth-error", paramLabel = "F", description = "Factor on Z* for --depth scaled, > 0 (1.2 = the controller thinks the target is 20% further).")
+    @Option(names = "--depth-error", paramLabel = "F", description = "Factor on Z* for --depth scaled, > 0 (1.2 = the controller thinks the target is 20 %% further).")
     Double depthError;
 
     @Option(names = "--noise", paramLabel = "PX", description = "Pixel noise standard deviation, >= 0 (default: each point's measured jitter, 0 where not measured).")

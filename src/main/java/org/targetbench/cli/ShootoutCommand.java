@@ -65,7 +65,12 @@ final class ShootoutCommand implements Callable<Integer> {
         SweepConfig sc = SweepCommand.config(detectorOptions, conditions.kinds, levels, views, conditions.seed);
         Map<Perturbation, Double> env = SweepCommand.envelope(conditions.envelope);
         List<TargetDesign> designs = new ArrayList<>();
-        for (Path t : targets) designs.add(TargetFile.read(t));
+        for (Path t : targets) {
+            TargetDesign d = TargetFile.read(t);
+            for (int i = 0; i < designs.size(); i++)
+                if (designs.get(i).id().equals(d.id())) throw new UserError("two designs have the id \"" + d.id() + "\": " + targets.get(i) + " and " + t + "; ids must differ within a shoot-out");
+            designs.add(d);
+        }
         CameraModel cam = camera.required("the intrinsics of the camera that will see the targets");
         try (AtomicOutput output = AtomicOutput.open(out); SweepJob job = new SweepJob()) {
             List<ShootoutRun.Entry> entries = new ShootoutRun(cam, standoffMm / 1000, tiltDeg, sc, env)

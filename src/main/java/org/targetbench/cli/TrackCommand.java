@@ -115,7 +115,9 @@ final class TrackCommand implements Callable<Integer> {
     public Integer call() throws Exception {
         KltConfig k = trackerConfig();
         DetectorConfig seed = seeding(detector);
-        if (frames < 0) throw new UserError("--frame-count must be >= 1 (or 0 for all), got " + frames);
+        var parsed = spec.commandLine().getParseResult();
+        if (frames < 0 || frames == 0 && (parsed.hasMatchedOption("--frame-count") || parsed.hasMatchedOption("--frames")))
+            throw new UserError("--frame-count must be >= 1, got " + frames + " (leave it out to track every frame)");
         if (survivalAt < 0) throw new UserError("--survival-at must be >= 0, got " + survivalAt);
         boolean live = SourceSpec.isLive(source);
         try (FrameSource src = SourceSpec.open(source, truth);

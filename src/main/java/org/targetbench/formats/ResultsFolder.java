@@ -7,6 +7,7 @@ import org.targetbench.source.ImageFiles;
 import org.targetbench.source.CsvIn;
 import org.targetbench.source.CameraFiles;
 import org.targetbench.source.JsonIn;
+import org.targetbench.source.Missing;
 import org.targetbench.source.FrameTruth;
 import org.targetbench.source.SourceException;
 import com.fasterxml.jackson.databind.JsonNode;
@@ -81,7 +82,7 @@ public final class ResultsFolder {
 
     /** @param folderName how to name the folder in messages (a staged folder is named as the user will see it) */
     public static Data read(Path folder, Overrides o, String folderName) throws SourceException {
-        if (!Files.isDirectory(folder)) throw new SourceException("results folder not found: " + folder);
+        if (!Files.isDirectory(folder)) throw Missing.folder(folder, "results folder");
         Path summaryFile = folder.resolve("summary.json"), detFile = folder.resolve("detections.csv");
         if (!Files.isRegularFile(summaryFile))
             throw new SourceException("file not found: " + summaryFile + " (give a folder written by 'targetbench demo' or 'compare')");
@@ -129,7 +130,7 @@ public final class ResultsFolder {
     /** The explicit file (which must exist), else the default when it exists, else null. */
     private static Path pick(Path explicit, Path fallback) throws SourceException {
         if (explicit != null) {
-            if (!Files.isRegularFile(explicit)) throw new SourceException("file not found: " + explicit);
+            if (!Files.isRegularFile(explicit)) throw Missing.file(explicit, "file");
             return explicit;
         }
         return Files.isRegularFile(fallback) ? fallback : null;

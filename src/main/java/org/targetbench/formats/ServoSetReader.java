@@ -36,10 +36,17 @@ public final class ServoSetReader {
     /** Reads {@code .json} or {@code .csv}. */
     public static ServoSet read(Path file) throws SourceException {
         String n = file.getFileName().toString().toLowerCase(Locale.ROOT);
-        if (n.endsWith(".csv")) return readCsv(file);
-        if (n.endsWith(".json")) return readJson(file);
-        throw new SourceException("cannot tell the format of " + file + ": a servo set ends in .json or .csv");
+        ServoSet set;
+        if (n.endsWith(".csv")) set = readCsv(file);
+        else if (n.endsWith(".json")) set = readJson(file);
+        else throw new SourceException("cannot tell the format of " + file + ": a servo set ends in .json or .csv");
+        var implausible = org.targetbench.camera.CameraChecks.problem(set.camera());
+        if (implausible.isPresent()) throw new SourceException(file + ": camera " + implausible.get());
+        var inconsistent = org.targetbench.servo.SetConsistency.problem(set.camera(), set.points());
+        if (inconsistent.isPresent()) throw new SourceException(file + ": " + inconsistent.get());
+        return set;
     }
+
 
 
     static ServoSet readJson(Path file) throws SourceException {
@@ -49,6 +56,8 @@ public final class ServoSetReader {
         if (!root.has("format")) throw in.error("format", "is missing; a servo set must say \"format\": \"" + ServoSetJson.FORMAT + "\"");
         if (!root.has("version")) throw in.error("version", "is missing; this build reads " + ServoSetJson.FORMAT + " versions 1.." + ServoSetJson.VERSION);
         in.expectFormat(root, ServoSetJson.FORMAT, ServoSetJson.VERSION);
+        in.knownKeys(root, "format", "version", "tool_version", "created", "safety", "conventions", "camera", "target", "reference_pose",
+                "reference_pose_method", "settings", "set", "points");
         JsonNode cam = root.get("camera");
         if (cam == null || !cam.isObject()) throw in.error("camera", "is missing: the intrinsics are needed");
         JsonNode dist = cam.path("distortion");
@@ -110,7 +119,7 @@ public final class ServoSetReader {
 
 
     static ServoSet readCsv(Path file) throws SourceException {
-        if (!Files.isRegularFile(file)) throw new SourceException("file not found: " + file);
+        if (!Files.isRegularFile(file)) throw org.targetbench.source.Missing.file(file, "file");
         List<String> lines;
         try {
             lines = Files.readAllLines(file, StandardCharsets.UTF_8);

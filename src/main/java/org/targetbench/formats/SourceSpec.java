@@ -7,6 +7,7 @@ import org.targetbench.source.ImageFolderSource;
 import org.targetbench.source.MjpegSource;
 import org.targetbench.source.FfmpegSource;
 import org.targetbench.source.SourceException;
+import org.targetbench.source.TruthCheckedSource;
 import org.targetbench.source.Webcams;
 
 import java.nio.file.Files;
@@ -64,12 +65,12 @@ public final class SourceSpec {
                 throw new SourceException("unknown source scheme \"" + m.group(1) + ":\"; use " + HELP);
             throw new SourceException("source not found: " + s);
         }
-        if (Files.isDirectory(p)) return ImageFolderSource.open(p, truth);
+        if (Files.isDirectory(p)) return TruthCheckedSource.wrap(ImageFolderSource.open(p, truth));
         String n = p.getFileName().toString().toLowerCase(Locale.ROOT);
-        if (n.endsWith(".mjpeg") || n.endsWith(".mjpg")) return MjpegSource.open(p, truth);
+        if (n.endsWith(".mjpeg") || n.endsWith(".mjpg")) return TruthCheckedSource.wrap(MjpegSource.open(p, truth));
         if (NOT_VIDEO.matcher(n).matches()) throw new SourceException("unsupported source file " + p + ": use " + HELP);
         if (IMAGE.matcher(n).matches())
             throw new SourceException("not a video: " + p + " is a single image; put the frames in a folder and give the folder");
-        return FfmpegSource.open(p, truth);
+        return TruthCheckedSource.wrap(FfmpegSource.open(p, truth));
     }
 }

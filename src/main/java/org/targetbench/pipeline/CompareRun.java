@@ -70,6 +70,7 @@ public final class CompareRun {
 
     public CompareResult run(FrameSource source, Progress progress) throws SourceException, InterruptedException {
         int total = source.frameCount();
+        int threads = MemoryBudget.plan(source.width(), source.height(), configs, this.threads, 2).workers();
         ExecutorService pool = Executors.newFixedThreadPool(threads, r -> {
             Thread t = new Thread(r, "targetbench-detect");
             t.setDaemon(true);

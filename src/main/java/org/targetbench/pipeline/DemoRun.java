@@ -48,14 +48,25 @@ public final class DemoRun {
      * @param rehearsalSeconds wall-clock time of the rehearsal, seconds
      */
     public record Result(List<SourceFrame> frames, CompareResult compare, SweepResult sweep, PickRun.Result pick,
-                         RehearsalResult rehearsal, double rehearsalSeconds, TrackResult tracking) {}
+                         RehearsalResult rehearsal, double rehearsalSeconds, TrackResult tracking, int stagesDone) {
+        /** True when a stop request ended the run before its last stage; the later fields are then null. */
+        public boolean stoppedEarly() {
+            return stagesDone < STAGES.size();
+        }
+    }
+
+    /**
+     * The demo's stages, in order. A stop request is honoured between stages (a sweep or tracking run cut short keeps
+     * the part it finished and counts as done); the result then holds the stages done and null for the rest.
+     */
+    public static final List<String> STAGES = List.of("frames", "compare", "stress sweep", "servo set and rehearsal", "tracking");
 
     /** Where the run reports and what it streams to. */
     public interface Steps {
         /** Progress of one step ("rendering", "detecting", "stress sweep", "tracking"). */
         Progress progress(String step);
 
-        /** Asked between sweep cells: stop early. */
+        /** Asked between stages, sweep cells and tracked frames: stop early. */
         boolean cancelled();
 
         /** Takes the tracking rows as they come. */
@@ -90,19 +101,23 @@ public final class DemoRun {
                 p.update(frames.size(), src.frameCount(), f.get().name());
             }
         }
+        if (steps.cancelled()) return new Result(frames, null, null, null, null, 0, null, 1);
         String reference = DemoScenario.source().referenceName();
         CompareResult compare = new CompareRun(configs, epsilon)
                 .run(new FrameList(framesDescription, frames, reference), steps.progress("detecting"));
+        if (steps.cancelled()) return new Result(frames, compare, null, null, null, 0, null, 2);
         SweepResult sweep = new SweepRun(sweepConfig(configs, epsilon)).run(SweepBase.render(DemoScenario.target(), DemoScenario.camera(),
                 DemoScenario.lighting(), DemoScenario.STANDOFF_M, SWEEP_VIEWS, 1), steps.progress("stress sweep"), steps::cancelled);
+        if (steps.cancelled()) return new Result(frames, compare, sweep, null, null, 0, null, 3);
         PickRun.Result pick = PickRun.run(pickInput.apply(compare, frames), null, new CandidateConfig(), new SelectConfig(), toolVersion, created);
         RehearsalConfig rc = new RehearsalConfig();
         rc.starts = REHEARSAL_STARTS;
         long t0 = System.nanoTime();
         RehearsalResult rehearsal = pick.set().isPresent() ? Rehearsal.run(pick.set().get(), rc) : null;
         double seconds = (System.nanoTime() - t0) / 1e9;
+        if (steps.cancelled()) return new Result(frames, compare, sweep, pick, rehearsal, seconds, null, 4);
         TrackResult tracking = new TrackRun(new KltConfig(), DetectorConfig.defaults(TRACK_SEEDING), SURVIVAL_AT_FRAME, false, 0)
-                .run(MotionScenarios.open(TRACK_MOTION), steps.trackSink(), steps.progress("tracking"), () -> false);
-        return new Result(frames, compare, sweep, pick, rehearsal, seconds, tracking);
+                .run(MotionScenarios.open(TRACK_MOTION), steps.trackSink(), steps.progress("tracking"), steps::cancelled);
+        return new Result(frames, compare, sweep, pick, rehearsal, seconds, tracking, 5);
     }
 }

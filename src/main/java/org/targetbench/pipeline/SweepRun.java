@@ -82,7 +82,9 @@ public final class SweepRun {
         List<DetectorConfig> dets = config.detectors;
         List<ThreadLocal<PointDetector>> detectors = dets.stream().map(c -> ThreadLocal.withInitial(() -> Detectors.create(c))).toList();
         Perturber perturber = new Perturber(config.perturb);
-        ExecutorService pool = Executors.newFixedThreadPool(config.threads, r -> {
+        var first = base.frames().isEmpty() ? null : base.frames().get(0).image();
+        int workers = first == null ? config.threads : MemoryBudget.plan(first.width, first.height, dets, config.threads, 3).workers();
+        ExecutorService pool = Executors.newFixedThreadPool(workers, r -> {
             Thread t = new Thread(r, "targetbench-sweep");
             t.setDaemon(true);
             return t;
@@ -126,10 +128,10 @@ public final class SweepRun {
                     .thenComparingInt(SweepRow::level).thenComparingInt(SweepRow::frame));
             Map<DetectorType, List<Detection>> sample = new LinkedHashMap<>();
             for (int d = 0; d < dets.size(); d++) sample.put(dets.get(d).type(), ref[d][0]);
-            var first = base.frames().get(0);
+            var firstFrame = base.frames().get(0);
             return new SweepResult(base.description(), dets, config.parameters, values, nf, config.seed, config.epsilon,
                     sorted, cancelled.getAsBoolean() && done.get() < cells.size(), done.get(), cells.size(),
-                    (System.nanoTime() - t0) / 1e9, first.image(), first.truth(), sample);
+                    (System.nanoTime() - t0) / 1e9, firstFrame.image(), firstFrame.truth(), sample);
         } finally {
             pool.shutdownNow();
         }

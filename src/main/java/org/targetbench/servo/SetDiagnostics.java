@@ -27,6 +27,8 @@ public final class SetDiagnostics {
     public static final double COINCIDENT_PX = 5.0;
     /** Scaled cond(L*) above which L* counts as near singular. */
     public static final double NEAR_SINGULAR_COND = 1000;
+    /** Pixel distance below which two points are the same point (a duplicate), an error. */
+    public static final double DUPLICATE_PX = 0.5;
 
     private SetDiagnostics() {}
 
@@ -46,6 +48,23 @@ public final class SetDiagnostics {
             out.add(new Finding(Kind.TOO_FEW_POINTS, Severity.ERROR, "only " + n + " point" + (n == 1 ? "" : "s")
                     + ": at least " + MIN_POINTS + " are needed (three points fit up to four camera poses, so the servo may settle at the wrong one)"));
             if (n < 2) return out;
+        }
+        // a duplicated point is reported as what it is, and the line test runs on the distinct points only
+        List<ServoPoint> distinct = new ArrayList<>();
+        for (ServoPoint p : pts) {
+            ServoPoint same = null;
+            for (ServoPoint q : distinct) if (Math.hypot(p.u() - q.u(), p.v() - q.v()) < DUPLICATE_PX) same = q;
+            if (same == null) distinct.add(p);
+            else out.add(new Finding(Kind.COINCIDENT, Severity.ERROR, String.format(Locale.ROOT,
+                    "points %d and %d are the same point (%.2f, %.2f) px: a duplicated point adds no information and makes L lose rank",
+                    same.id(), p.id(), p.u(), p.v())));
+        }
+        if (distinct.size() < pts.size()) {
+            if (distinct.size() < MIN_POINTS && n >= MIN_POINTS)
+                out.add(new Finding(Kind.TOO_FEW_POINTS, Severity.ERROR, "only " + distinct.size() + " distinct points: at least " + MIN_POINTS + " are needed"));
+            if (distinct.size() < 3) return out;
+            pts = distinct;
+            n = pts.size();
         }
         double ratio = spreadRatio(pts);
         if (ratio < COLLINEAR_RATIO)

@@ -30,18 +30,29 @@ public final class CameraFile {
     }
 
     public static CameraModel read(Path file) throws SourceException {
+        CameraModel c = readUnchecked(file);
+        var implausible = org.targetbench.camera.CameraChecks.problem(c);
+        if (implausible.isPresent()) throw new SourceException(file + ": camera " + implausible.get());
+        return c;
+    }
+
+    /** As {@link #read}, without the plausibility checks of {@link org.targetbench.camera.CameraChecks}. */
+    static CameraModel readUnchecked(Path file) throws SourceException {
         JsonIn.Parsed parsed = JsonIn.parse(file);
         JsonIn in = parsed.in();
         JsonNode r = parsed.root();
         in.expectFormat(r, FORMAT, VERSION);
+        in.knownKeys(r, "format", "version", "pixel_convention", "image_width", "image_height", "fx", "fy", "cx", "cy", "distortion");
         JsonNode d = r.path("distortion");
+        CameraModel c;
         try {
-            return new CameraModel(in.integer(r, "image_width", "camera"), in.integer(r, "image_height", "camera"),
+            c = new CameraModel(in.integer(r, "image_width", "camera"), in.integer(r, "image_height", "camera"),
                     in.number(r, "fx", "camera"), in.number(r, "fy", "camera"), in.number(r, "cx", "camera"), in.number(r, "cy", "camera"),
                     in.number(d, "k1", "distortion", 0), in.number(d, "k2", "distortion", 0), in.number(d, "k3", "distortion", 0),
                     in.number(d, "p1", "distortion", 0), in.number(d, "p2", "distortion", 0));
         } catch (IllegalArgumentException e) {
             throw in.error("camera", e.getMessage());
         }
+        return c;
     }
 }

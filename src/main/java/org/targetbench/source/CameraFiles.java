@@ -22,7 +22,23 @@ public final class CameraFiles {
 
     private CameraFiles() {}
 
+    /**
+     * Reads intrinsics and refuses an implausible camera ({@link org.targetbench.camera.CameraChecks}): a principal
+     * point outside the image, or radial distortion that folds or wildly magnifies the image before its corners.
+     */
     public static CameraModel read(Path file) throws SourceException {
+        CameraModel c = readUnchecked(file);
+        var implausible = org.targetbench.camera.CameraChecks.problem(c);
+        if (implausible.isPresent()) throw new SourceException(file + ": camera " + implausible.get());
+        return c;
+    }
+
+    /**
+     * As {@link #read}, without the plausibility checks: for looking at a file exactly as written (a calibration
+     * whose model folds near the corners is still written, with a warning, so that it can be inspected).
+     */
+    public static CameraModel readUnchecked(Path file) throws SourceException {
+        if (Files.isDirectory(file)) throw new SourceException("camera file " + file + " is a folder, expected a file");
         if (!Files.isRegularFile(file)) throw new SourceException("camera file not found: " + file);
         String text;
         try {
@@ -35,7 +51,7 @@ public final class CameraFiles {
         }
         String s = text.startsWith("\uFEFF") ? text.substring(1) : text;
         if (s.isBlank()) throw new SourceException("camera file " + file + " is empty");
-        if (s.stripLeading().startsWith("{")) return CameraFile.read(file);
+        if (s.stripLeading().startsWith("{")) return CameraFile.readUnchecked(file);
         return CameraYaml.read(file, s);
     }
 

@@ -27,6 +27,7 @@ public final class EnvelopeFile {
         JsonIn.Parsed parsed = JsonIn.parse(file);
         JsonIn in = parsed.in();
         in.expectFormat(parsed.root(), FORMAT, 1);
+        in.knownKeys(parsed.root(), "format", "version", "worst");
         JsonNode w = parsed.root().get("worst");
         if (w == null || !w.isObject() || w.isEmpty()) throw in.error("worst", "must be an object of parameter to harshest value, e.g. {\"blur.defocus\": 2.0}");
         Map<String, Double> out = new LinkedHashMap<>();

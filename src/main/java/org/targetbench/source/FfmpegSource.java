@@ -94,7 +94,7 @@ public final class FfmpegSource implements FrameSource {
             String decoder = preferredDecoder(p.codec());
             if (decoder != null) g.setVideoCodecName(decoder);
             g.start();
-            s = new FfmpegSource(file, g, p.times(), p.codec(), VideoFrames.truth(file, truthFile, p.times().length));
+            s = new FfmpegSource(file, g, p.times(), p.codec(), VideoFrames.truth(file, truthFile, p.times().length, g.getImageWidth(), g.getImageHeight()));
             s.pending = s.decode();
             if (s.pending == null)
                 throw new SourceException("corrupt video " + file + ": none of its " + p.times().length + " " + p.codec() + " frames can be decoded");

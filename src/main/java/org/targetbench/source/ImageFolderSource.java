@@ -40,14 +40,16 @@ public final class ImageFolderSource implements FrameSource {
 
     /** As {@link #open(Path, Path)}, shown to people as {@code description}. */
     public static ImageFolderSource open(Path folder, Path truthFile, String description) throws SourceException {
-        if (!Files.isDirectory(folder)) throw new SourceException("frame folder not found: " + folder);
+        if (!Files.isDirectory(folder)) throw Missing.folder(folder, "frame folder");
         List<Path> files;
         try (Stream<Path> s = Files.list(folder)) {
-            files = s.filter(p -> Files.isRegularFile(p) && ImageFiles.isImageName(p.getFileName().toString()))
+            files = s.filter(p -> ImageFiles.isImageName(p.getFileName().toString()) && !Files.isDirectory(p))
                     .sorted((a, b) -> a.getFileName().toString().compareTo(b.getFileName().toString())).toList();
         } catch (IOException e) {
             throw new SourceException("cannot list frame folder " + folder + ": " + ImageFiles.oneLine(e));
         }
+        // an entry named like a frame that cannot be read (a dangling link, no permission) is an error, never skipped
+        for (Path f : files) ImageFiles.checkReadable(f);
         if (files.isEmpty()) throw new SourceException("no PNG or JPEG frames in " + folder);
         int[] size0 = ImageFiles.readSize(files.get(0));
         for (Path f : files.subList(1, files.size())) {
@@ -60,7 +62,10 @@ public final class ImageFolderSource implements FrameSource {
         for (Path f : files) names.add(f.getFileName().toString());
         Path tf = truthFile != null ? truthFile : folder.resolve("truth.json");
         TruthFile.Truth truth;
-        if (truthFile != null || Files.exists(tf)) truth = TruthFile.read(tf, names);
+        if (truthFile != null || Files.exists(tf)) {
+            truth = TruthFile.read(tf, names);
+            TruthFit.check(truth, tf, files.size(), false, size0[0], size0[1]);
+        }
         else truth = new TruthFile.Truth(files.get(0).getFileName().toString(), java.util.Map.of());
         return new ImageFolderSource(description, files, size0[0], size0[1], truth);
     }

@@ -13,11 +13,15 @@ import java.nio.file.Path;
 
 /**
  * Strict reading of this tool's JSON files, with one-line messages that name the file and the field at fault.
- * Non-numeric tokens such as NaN and Infinity are rejected by the parser.
+ * Non-numeric tokens such as NaN and Infinity are rejected by the parser. A key given twice in one object is an
+ * error (Jackson's STRICT_DUPLICATE_DETECTION), never "the last one wins". Policy for unknown top-level keys: an
+ * error naming the key and the keys the format knows ({@link #knownKeys}); keys starting with {@code _} are free for
+ * comments.
  */
 public final class JsonIn {
     static final ObjectMapper MAPPER = JsonMapper.builder()
             .enable(com.fasterxml.jackson.core.json.JsonReadFeature.ALLOW_NON_NUMERIC_NUMBERS)
+            .enable(com.fasterxml.jackson.core.StreamReadFeature.STRICT_DUPLICATE_DETECTION)
             .build();
 
     private final Path file;
@@ -26,7 +30,7 @@ public final class JsonIn {
 
     /** Parses a whole file; throws with the line and column of a syntax error. */
     public static Parsed parse(Path file) throws SourceException {
-        if (!Files.isRegularFile(file)) throw new SourceException("file not found: " + file);
+        if (!Files.isRegularFile(file)) throw Missing.file(file, "file");
         try (JsonParser p = MAPPER.createParser(file.toFile())) {
             JsonNode root = MAPPER.readTree(p);
             if (root == null || !root.isObject()) throw new SourceException("malformed JSON in " + file + ": expected an object at the top level");
@@ -99,6 +103,16 @@ public final class JsonIn {
             for (int c = 0; c < 3; c++) m[r * 3 + c] = finite(row.get(c), where + "[" + r + "][" + c + "]");
         }
         return m;
+    }
+
+    /** Refuses a top-level key outside {@code known} (keys starting with "_" are comments and allowed). */
+    public void knownKeys(JsonNode root, String... known) throws SourceException {
+        java.util.List<String> k = java.util.List.of(known);
+        for (java.util.Iterator<String> it = root.fieldNames(); it.hasNext(); ) {
+            String f = it.next();
+            if (!f.startsWith("_") && !k.contains(f))
+                throw error("\"" + f + "\"", "is not a key of this file; known keys: " + String.join(", ", known));
+        }
     }
 
     /** Checks the {@code format} and {@code version} fields of one of this tool's files. */

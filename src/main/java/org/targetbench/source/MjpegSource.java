@@ -59,7 +59,7 @@ public final class MjpegSource implements FrameSource {
      * @param truthFile truth for the frames, or null to use {@code <name>.truth.json} beside the video when it exists
      */
     public static MjpegSource open(Path file, Path truthFile) throws SourceException {
-        if (!Files.isRegularFile(file)) throw new SourceException("video not found: " + file);
+        if (!Files.isRegularFile(file)) throw Missing.file(file, "video");
         boolean avi = VideoFrames.ext(file).equals("avi");
         List<AviIndex.Chunk> chunks = null;
         int count;
@@ -87,7 +87,7 @@ public final class MjpegSource implements FrameSource {
             if (count == 0) throw new SourceException("empty video: no JPEG frames in " + file);
             first = decodeOrFail(withEnd(firstJpeg), file);
         }
-        return new MjpegSource(file, avi, chunks, count, first, VideoFrames.truth(file, truthFile, count));
+        return new MjpegSource(file, avi, chunks, count, first, VideoFrames.truth(file, truthFile, count, first.width, first.height));
     }
 
     private static GrayF32 decodeOrFail(byte[] jpeg, Path file) throws SourceException {

@@ -27,6 +27,7 @@ public final class PosesFile {
         JsonIn.Parsed parsed = JsonIn.parse(file);
         JsonIn in = parsed.in();
         in.expectFormat(parsed.root(), FORMAT, VERSION);
+        in.knownKeys(parsed.root(), "format", "version", "frame_convention", "poses");
         JsonNode arr = in.array(parsed.root(), "poses", "poses");
         if (arr.isEmpty()) throw in.error("poses", "is empty; give at least one pose");
         List<Pose> out = new ArrayList<>();
@@ -49,6 +50,8 @@ public final class PosesFile {
             } catch (IllegalArgumentException e) {
                 throw in.error(where, e.getMessage());
             }
+            var bad = org.targetbench.camera.CameraChecks.problem(out.get(out.size() - 1), design);
+            if (bad.isPresent()) throw in.error(where, bad.get());
         }
         return out;
     }

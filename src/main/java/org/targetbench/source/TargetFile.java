@@ -62,6 +62,7 @@ public final class TargetFile {
         JsonIn in = parsed.in();
         JsonNode root = parsed.root();
         in.expectFormat(root, FORMAT, VERSION);
+        in.knownKeys(root, "format", "version", "id", "name", "width_mm", "height_mm", "quiet_zone_mm", "pattern", "parameters", "shapes", "features");
         List<Shape> shapes = new ArrayList<>();
         JsonNode sa = in.array(root, "shapes", "target");
         for (int i = 0; i < sa.size(); i++) {
@@ -102,14 +103,20 @@ public final class TargetFile {
         JsonNode pn = root.get("parameters");
         if (pn != null && pn.isObject())
             pn.fields().forEachRemaining(e -> params.put(e.getKey(), e.getValue().isNumber() ? (Object) e.getValue().numberValue() : e.getValue().asText()));
+        TargetDesign d;
         try {
-            return new TargetDesign(in.text(root, "id", "target"), root.path("name").asText(null),
+            d = new TargetDesign(in.text(root, "id", "target"), root.path("name").asText(null),
                     in.number(root, "width_mm", "target"), in.number(root, "height_mm", "target"),
                     in.number(root, "quiet_zone_mm", "target", 0), shapes, features,
                     root.path("pattern").asText("custom"), params);
         } catch (IllegalArgumentException e) {
-            throw in.error("target", e.getMessage());
+            throw in.error("design:", e.getMessage()); // the message names what ("target size ...", "feature 3 ...")
         }
+        // a design with nothing for a detector to find would pass every check and win every comparison with 1.0
+        if (org.targetbench.target.FeatureVisibility.drawnCount(d) == 0)
+            throw in.error("features", d.features().isEmpty() ? "is empty: a design needs at least one designed feature"
+                    : "are all hidden under later shapes (" + d.features().size() + " listed, none visible as drawn)");
+        return d;
     }
 
     static String kindName(FeatureKind k) {

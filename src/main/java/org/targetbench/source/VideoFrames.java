@@ -19,11 +19,15 @@ final class VideoFrames {
 
     private VideoFrames() {}
 
-    /** Decodes one JPEG image to grey levels (BT.601 luma for colour); null when it cannot be decoded. */
+    /**
+     * Decodes one JPEG image to grey levels (BT.601 luma for colour); null when it cannot be decoded strictly
+     * ({@link StrictImage}: a frame cut short, even one closed with an end-of-image marker, is skipped and counted).
+     */
     static GrayF32 decodeJpeg(byte[] jpeg) {
+        if (!StrictImage.endsWithEoi(jpeg)) return null;
         BufferedImage bi;
         try {
-            bi = ImageIO.read(new ByteArrayInputStream(jpeg));
+            bi = StrictImage.readBuffered(jpeg);
         } catch (IOException | RuntimeException e) {
             return null;
         }
@@ -69,6 +73,13 @@ final class VideoFrames {
         String n = p.getFileName().toString().toLowerCase(Locale.ROOT);
         int dot = n.lastIndexOf('.');
         return dot < 0 ? "" : n.substring(dot + 1);
+    }
+
+    /** As {@link #truth(Path, Path, int)}, refusing truth that does not fit the video ({@link TruthFit}). */
+    static TruthFile.Truth truth(Path video, Path truthFile, int frameCount, int width, int height) throws SourceException {
+        TruthFile.Truth t = truth(video, truthFile, frameCount);
+        TruthFit.check(t, truthFile != null ? truthFile : truthBeside(video), frameCount, true, width, height);
+        return t;
     }
 
     /** Refuses a video once it has skipped too many frames to be trusted. */

@@ -59,9 +59,30 @@ class ServoBadInputTest {
         ObjectNode j = good.deepCopy();
         for (int i = 0; i < 4; i++) {
             ObjectNode p = (ObjectNode) j.get("points").get(i);
-            p.put("v", 239.5).put("y", 0.0).put("u", 200.0 + 40 * i);
+            double u = 200.0 + 40 * i; // x kept consistent with u through the set's camera
+            p.put("v", j.get("camera").get("cy").asDouble()).put("y", 0.0).put("u", u)
+                    .put("x", (u - j.get("camera").get("cx").asDouble()) / j.get("camera").get("fx").asDouble());
         }
         assertRehearseRefused(write("collinear", j), "lie on one line");
+    }
+
+    @Test
+    void pixelEditedWhileNormalisedStayedStale() throws IOException {
+        ObjectNode j = good.deepCopy();
+        ObjectNode p = (ObjectNode) j.get("points").get(2);
+        p.put("u", p.get("u").asDouble() + 40);
+        assertRehearseRefused(write("stale-xy", j), "points[2]");
+    }
+
+    @Test
+    void duplicatedPointsAreCalledDuplicates() throws IOException {
+        ObjectNode j = good.deepCopy();
+        ArrayNode pts = (ArrayNode) j.get("points");
+        for (int i : new int[]{2, 3}) {
+            ObjectNode p = (ObjectNode) pts.get(i), q = (ObjectNode) pts.get(i - 2);
+            for (String k : new String[]{"u", "v", "x", "y"}) p.put(k, q.get(k).asDouble());
+        }
+        assertRehearseRefused(write("duplicates", j), "are the same point");
     }
 
     @Test
