@@ -110,7 +110,7 @@ class ConfigContractTest {
             return cs[(Arrays.asList(cs).indexOf(v) + 1) % cs.length];
         }
         if (t == double[].class) {
-            double[] a = ((double[]) v).clone();
+            double[] a = v == null ? new double[]{0.125, 0.25, 0.375, 0.5, 0.625, 0.75} : ((double[]) v).clone();
             for (int i = 0; i < a.length; i++) a[i] += 0.375;
             return a;
         }

@@ -109,7 +109,7 @@ class InterruptTest {
         assertTrue(c.awaitErr(progressed("stress sweep"), READY_MS), "demo never reached its sweep: " + c.stderr());
         c.interrupt();
         assertEquals(130, c.waitFor(END_S), c.stderr());
-        assertTrue(c.stdout().contains("Stopped by Ctrl-C: kept 3 of 5 stages"), c.stdout());
+        assertTrue(c.stdout().contains("Stopped by Ctrl-C: kept 3 of 6 stages"), c.stdout());
         for (String f : new String[]{"target.json", "camera.json", "poses.json", "frames/truth.json", "summary.json", "sweep/report.html"})
             assertTrue(Files.isRegularFile(out.resolve(f)), f);
         completeCsvRows(out.resolve("repeatability.csv"));

@@ -117,14 +117,14 @@ class StrictInputTest {
                 text("edge.json", poses("{\"distance_m\":0.5,\"tilt_y_deg\":88}")).toString(), "--out", "OUT"));
         String noFeatures = text("nofeatures.json", Files.readString(Path.of(TARGET)).replaceAll("(?s)\"features\"\\s*:\\s*\\[.*?\\]", "\"features\": []")).toString();
         c.add(new Case("render: design without features", "features is empty", "render", "--target", noFeatures, "--camera", CAMERA, "--poses", poses, "--out", "OUT"));
-        c.add(new Case("check: design without features", "nofeatures.json", "check", "--target", noFeatures, "--camera", CAMERA, "--standoff", "300"));
+        c.add(new Case("check: design without features", "nofeatures.json", "check", "--target", noFeatures, "--camera", CAMERA, "--standoff-mm", "300"));
         String covered = text("covered.json", Files.readString(Path.of(TARGET)).replaceFirst("\"shapes\"\\s*:\\s*\\[",
                 "\"shapes\": [").replaceFirst("(?s)(\"shapes\"\\s*:\\s*\\[.*?)\\]\\s*,\\s*\"features\"",
                 "$1, {\"type\": \"rect\", \"x0\": 0, \"y0\": 0, \"x1\": 1000, \"y1\": 1000, \"grey\": 0.5}], \"features\"")).toString();
         c.add(new Case("shootout: design covered by a later shape", "all hidden", "shootout", "--targets", TARGET + "," + covered, "--camera", CAMERA,
-                "--standoff", "300", "--out", "OUT"));
+                "--standoff-mm", "300", "--out", "OUT"));
         c.add(new Case("shootout: two designs with one id", "two designs have the id", "shootout", "--targets", TARGET + "," + TARGET, "--camera", CAMERA,
-                "--standoff", "300", "--out", "OUT"));
+                "--standoff-mm", "300", "--out", "OUT"));
         String negative = text("negative.json", Files.readString(Path.of(TARGET)).replaceFirst("\"width_mm\"\\s*:\\s*[0-9.]+", "\"width_mm\": -5")).toString();
         c.add(new Case("render: negative design size (wording: once 'target')", "design: target size must be positive", "render", "--target", negative,
                 "--camera", CAMERA, "--poses", poses, "--out", "OUT"));
@@ -137,15 +137,15 @@ class StrictInputTest {
         c.add(new Case("sweep: --levels 0", "--levels", "sweep", "--target", TARGET, "--levels", "0", "--out", "OUT"));
         c.add(new Case("compare: --max-features 0", "0", "compare", "--frames", frames.toString(), "--max-features", "0", "--out", "OUT"));
         c.add(new Case("pick: --count 0", "--count", "pick", "--from", tmp.toString(), "--count", "0", "--out", "OUT/set.json"));
-        c.add(new Case("record: --frames 0", "--frames must be >= 1", "record", "--source", frames.toString(), "--frames", "0", "--out", "OUT/clip.avi"));
+        c.add(new Case("record: --frame-count 0", "--frame-count must be >= 1", "record", "--source", frames.toString(), "--frame-count", "0", "--out", "OUT/clip.avi"));
         c.add(new Case("design: --count 0", "0", "design", "--pattern", "xcorners", "--count", "0", "--out", "OUT"));
         c.add(new Case("shootout: --views 0", "--views", "shootout", "--targets", TARGET + "," + DESIGNS.resolve("fixture-dots20/target.json"),
-                "--camera", CAMERA, "--standoff", "300", "--views", "0", "--out", "OUT"));
-        c.add(new Case("calibrate: photo is a dangling link", "dangling link", "calibrate", "--frames", dangling.toString(), "--board", "9x6",
-                "--square", "25", "--out", "OUT/camera.json"));
+                "--camera", CAMERA, "--standoff-mm", "300", "--views", "0", "--out", "OUT"));
+        c.add(new Case("calibrate: photo is a dangling link", "dangling link", "calibrate", "--frames", dangling.toString(), "--inner-corners", "9x6",
+                "--square-mm", "25", "--out", "OUT/camera.json"));
         c.add(new Case("track: another clip's truth (same frame count and size)", "does not fit the footage", "track", "--source",
                 "sample-video/approach.mp4", "--truth", "sample-video/orbit.truth.json", "--out", "OUT"));
-        c.add(new Case("track: --frames 0", "--frames must be >= 1", "track", "--source", frames.toString(), "--frames", "0", "--out", "OUT"));
+        c.add(new Case("track: --frame-count 0", "--frame-count must be >= 1", "track", "--source", frames.toString(), "--frame-count", "0", "--out", "OUT"));
         return c.stream().map(Arguments::of);
     }
 
