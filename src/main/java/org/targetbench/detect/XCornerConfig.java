@@ -8,13 +8,17 @@ package org.targetbench.detect;
 public final class XCornerConfig extends DetectorConfig {
     /** Search an image pyramid (finds large, blurred x-corners; about 1.3 times the work). */
     public boolean pyramid = true;
-    /** Gaussian blur of the frame before the saddle fit, pixels (σ). */
-    public double saddleSigma = 1.5;
+    /**
+     * Gaussian blur of the frame before the saddle fit, pixels (σ). More smoothing averages more noise but bends the
+     * saddle towards the curvature of real (distorted) lines: on the opencv-doc chessboard photos the median distance
+     * to OpenCV's cornerSubPix grows from 0.077 px (σ 1, radius 2) to 0.100 px (σ 1.5, radius 3).
+     */
+    public double saddleSigma = 1.0;
     /**
      * Half-size of the quadric fit window of the saddle refinement, pixels (samples within this radius); 0 turns the
      * refinement off and keeps the library's mean-shift position.
      */
-    public int saddleRadius = 3;
+    public int saddleRadius = 2;
     /** Smallest edge-intensity ratio the library accepts (its default 0.01; lower keeps fainter x-corners). */
     public double edgeIntensityRatio = 0.01;
 
