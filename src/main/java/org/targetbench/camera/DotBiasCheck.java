@@ -25,6 +25,6 @@ public final class DotBiasCheck {
         return new FeasibilityReport.Check("dot centre bias", s, worst, "px",
                 Feasibility.fmt(worst, 3) + " px between the imaged dot centre and the projected centre (worst: " + where + ")",
                 "<= " + Feasibility.fmt(maxBiasPx, 2) + " px (a warning at most; correctable when the pose is known)",
-                "derived: centre of the image conic H^-T C H^-1 against H c (Heikkilae 2000); the threshold is a rule of thumb, common practice, no source");
+                "derived: centre of the image conic H^-T C H^-1 against H c (Heikkila 2000); the threshold is a rule of thumb, common practice, no source");
     }
 }

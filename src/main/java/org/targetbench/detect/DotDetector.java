@@ -22,7 +22,7 @@ import java.util.Optional;
  *       [{@code minAreaPx}, {@code maxAreaPx}], a convexity below {@code minConvexity} (pixel count over the lattice
  *       points inside the convex hull of the pixel centres, by Pick's theorem, so a digitally convex set scores 1),
  *       a contrast below {@code minContrast}.</li>
- *   <li>Levels: the page level b is the median of g over the pixels below the ink threshold and outside the component of the component's box grown by
+ *   <li>Levels: the page level b is the median (to a quarter grey level) of g over the pixels below the ink threshold and outside the component of the component's box grown by
  *       {@value #MARGIN} px; the ink level k the mean over the component's interior pixels (its minimum when it has
  *       none). Sub-pixel edge points are the crossings of the level (b + k)/2 between 4-neighbouring pixels next to
  *       the component, by linear interpolation.</li>
@@ -49,7 +49,12 @@ final class DotDetector implements PointDetector {
     /** Margin around a component's box in which the page level is measured, pixels. */
     static final int MARGIN = 3;
 
+    /** Resolution of the page-level histogram, bins per grey level. */
+    static final int BINS_PER_GREY = 4;
+    static final int BINS = 256 * BINS_PER_GREY;
+
     private final DotConfig config;
+    private final int[] histogram = new int[BINS];
     private float[] g = new float[0];
     private double[] integral = new double[0];
     private int[] labels = new int[0];
@@ -75,29 +80,26 @@ final class DotDetector implements PointDetector {
         }
         boolean dark = config.polarity == DotConfig.Polarity.DARK_ON_LIGHT;
         for (int y = 0; y < h; y++) {
-            int si = image.startIndex + y * image.stride;
-            for (int x = 0; x < w; x++) {
-                float v = image.data[si + x];
-                g[y * w + x] = dark ? v : 255f - v;
-            }
-        }
-        for (int y = 0; y < h; y++) {
+            int si = image.startIndex + y * image.stride, gi = y * w, ii = (y + 1) * (w + 1) + 1, above = y * (w + 1) + 1;
             double row = 0;
             for (int x = 0; x < w; x++) {
-                row += g[y * w + x];
-                integral[(y + 1) * (w + 1) + x + 1] = integral[y * (w + 1) + x + 1] + row;
+                float v = dark ? image.data[si + x] : 255f - image.data[si + x];
+                g[gi + x] = v;
+                row += v;
+                integral[ii + x] = integral[above + x] + row;
             }
         }
         // adaptive threshold: ink is marked -1, page 0
         int r = config.windowRadius;
+        double contrast = config.minContrast;
         for (int y = 0; y < h; y++) {
             int y0 = Math.max(0, y - r), y1 = Math.min(h - 1, y + r);
             for (int x = 0; x < w; x++) {
                 int x0 = Math.max(0, x - r), x1 = Math.min(w - 1, x + r);
                 double sum = integral[(y1 + 1) * (w + 1) + x1 + 1] - integral[y0 * (w + 1) + x1 + 1]
                         - integral[(y1 + 1) * (w + 1) + x0] + integral[y0 * (w + 1) + x0];
-                double mean = sum / ((double) (x1 - x0 + 1) * (y1 - y0 + 1));
-                boolean isInk = g[y * w + x] < mean - config.minContrast;
+                double area = (double) (x1 - x0 + 1) * (y1 - y0 + 1);
+                boolean isInk = (g[y * w + x] + contrast) * area < sum; // g < local mean - minContrast
                 labels[y * w + x] = isInk ? -1 : 0;
                 ink[y * w + x] = (byte) (isInk ? 1 : 0);
             }
@@ -158,14 +160,17 @@ final class DotDetector implements PointDetector {
         // levels
         int ex0 = Math.max(0, bx0 - MARGIN), ey0 = Math.max(0, by0 - MARGIN), ex1 = Math.min(w - 1, bx1 + MARGIN), ey1 = Math.min(h - 1, by1 + MARGIN);
         int bw = ex1 - ex0 + 1, bh = ey1 - ey0 + 1;
-        float[] page = new float[bw * bh];
+        java.util.Arrays.fill(histogram, 0);
         int pages = 0;
         double inkSum = 0, inkMin = Double.POSITIVE_INFINITY;
         int interior = 0;
         for (int y = ey0; y <= ey1; y++)
             for (int x = ex0; x <= ex1; x++) {
                 int p = y * w + x;
-                if (ink[p] == 0 && labels[p] != label) page[pages++] = g[p];
+                if (ink[p] == 0 && labels[p] != label) {
+                    histogram[Math.max(0, Math.min(BINS - 1, (int) (g[p] * BINS_PER_GREY)))]++;
+                    pages++;
+                }
                 else if (labels[p] == label) {
                     inkMin = Math.min(inkMin, g[p]);
                     if (labels[p - 1] == label && labels[p + 1] == label && labels[p - w] == label && labels[p + w] == label) {
@@ -175,8 +180,7 @@ final class DotDetector implements PointDetector {
                 }
             }
         if (pages == 0) return Optional.empty();
-        Arrays.sort(page, 0, pages);
-        double b = page[pages / 2];
+        double b = median(pages);
         double k = interior > 0 ? inkSum / interior : inkMin;
         double contrast = b - k;
         if (!(contrast >= config.minContrast)) return Optional.empty();
@@ -231,6 +235,16 @@ final class DotDetector implements PointDetector {
         return Optional.of(new Detection(c[0], c[1], contrast, meanAxis));
     }
 
+    /** Median of the page histogram, to a quarter grey level (bin centre). */
+    private double median(int count) {
+        int half = count / 2, seen = 0;
+        for (int i = 0; i < BINS; i++) {
+            seen += histogram[i];
+            if (seen > half) return (i + 0.5) / BINS_PER_GREY;
+        }
+        return 255;
+    }
+
     /**
      * Fills the holes of the component inside its box: page pixels not reachable from the box border without crossing
      * the component. Ink of other components inside a hole stays theirs. Returns how many pixels were filled.
@@ -248,11 +262,11 @@ final class DotDetector implements PointDetector {
             }
         while (top > 0) {
             int i = stack[--top], x = i % bw, y = i / bw;
-            int[][] nb = {{x - 1, y}, {x + 1, y}, {x, y - 1}, {x, y + 1}};
-            for (int[] q : nb) {
-                if (q[0] < 0 || q[1] < 0 || q[0] >= bw || q[1] >= bh) continue;
-                int j = q[1] * bw + q[0];
-                if (seen[j] == 0 && labels[(by0 + q[1]) * w + bx0 + q[0]] != label) { seen[j] = 1; stack[top++] = j; }
+            for (int k = 0; k < 4; k++) {
+                int qx = x + (k == 0 ? -1 : k == 1 ? 1 : 0), qy = y + (k == 2 ? -1 : k == 3 ? 1 : 0);
+                if (qx < 0 || qy < 0 || qx >= bw || qy >= bh) continue;
+                int j = qy * bw + qx;
+                if (seen[j] == 0 && labels[(by0 + qy) * w + bx0 + qx] != label) { seen[j] = 1; stack[top++] = j; }
             }
         }
         int filled = 0;
