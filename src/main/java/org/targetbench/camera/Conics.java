@@ -38,8 +38,21 @@ public final class Conics {
 
     /** Image of a point conic under x' ~ H x: C' = H⁻ᵀ C H⁻¹ [1, result 2.13]. */
     public static double[] transform(double[] conic, Homography h) {
+        return transform(conic, h.toArray());
+    }
+
+    /**
+     * Image of a point conic under x' ~ H x for H given row major: C' = H⁻ᵀ C H⁻¹ [1, result 2.13]; NaNs for a
+     * singular H.
+     */
+    public static double[] transform(double[] conic, double[] h) {
         double[] c = matrix(conic);
-        double[] hi = h.inverse().toArray();
+        double det = h[0] * (h[4] * h[8] - h[5] * h[7]) - h[1] * (h[3] * h[8] - h[5] * h[6]) + h[2] * (h[3] * h[7] - h[4] * h[6]);
+        if (det == 0 || !Double.isFinite(det)) return new double[]{Double.NaN, Double.NaN, Double.NaN, Double.NaN, Double.NaN, Double.NaN};
+        double[] hi = {
+                (h[4] * h[8] - h[5] * h[7]) / det, (h[2] * h[7] - h[1] * h[8]) / det, (h[1] * h[5] - h[2] * h[4]) / det,
+                (h[5] * h[6] - h[3] * h[8]) / det, (h[0] * h[8] - h[2] * h[6]) / det, (h[2] * h[3] - h[0] * h[5]) / det,
+                (h[3] * h[7] - h[4] * h[6]) / det, (h[1] * h[6] - h[0] * h[7]) / det, (h[0] * h[4] - h[1] * h[3]) / det};
         double[] t = new double[9], out = new double[9];
         // t = C H⁻¹
         for (int i = 0; i < 3; i++)

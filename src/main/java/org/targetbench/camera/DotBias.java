@@ -43,7 +43,16 @@ public final class DotBias {
      */
     public static double[] imagedCentre(CameraModel camera, Pose pose, double xMm, double yMm, double rMm) {
         if (!camera.isDistorted()) {
-            double[] q = Conics.transform(Conics.circle(xMm, yMm, rMm), Projection.targetToImage(camera, pose));
+            // H = K [r1 r2 t + R c] maps metres on the target plane, origin at the dot's centre, to pixels: well scaled
+            double[] c = pose.targetToCamera(xMm, yMm);
+            double[] m = {pose.r(0, 0), pose.r(0, 1), c[0], pose.r(1, 0), pose.r(1, 1), c[1], pose.r(2, 0), pose.r(2, 1), c[2]};
+            double[] h = new double[9];
+            for (int j = 0; j < 3; j++) {
+                h[j] = camera.fx() * m[j] + camera.cx() * m[6 + j];
+                h[3 + j] = camera.fy() * m[3 + j] + camera.cy() * m[6 + j];
+                h[6 + j] = m[6 + j];
+            }
+            double[] q = Conics.transform(Conics.circle(0, 0, rMm / 1000), h);
             if (!Conics.isEllipse(q)) return new double[]{Double.NaN, Double.NaN};
             return Conics.centre(q);
         }

@@ -19,7 +19,7 @@ public enum DetectorType {
     /** Dot centres: local threshold, filtered connected components, grey-weighted centroid or ellipse fit (design-matched for dot grids). */
     DOTS("dots", "Dot centres"),
     /** X-corner saddle points (Abeles 2019 intensity, via BoofCV) with sub-pixel saddle refinement (design-matched for checkerboards). */
-    XCORNER("xcorner", "X-corner saddles");
+    XCORNER("xcorner", "X-corners");
 
     private final String cliName;
     private final String label;

@@ -40,7 +40,7 @@ class ShootoutCommandTest {
         String html = Files.readString(out.resolve("shootout.html"));
         assertTrue(html.contains("fixture-cb15") && html.contains("fixture-dots20") && html.contains("ISO 10218"));
         assertTrue(html.contains("design-matched detector") && html.contains("best generic detector") && html.contains("Dot centres"), "side by side");
-        assertTrue(r.out().contains("matched  X-corner saddles") && r.out().contains("matched  Dot centres"), r.out());
+        assertTrue(r.out().contains("matched  X-corners") && r.out().contains("matched  Dot centres"), r.out());
     }
 
     @Test
