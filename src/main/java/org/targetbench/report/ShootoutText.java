@@ -45,8 +45,9 @@ public final class ShootoutText {
     }
 
     static String side(ShootoutRun.Side s) {
-        return String.format(Locale.ROOT, "%s: envelope %s, %d points, %d robust, RMS %s px", s.detector().label(),
-                num(s.envelopeScore(), 3), s.points(), s.robustPoints(), num(s.localisationRmsPx(), 3));
+        return String.format(Locale.ROOT, "%s: envelope %s, %d points, %d robust, RMS %s", s.detector().label(),
+                num(s.envelopeScore(), 3), s.points(), s.robustPoints(),
+                Double.isNaN(s.localisationRmsPx()) ? "- (no point within 3 px of a designed feature)" : num(s.localisationRmsPx(), 3) + " px");
     }
 
     private static String num(double v, int decimals) {
