@@ -28,7 +28,7 @@ final class DetectorSettings {
         JTable t = new JTable(m);
         t.setName("settings.table");
         JScrollPane sp = new JScrollPane(t);
-        sp.setPreferredSize(new Dimension(620, 130));
+        sp.setPreferredSize(new Dimension(620, 170));
         Object[] form = {"Threshold is a fraction of the frame's strongest response when relative. Every detector is scored with these settings.", sp};
         if (JOptionPane.showConfirmDialog(ctx.window(), form, "Detector settings", JOptionPane.OK_CANCEL_OPTION, JOptionPane.PLAIN_MESSAGE)
                 != JOptionPane.OK_OPTION) return;

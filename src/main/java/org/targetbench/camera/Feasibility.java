@@ -29,7 +29,9 @@ import java.util.Locale;
  *       no formal source);</li>
  *   <li>fraction of the image the square-on target fills, against {@link FeasibilityConfig#minFillFraction} and
  *       {@link FeasibilityConfig#maxFillFraction} (rules of thumb, no source; a warning at most);</li>
- *   <li>whether the whole page stays inside the image at every tried pose (fails otherwise).</li>
+ *   <li>whether the whole page stays inside the image at every tried pose (fails otherwise);</li>
+ *   <li>for dot designs, the worst perspective bias of the imaged dot centres over the tried poses ({@link DotBiasCheck};
+ *       a warning at most).</li>
  * </ol>
  *
  * <p>Caveats: no blur, motion or depth-of-field model; a pose is the camera looking at the target's centre, so
@@ -110,6 +112,7 @@ public final class Feasibility {
         checks.add(new FeasibilityReport.Check("target in view", outOfView == null ? FeasibilityReport.Status.PASS : FeasibilityReport.Status.FAIL,
                 outOfView == null ? 1 : 0, "", outOfView == null ? "whole page inside the image at every pose tried"
                 : "page leaves the image when " + outOfView, "whole page inside the image", "derived: geometry"));
+        if (DotBias.hasDots(design)) checks.add(DotBiasCheck.check(design, camera, poses, labels, config.maxDotBiasPx));
         return new FeasibilityReport(design.id(), standoffM, maxTiltDeg, checks);
     }
 

@@ -24,6 +24,12 @@ public final class FeasibilityConfig {
      * no source: little room is left for the arm to move before points leave the image).
      */
     public double maxFillFraction = 0.60;
+    /**
+     * Dot designs: a perspective bias of the imaged dot centre ({@link DotBias}) above this, pixels, at any tried pose
+     * is reported as a warning (never a failure; rule of thumb, common practice, no source: a tenth of a pixel is the
+     * localisation dot detectors are used for). Set it to the servo's error budget.
+     */
+    public double maxDotBiasPx = 0.1;
     /** Number of tilt-axis directions, evenly spaced in the target plane, at which the full tilt is tried. */
     public int tiltDirections = 8;
     /** Sample points per side of the pattern area at which the local image scale is measured. */
@@ -33,6 +39,7 @@ public final class FeasibilityConfig {
         FeasibilityConfig c = new FeasibilityConfig();
         c.windowHalfSizePx = windowHalfSizePx; c.warnMargin = warnMargin; c.minFillFraction = minFillFraction;
         c.maxFillFraction = maxFillFraction; c.tiltDirections = tiltDirections; c.samplesPerSide = samplesPerSide;
+        c.maxDotBiasPx = maxDotBiasPx;
         return c;
     }
 
@@ -43,6 +50,7 @@ public final class FeasibilityConfig {
         if (!(minFillFraction >= 0 && minFillFraction < maxFillFraction && maxFillFraction <= 1))
             throw new IllegalArgumentException("fill fractions must satisfy 0 <= min < max <= 1, got min=" + minFillFraction + " max=" + maxFillFraction);
         if (tiltDirections < 1 || tiltDirections > 360) throw new IllegalArgumentException("tiltDirections must be 1..360, got " + tiltDirections);
+        if (!(maxDotBiasPx > 0) || !Double.isFinite(maxDotBiasPx)) throw new IllegalArgumentException("maxDotBiasPx must be > 0 px, got " + maxDotBiasPx);
         if (samplesPerSide < 2 || samplesPerSide > 100) throw new IllegalArgumentException("samplesPerSide must be 2..100, got " + samplesPerSide);
     }
 }

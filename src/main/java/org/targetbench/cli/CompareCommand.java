@@ -42,9 +42,12 @@ final class CompareCommand implements Callable<Integer> {
             CompareResult result = new CompareRun(configs, detectorOptions.epsilon).run(stoppable, stoppable.progress(new ConsoleProgress("detecting")));
             CompareWriter.write(result, output);
             OverlayWriter.write(result, output);
+            var dotBias = CompareDotBias.rows(frames, result);
+            if (!dotBias.isEmpty()) org.targetbench.export.DotBiasWriter.write(dotBias, output.file("dot-bias.csv"));
             output.commit();
             var w = spec.commandLine().getOut();
             ConsoleTable.print(result, w);
+            if (!dotBias.isEmpty()) w.println(DotBiasLine.of(dotBias, "dot-bias.csv"));
             w.println();
             w.println("Results written to " + output.target());
             if (stoppable.stopped()) w.println(SweepJob.stoppedLine(stoppable.read(), source.frameCount(), "frames", output.target()));

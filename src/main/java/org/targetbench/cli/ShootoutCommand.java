@@ -85,6 +85,12 @@ final class ShootoutCommand implements Callable<Integer> {
                 w.printf(Locale.ROOT, "%-4d %-24s %-6s %-11s %9.3f %7d %7d %10s %7.0f%%%n", e.rank(), e.design().id(), e.feasibility().overall(),
                         e.bestDetector().label(), e.envelopeScore(), e.points(), e.robustPoints(),
                         Double.isNaN(e.bestCondition()) ? "none" : String.format(Locale.ROOT, "%.2f", e.bestCondition()), 100 * e.coverage());
+            w.println("Design-matched detector beside the best generic one:");
+            for (var e : entries) {
+                w.printf(Locale.ROOT, "  %-24s matched  %s%n", e.design().id(), org.targetbench.report.ShootoutText.matched(e));
+                w.printf(Locale.ROOT, "  %-24s generic  %s%n", "", org.targetbench.report.ShootoutText.generic(e));
+                if (!Double.isNaN(e.dotBiasPx())) w.printf(Locale.ROOT, "  %-24s dot bias %s%n", "", org.targetbench.report.ShootoutText.dotBias(e));
+            }
             w.println("Written to " + output.target() + ": shootout.csv, shootout.html. Figures describe the rendered bench conditions, not a guarantee.");
             w.flush();
         }

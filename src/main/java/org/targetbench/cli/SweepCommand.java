@@ -98,9 +98,12 @@ final class SweepCommand implements Callable<Integer> {
         try (AtomicOutput output = AtomicOutput.open(out); SweepJob job = new SweepJob()) {
             SweepResult r = new SweepRun(cfg).run(base, new ConsoleProgress("sweeping"), job::cancelled);
             write(r, env, output);
+            var dotBias = org.targetbench.pipeline.DotBiasTable.forSweep(base, cfg);
+            if (!dotBias.isEmpty()) org.targetbench.export.DotBiasWriter.write(dotBias, output.file("dot-bias.csv"));
             output.commit();
             PrintWriter w = spec.commandLine().getOut();
             print(r, env, w);
+            if (!dotBias.isEmpty()) w.println(DotBiasLine.of(dotBias, "dot-bias.csv"));
             w.println("Report: " + output.target().resolve("report.html"));
             w.flush();
             return r.cancelled() ? SweepJob.EXIT_CANCELLED : 0;

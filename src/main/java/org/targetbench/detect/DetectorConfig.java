@@ -52,6 +52,8 @@ public abstract class DetectorConfig {
             case FAST -> new FastConfig();
             case SURF -> new SurfConfig();
             case SIFT -> new SiftConfig();
+            case DOTS -> new DotConfig();
+            case XCORNER -> new XCornerConfig();
         };
     }
 }

@@ -15,7 +15,11 @@ public enum DetectorType {
     /** Bay et al. 2008 Fast-Hessian blob detector (the detector stage of SURF). */
     SURF("surf", "SURF-style"),
     /** Lowe 2004 difference-of-Gaussian extrema (the detector stage of SIFT). */
-    SIFT("sift", "SIFT-style");
+    SIFT("sift", "SIFT-style"),
+    /** Dot centres: local threshold, filtered connected components, grey-weighted centroid or ellipse fit (design-matched for dot grids). */
+    DOTS("dots", "Dot centres"),
+    /** X-corner saddle points (Abeles 2019 intensity, via BoofCV) with sub-pixel saddle refinement (design-matched for checkerboards). */
+    XCORNER("xcorner", "X-corners");
 
     private final String cliName;
     private final String label;
@@ -27,6 +31,9 @@ public enum DetectorType {
 
     /** Name used on the command line and in CSV files. */
     public String cliName() { return cliName; }
+
+    /** True for the detectors built for one kind of target feature (dots, x-corners) rather than for any texture. */
+    public boolean designMatched() { return this == DOTS || this == XCORNER; }
 
     /** Name shown to people. */
     public String label() { return label; }

@@ -20,6 +20,8 @@ public final class Detectors {
             case FAST -> new FastDetector((FastConfig) c);
             case SURF -> new FastHessianDetector((SurfConfig) c);
             case SIFT -> new DogDetector((SiftConfig) c);
+            case DOTS -> new DotDetector((DotConfig) c);
+            case XCORNER -> new XCornerDetector((XCornerConfig) c);
         };
     }
 

@@ -15,7 +15,7 @@ import java.util.function.Consumer;
  * frames), so a worker needs the sum of the detectors' bytes per pixel ({@link #bytesPerPixel}) times the frame's
  * pixels, plus {@code framesPerWorker} grey frames of 4 bytes per pixel in flight. The figures per detector are the
  * peak heap growth of one detection on a 2000 x 1500 frame (measured with the serial collector, garbage included, so
- * on the high side), rounded up: Harris 34, Shi-Tomasi 62, FAST 10, SURF-style 37, SIFT-style 103 bytes per pixel.
+ * on the high side), rounded up: Harris 34, Shi-Tomasi 62, FAST 10, SURF-style 37, SIFT-style 103, dot centres 22, x-corners 54 bytes per pixel.
  * A run may use {@value #HEAP_SHARE} of the heap limit less what is already in use (the rest is slack for the
  * collector and for results).
  */
@@ -46,6 +46,8 @@ public final class MemoryBudget {
             case FAST -> 16;
             case SURF -> 48;
             case SIFT -> 128;
+            case DOTS -> 32;
+            case XCORNER -> 64;
         };
     }
 

@@ -42,6 +42,13 @@ import java.util.function.BooleanSupplier;
  * servo-aware selection finds, trying every detector on views at the stand-off, and its cond(L*); (5) image
  * coverage of the best detector's points (share of 4 x 4 cells).
  *
+ * <p>Design-matched detectors: each design is also scored, side by side, with the detector built for its features
+ * ({@link DesignMatch}: x-corner saddles for checkerboards, x-corner fields and markers, dot centres for dot grids)
+ * and with the best generic detector by envelope score ({@link Side}: envelope score, points, robust points and the
+ * localisation RMS against the projected features, pooled over the views). For dot designs the worst perspective bias
+ * of the imaged dot centres over the views ({@code camera.DotBias}) is reported, and the dot detector's RMS with the
+ * bias corrected from the known pose beside the uncorrected one.
+ *
  * <p>Ranking: designs that fail the feasibility check go last; then designs with at least 4 robust points before
  * those without; then the lower best cond(L*); then more robust points; then more coverage. The figures are shown
  * side by side, so a reader can weigh them differently.
@@ -54,16 +61,30 @@ public final class ShootoutRun {
     /** Seed of the perturbations behind the robust-point count. */
     static final long SEED = 7;
 
-    /** One design's figures. {@code bestCondition} is NaN when no acceptable 4-point set exists. */
+    /**
+     * One design's figures. {@code bestCondition} is NaN when no acceptable 4-point set exists. {@code sides}: the
+     * design-matched detector's figures (when the design has one, see {@link DesignMatch}), then the best generic
+     * detector's. {@code dotBiasPx}: the worst perspective bias of the imaged dot centres over the views, pixels; NaN for
+     * a design without dots.
+     */
     public record Entry(TargetDesign design, FeasibilityReport feasibility, SweepResult sweep, DetectorType bestDetector,
                         double envelopeScore, int points, int robustPoints, double bestCondition, double bestSigmaMin,
-                        String servoNote, double coverage, int rank) {
+                        String servoNote, double coverage, int rank, List<Side> sides, double dotBiasPx) {
         /** This entry at another rank. */
         public Entry withRank(int r) {
             return new Entry(design, feasibility, sweep, bestDetector, envelopeScore, points, robustPoints, bestCondition, bestSigmaMin,
-                    servoNote, coverage, r);
+                    servoNote, coverage, r, sides, dotBiasPx);
         }
     }
+
+    /**
+     * One detector's figures for one design: {@code matched} says whether it is the design-matched detector (else it is
+     * the best generic one). {@code localisationRmsPx} is against the projected features, pooled over the views at
+     * the stand-off (NaN when none is found within {@code score.Localisation.DEFAULT_RADIUS}); {@code correctedRmsPx} the same after
+     * the dot-bias correction from the known pose, for the dot detector only (NaN otherwise).
+     */
+    public record Side(DetectorType detector, boolean matched, double envelopeScore, int points, int robustPoints,
+                       double localisationRmsPx, double correctedRmsPx) {}
 
     private final CameraModel camera;
     private final double standoffM;
@@ -136,12 +157,17 @@ public final class ShootoutRun {
             }
         }
         boolean ok = best != null;
+        List<Side> sides = MatchedSides.of(d, camera, poses, views, SweepSummary.rankEnvelope(s, envelope), sweep.detectors,
+                (detector, points) -> robustPoints(detector, views.get(0).image(), points));
+        double bias = 0;
+        for (Pose p : poses) bias = Math.max(bias, org.targetbench.camera.DotBias.worst(d, camera, p));
         return new Entry(d, f, s, top.detector(), top.score(), ref.size(), robust, ok ? best.condition() : Double.NaN,
-                ok ? best.sigmaMin() : Double.NaN, ok ? "4 points from " + bestServo.label() : "no acceptable set (" + why + ")", coverage, 0);
+                ok ? best.sigmaMin() : Double.NaN, ok ? "4 points from " + bestServo.label() : "no acceptable set (" + why + ")", coverage, 0,
+                sides, org.targetbench.camera.DotBias.hasDots(d) ? bias : Double.NaN);
     }
 
     /** Points of the square-on view found again within ε in at least {@link #ROBUST_SHARE} of the envelope's conditions. */
-    private int robustPoints(PointDetector det, boofcv.struct.image.GrayF32 image, List<Detection> ref) {
+    int robustPoints(PointDetector det, boofcv.struct.image.GrayF32 image, List<Detection> ref) {
         Perturber perturber = new Perturber(sweep.perturb);
         int[] found = new int[ref.size()];
         int conditions = 0;

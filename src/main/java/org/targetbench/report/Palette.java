@@ -15,6 +15,8 @@ public final class Palette {
             case FAST -> new Color(204, 121, 167);     // reddish purple
             case SURF -> new Color(0, 158, 115);       // bluish green
             case SIFT -> new Color(240, 228, 66);      // yellow
+            case DOTS -> new Color(0, 114, 178);       // blue
+            case XCORNER -> new Color(213, 94, 0);     // vermillion
         };
     }
 }

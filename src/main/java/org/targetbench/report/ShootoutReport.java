@@ -45,6 +45,9 @@ public final class ShootoutReport {
         row(h, entries, "feasibility", e -> e.feasibility().overall() + " (" + e.feasibility().count(FeasibilityReport.Status.WARN) + " warn, "
                 + e.feasibility().count(FeasibilityReport.Status.FAIL) + " fail)");
         row(h, entries, "best detector (envelope score)", e -> Html.esc(e.bestDetector().label()) + String.format(Locale.ROOT, " (%.3f)", e.envelopeScore()));
+        row(h, entries, "design-matched detector", e -> Html.esc(ShootoutText.matched(e)));
+        row(h, entries, "best generic detector", e -> Html.esc(ShootoutText.generic(e)));
+        row(h, entries, "dot-centre bias (worst over the views)", e -> Html.esc(ShootoutText.dotBias(e)));
         row(h, entries, "points, square on", e -> Integer.toString(e.points()));
         row(h, entries, "robust across the envelope", e -> Integer.toString(e.robustPoints()));
         row(h, entries, "best 4-point cond(L*)", e -> Double.isNaN(e.bestCondition()) ? "no acceptable set" : String.format(Locale.ROOT, "%.2f", e.bestCondition()));
@@ -54,7 +57,7 @@ public final class ShootoutReport {
         h.append("</table>\n<p class=\"muted\">A point is robust when it is found again within 1.5 px in at least ")
                 .append(String.format(Locale.ROOT, "%.0f %%", 100 * ShootoutRun.ROBUST_SHARE))
                 .append(" of the envelope's conditions. cond(L*) has its translational columns scaled by the reference depth "
-                        + "(unit-free); lower is better conditioned.</p>\n</body></html>\n");
+                        + "(unit-free); lower is better conditioned. " + Html.esc(ShootoutText.SIDES_NOTE) + "</p>\n</body></html>\n");
         Files.writeString(file, h.toString(), StandardCharsets.UTF_8);
     }
 

@@ -29,12 +29,13 @@ import java.util.Optional;
  */
 final class OpenCvReference {
     static final String SURF_NOTE = "n/a (not in OpenCV main modules)";
+    static final String XCORNER_NOTE = "n/a (OpenCV finds x-corners only as a whole chessboard of known size)";
 
     private OpenCvReference() {}
 
     /** Why there is no OpenCV counterpart, or empty when there is one. */
     static Optional<String> unavailable(DetectorType type) {
-        return type == DetectorType.SURF ? Optional.of(SURF_NOTE) : Optional.empty();
+        return type == DetectorType.SURF ? Optional.of(SURF_NOTE) : type == DetectorType.XCORNER ? Optional.of(XCORNER_NOTE) : Optional.empty();
     }
 
     /** The OpenCV call and settings used for {@code type}, for the report. */
@@ -45,6 +46,8 @@ final class OpenCvReference {
             case FAST -> "FastFeatureDetector(threshold 20, nonmaxSuppression true, TYPE_9_16).detect";
             case SIFT -> "SIFT.create(500).detect";
             case SURF -> SURF_NOTE;
+            case DOTS -> "SimpleBlobDetector.create().detect (default parameters)";
+            case XCORNER -> XCORNER_NOTE;
         };
     }
 
@@ -56,6 +59,8 @@ final class OpenCvReference {
             case FAST -> keypoints(frames, FastFeatureDetector.create(20, true, FastFeatureDetector.TYPE_9_16)::detect);
             case SIFT -> keypoints(frames, SIFT.create(500)::detect);
             case SURF -> throw new IllegalArgumentException(SURF_NOTE);
+            case DOTS -> keypoints(frames, org.opencv.features2d.SimpleBlobDetector.create()::detect);
+            case XCORNER -> throw new IllegalArgumentException(XCORNER_NOTE);
         };
     }
 

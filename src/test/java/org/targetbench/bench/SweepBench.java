@@ -16,7 +16,7 @@ import java.nio.file.Path;
 import java.util.Locale;
 
 /**
- * Speed of the default stress sweep on the demo target: 5 detectors x 5 kinds (each kind's main parameter) x 8
+ * Speed of the default stress sweep on the demo target: every detector x 5 kinds (each kind's main parameter) x 8
  * levels x 30 rendered views at 640 x 480 on all cores. Target: at most 60 s on 2 cores. Prints the wall time of the
  * base renders and of the sweep, cells per second, and the load average before and after (other work on the machine
  * slows the figure down; quote only quiet runs).

@@ -35,18 +35,19 @@ class DemoEndToEndTest {
             assertTrue(Files.isRegularFile(demo.resolve(f)), "missing " + f);
         assertTrue(Files.isRegularFile(demo.resolve("arm/arm-rehearsal.html")), "the demo ends with a rehearsal on the demo arm");
         JsonNode summary = new ObjectMapper().readTree(demo.resolve("summary.json").toFile());
-        assertEquals(5, summary.get("ranking").size());
+        int detectors = org.targetbench.detect.DetectorType.values().length;
+        assertEquals(detectors, summary.get("ranking").size());
         assertEquals(11, summary.get("frames_with_homography").asInt());
         for (JsonNode d : summary.get("ranking")) {
             String name = d.get("detector").asText();
-            if (name.equals("harris") || name.equals("shi-tomasi")) {
+            if (name.equals("harris") || name.equals("shi-tomasi") || name.equals("xcorner")) {
                 assertTrue(d.get("mean_repeatability").asDouble() > CORNER_REPEATABILITY_FLOOR, name + ": " + d);
                 assertEquals(1.0, d.get("localisation").get("found_fraction").asDouble(), 0.02, name + " finds the x-corners");
             }
         }
         List<String> header = Files.readAllLines(demo.resolve("repeatability.csv"));
         assertEquals("detector,frame,repeatability,n_reference,n_frame,n_matched", header.get(0));
-        assertEquals(1 + 5 * 11, header.size());
+        assertEquals(1 + detectors * 11, header.size());
         assertEquals("detector,frame,x,y,response,scale", Files.readAllLines(demo.resolve("detections.csv")).get(0));
 
         Path again = tmp.resolve("again");

@@ -22,16 +22,25 @@ class ShootoutCommandTest {
                 "--levels", "2", "--kinds", "noise,blur", "--out", out.toString());
         assertEquals(0, r.exit(), r.err());
         List<String> rows = Files.readAllLines(out.resolve("shootout.csv"));
-        assertEquals("rank,design,feasibility,best_detector,envelope_score,points,robust_points,best_cond,best_sigma_min,coverage,servo_note", rows.get(0));
+        assertEquals("rank,design,feasibility,best_detector,envelope_score,points,robust_points,best_cond,best_sigma_min,coverage,servo_note,"
+                + "matched_detector,matched_envelope_score,matched_points,matched_robust_points,matched_rms_px,"
+                + "generic_detector,generic_envelope_score,generic_points,generic_robust_points,generic_rms_px,dot_bias_px,dot_corrected_rms_px", rows.get(0));
         assertEquals(3, rows.size());
         assertTrue(rows.get(1).startsWith("1,") && rows.get(2).startsWith("2,"), rows.toString());
         for (String row : rows.subList(1, 3)) {
-            String[] c = row.split(",");
+            String[] c = row.split(",", -1);
             assertTrue(Integer.parseInt(c[6]) <= Integer.parseInt(c[5]), "robust points are a subset of the points: " + row);
             assertFalse(c[7].isEmpty(), "both designs give an acceptable 4-point set: " + row);
+            // each design beside its matched detector and the best generic one
+            boolean dots = c[1].equals("fixture-dots20");
+            assertEquals(dots ? "dots" : "xcorner", c[11], row);
+            assertFalse(c[16].equals("dots") || c[16].equals("xcorner") || c[16].isEmpty(), "generic detector: " + row);
+            assertEquals(dots, !c[21].isEmpty(), "dot bias only for the dot design: " + row);
         }
         String html = Files.readString(out.resolve("shootout.html"));
         assertTrue(html.contains("fixture-cb15") && html.contains("fixture-dots20") && html.contains("ISO 10218"));
+        assertTrue(html.contains("design-matched detector") && html.contains("best generic detector") && html.contains("Dot centres"), "side by side");
+        assertTrue(r.out().contains("matched  X-corners") && r.out().contains("matched  Dot centres"), r.out());
     }
 
     @Test

@@ -76,13 +76,16 @@ class GrafRepeatabilityTest {
     static final Map<DetectorType, List<Detection>> REF = new EnumMap<>(DetectorType.class);
     static final Map<DetectorType, List<Detection>> FRAME = new EnumMap<>(DetectorType.class);
 
+    /** The generic detectors; the design-matched ones are left out of this natural scene (see below). */
+    static final List<DetectorType> GENERIC = java.util.Arrays.stream(DetectorType.values()).filter(t -> !t.designMatched()).toList();
+
     @BeforeAll
     static void load() throws Exception {
         nu.pattern.OpenCV.loadLocally();
         g1 = ReferenceData.image("graf1.png");
         g3 = ReferenceData.image("graf3.png");
         h13 = ReferenceData.readOpenCvMatrix("H1to3p.xml", "H13");
-        for (DetectorType t : DetectorType.values()) {
+        for (DetectorType t : GENERIC) {
             PointDetector d = Detectors.create(t);
             REF.put(t, d.detect(g1));
             FRAME.put(t, d.detect(g3));
@@ -111,8 +114,10 @@ class GrafRepeatabilityTest {
     void everyDetectorIsRepeatableUnderTheTrueHomography() {
         // Schmid, Mohr & Bauckhage 2000, IJCV 37(2): repeatability with ε = 1.5 px; data of Mikolajczyk et al. 2005,
         // IJCV 65. Measured (eps 1.5, default configs): Harris 0.4608 (153/332), Shi-Tomasi 0.4604 (151/328),
-        // FAST 0.4324 (160/370), SURF-style 0.2069 (48/232), SIFT-style 0.3040 (107/352).
-        for (DetectorType t : DetectorType.values()) {
+        // FAST 0.4324 (160/370), SURF-style 0.2069 (48/232), SIFT-style 0.3040 (107/352). The design-matched detectors
+        // (dots, x-corners) find designed features, which this natural scene does not hold; they are checked on
+        // designs and on the opencv-doc chessboard photos instead (DotsVsOpenCvTest, XCornerVsOpenCvTest).
+        for (DetectorType t : GENERIC) {
             RepeatabilityResult r = score(REF.get(t), FRAME.get(t), h13);
             assertTrue(r.repeatability().isPresent(), t + ": repeatability undefined: " + r);
             double v = r.repeatability().getAsDouble();
@@ -127,7 +132,7 @@ class GrafRepeatabilityTest {
         // position; with H composed with a 5 px translation (more than 3 ε) the true correspondences fall outside ε
         // and only chance coincidences with neighbouring points remain. Data: Mikolajczyk et al. 2005, IJCV 65.
         double[][] shifts = {{SHIFT_PX, 0}, {-SHIFT_PX, 0}, {0, SHIFT_PX}, {0, -SHIFT_PX}};
-        for (DetectorType t : DetectorType.values()) {
+        for (DetectorType t : GENERIC) {
             double trueRep = score(REF.get(t), FRAME.get(t), h13).repeatability().getAsDouble();
             double sum = 0;
             for (double[] s : shifts) {
