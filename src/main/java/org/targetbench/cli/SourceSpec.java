@@ -19,7 +19,7 @@ import java.util.regex.Pattern;
 public final class SourceSpec {
     /** Kept in step with {@link MotionScenarios#NAMES} (a constant, for annotations). */
     static final String HELP = "a folder of PNG/JPEG frames, a video (.mp4, .avi, .mjpeg, .mjpg), webcam[:INDEX] or synthetic:NAME[,key=value...] "
-            + "with NAME one of approach, orbit, shake, vibration, still";
+            + "with NAME one of approach, converge, orbit, shake, vibration, still";
     private static final Pattern SCHEME = Pattern.compile("^([A-Za-z][A-Za-z0-9+.-]*):.*");
 
     private SourceSpec() {}
