@@ -56,6 +56,12 @@ public final class KltTracker {
     private static final int PYRAMID_KERNEL_RADIUS = 2;
     /** BoofCV's own singularity guard on det G per pixel; texture is judged by {@link KltConfig#minEigenvalue}. */
     private static final float MIN_DETERMINANT = 1e-6f;
+    /**
+     * Most iterations of the drift correction: it starts from the frame-to-frame answer, a few hundredths of a pixel
+     * from its optimum, and converges in two or three; one that has not converged after this many is not applied
+     * (common practice, no source; bounds its cost).
+     */
+    private static final int ANCHOR_ITERATIONS = 6;
 
     private final KltConfig config;
     private final PointDetector seeder;
@@ -225,7 +231,7 @@ public final class KltTracker {
                 outcome[i] = TrackOutcome.LEFT_IMAGE;
                 continue;
             }
-            if (t.anchor != null && t.anchor.align(current.getLayer(0), fx[i], fy[i], config.maxIterations, config.epsilon) == AffineAnchor.Status.CONVERGED) {
+            if (t.anchor != null && t.anchor.align(current.getLayer(0), fx[i], fy[i], Math.min(config.maxIterations, ANCHOR_ITERATIONS), config.epsilon) == AffineAnchor.Status.CONVERGED) {
                 // [5] strategy 3: keep the first template's answer when it lies close to the frame-to-frame one
                 if (t.anchor.residual > config.maxResidual) {
                     outcome[i] = TrackOutcome.RESIDUAL_TOO_LARGE;
