@@ -41,9 +41,10 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
  *
  * <p>Bounds: at least 95% of the tracks whose corner stays in view survive, final drift median at most 0.1 px and
  * 95th percentile at most 0.3 px (common practice for a servo's feature error budget, no source), and both better than
- * OpenCV's. Measured (2026-12-02): all 48 corners survive with every tracker; final drift median / p95 ours 0.06 /
- * 0.12 px with drift correction, 0.12 / 0.27 px without it (frame-to-frame only, as before) and OpenCV 0.12 / 0.26 px
- * (90 frames, noise 2.5 grey levels; at 120 frames OpenCV reaches 0.19 / 0.32 px while ours stays at 0.07 / 0.12).
+ * OpenCV's. Measured (2026-12-02): all 48 corners survive with every tracker; final drift median / p95 ours
+ * 0.052 / 0.129 px, OpenCV 0.127 / 0.263 px. Without drift correction (frame-to-frame only, the tracker before it)
+ * ours measured 0.13 / 0.27 px with noise 2.5; at 120 frames with noise 2.5 OpenCV reaches 0.19 / 0.31 px while ours
+ * stays at 0.05 / 0.13 px.
  */
 class ConvergeTrackingTest {
     /** The demo's tracking run (cli.DemoCommand): 3 s of convergence at 30 fps. */
