@@ -6,7 +6,7 @@ package org.targetbench.camera;
 public final class FeasibilityConfig {
     /**
      * Half-size h of the corner refinement / tracking window, pixels (window side 2h + 1). The default is the corner
-     * detectors' sub-pixel refinement radius ({@code detect.CornerConfig#refineRadius}).
+     * detectors' sub-pixel refinement radius ({@code detect.RefineConfig#windowRadius}).
      */
     public int windowHalfSizePx = 4;
     /**

@@ -31,6 +31,27 @@ public final class Trajectories {
     }
 
     /**
+     * The last stretch of an image-based servo convergence: from a rolled, slightly tilted far view the camera closes
+     * in on the square-on reference while the roll and tilts die away, all on one smooth ease u²(3 - 2u) over the whole
+     * duration (no hold). Roll dominates, as in an IBVS convergence from a rotated start (derived: the roll error is
+     * what a point-feature law corrects slowest; common practice, no source, for the sizes).
+     *
+     * @param fromM       starting distance, metres (the zoom is fromM / standoffM)
+     * @param fromRollDeg starting roll about the optical axis, degrees
+     * @param moveSeconds duration of the convergence
+     */
+    public static Trajectory converge(double widthMm, double heightMm, double standoffM, double fromM, double fromRollDeg, double moveSeconds) {
+        check(standoffM, "standoff");
+        check(fromM, "starting distance");
+        check(moveSeconds, "convergence duration");
+        return t -> {
+            double u = Math.min(1, Math.max(0, t / moveSeconds));
+            double r = 1 - u * u * (3 - 2 * u);
+            return Pose.facing(widthMm, heightMm, standoffM + (fromM - standoffM) * r, 6 * r, -5 * r, fromRollDeg * r, 0.01 * r, -0.008 * r);
+        };
+    }
+
+    /**
      * The camera swings around the target centre at constant distance on a figure of eight: tilt about the target's
      * y axis A sin(2πt/T), about its x axis (A/3) sin(4πt/T).
      *

@@ -9,23 +9,21 @@ public abstract class CornerConfig extends DetectorConfig {
      * plateau of equal response, which neither non-maximum suppression nor a peak fit can place.
      */
     public boolean weighted = true;
-    /**
-     * Radius of the gradient-orthogonality sub-pixel refinement window, pixels; 0 turns refinement off and keeps the
-     * parabola-fitted response peak.
-     */
-    public int refineRadius = 4;
+
+    protected CornerConfig() {
+        // designed corners are what these detectors are for: refine by default (under RefineConfig's keep rule)
+        refine = new RefineConfig();
+    }
 
     protected <T extends CornerConfig> T copyCornerTo(T other) {
         copyCommonTo(other);
         other.windowRadius = windowRadius;
         other.weighted = weighted;
-        other.refineRadius = refineRadius;
         return other;
     }
 
     @Override public void checkValidity() {
         super.checkValidity();
         if (windowRadius < 1) throw new IllegalArgumentException(type().cliName() + ": windowRadius must be >= 1 px, got " + windowRadius);
-        if (refineRadius < 0 || refineRadius > 20) throw new IllegalArgumentException(type().cliName() + ": refineRadius must be 0..20 px, got " + refineRadius);
     }
 }

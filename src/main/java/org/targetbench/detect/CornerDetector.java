@@ -21,14 +21,13 @@ import java.util.List;
  * <p>Steps: 3x3 Sobel gradient; structure tensor M summed over a (2r+1)² window (Gaussian weighted by default);
  * response R = det M - k (tr M)² (Harris &amp; Stephens 1988 [1]) or R = λ_min(M) (Shi &amp; Tomasi 1994 [2]);
  * non-maximum suppression within {@code nmsRadius} (non-strict, so flat-topped peaks are kept); threshold; each peak
- * moved by a three-point parabola fit of R and then by gradient-orthogonality refinement ({@link SubpixelCorner},
- * Förstner &amp; Gülch 1987 [3]); peaks that converge within {@code nmsRadius} of a stronger one are dropped;
- * strongest {@code maxFeatures} kept.
+ * moved by a three-point parabola fit of R; strongest {@code maxFeatures} kept. Sub-pixel refinement is a stage of
+ * its own ({@link SubpixelRefiner}, applied by {@link Detectors#create}).
  *
  * <p>Caveat: single scale. Points near the border (window radius plus one pixel) are never reported.
  *
  * <p>References: [1] C. Harris, M. Stephens, "A combined corner and edge detector", Alvey Vision Conf. 1988.
- * [2] J. Shi, C. Tomasi, "Good features to track", CVPR 1994. [3] see {@link SubpixelCorner}.
+ * [2] J. Shi, C. Tomasi, "Good features to track", CVPR 1994.
  */
 final class CornerDetector implements PointDetector {
     private final CornerConfig config;
@@ -73,14 +72,8 @@ final class CornerDetector implements PointDetector {
             double ox = 0, oy = 0;
             if (p.x > 0 && p.x < image.width - 1) ox = Detectors.parabolaOffset(r.unsafe_get(p.x - 1, p.y), c, r.unsafe_get(p.x + 1, p.y));
             if (p.y > 0 && p.y < image.height - 1) oy = Detectors.parabolaOffset(r.unsafe_get(p.x, p.y - 1), c, r.unsafe_get(p.x, p.y + 1));
-            double x = p.x + ox, y = p.y + oy;
-            if (config.refineRadius > 0) {
-                double[] q = SubpixelCorner.refine(dx, dy, x, y, config.refineRadius);
-                x = q[0];
-                y = q[1];
-            }
-            candidates.add(new Detection(x, y, c, config.windowRadius));
+            candidates.add(new Detection(p.x + ox, p.y + oy, c, config.windowRadius));
         }
-        return Detectors.select(Detectors.suppressNear(candidates, config.nmsRadius), config, strongest);
+        return Detectors.select(candidates, config, strongest);
     }
 }

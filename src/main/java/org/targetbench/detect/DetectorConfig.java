@@ -17,6 +17,11 @@ public abstract class DetectorConfig {
      * response is numerical noise (a flat frame must give no points). 0 for none.
      */
     public double minResponse = 0;
+    /**
+     * Sub-pixel refinement of the detected points, a stage of its own ({@link SubpixelRefiner}); off by default, on
+     * by default for the structure-tensor corners ({@link CornerConfig}).
+     */
+    public RefineConfig refine = RefineConfig.off();
 
     public abstract DetectorType type();
 
@@ -31,6 +36,8 @@ public abstract class DetectorConfig {
             throw new IllegalArgumentException(type().cliName() + ": threshold must be finite and >= 0, got " + threshold);
         if (!Double.isFinite(minResponse) || minResponse < 0)
             throw new IllegalArgumentException(type().cliName() + ": minResponse must be finite and >= 0, got " + minResponse);
+        if (refine == null) throw new IllegalArgumentException(type().cliName() + ": refinement settings must be set");
+        refine.checkValidity();
         if (thresholdMode == ThresholdMode.RELATIVE && threshold > 1)
             throw new IllegalArgumentException(type().cliName() + ": a relative threshold must be within 0..1, got " + threshold);
     }
@@ -41,6 +48,7 @@ public abstract class DetectorConfig {
         other.threshold = threshold;
         other.thresholdMode = thresholdMode;
         other.minResponse = minResponse;
+        other.refine = refine.copy();
         return other;
     }
 

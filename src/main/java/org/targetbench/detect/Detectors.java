@@ -15,7 +15,7 @@ public final class Detectors {
     public static PointDetector create(DetectorConfig config) {
         config.checkValidity();
         DetectorConfig c = config.copy();
-        return switch (c.type()) {
+        PointDetector d = switch (c.type()) {
             case HARRIS, SHI_TOMASI -> new CornerDetector((CornerConfig) c);
             case FAST -> new FastDetector((FastConfig) c);
             case SURF -> new FastHessianDetector((SurfConfig) c);
@@ -23,6 +23,7 @@ public final class Detectors {
             case DOTS -> new DotDetector((DotConfig) c);
             case XCORNER -> new XCornerDetector((XCornerConfig) c);
         };
+        return c.refine.enabled ? new RefinedDetector(d, c) : d;
     }
 
     public static PointDetector create(DetectorType type) {

@@ -110,6 +110,7 @@ public final class CompareWriter {
         for (DetectorSummary s : r.ranked()) {
             ObjectNode o = ranking.addObject();
             o.put("rank", rank++).put("detector", s.detector().cliName()).put("label", s.detector().label());
+            r.configs().stream().filter(c -> c.type() == s.detector()).findFirst().ifPresent(c -> o.put("refinement", c.refine.describe()));
             putOpt(o, "mean_repeatability", s.meanRepeatability());
             putOpt(o, "min_repeatability", s.minRepeatability());
             o.put("frames_scored", s.framesScored());

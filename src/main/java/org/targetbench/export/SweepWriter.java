@@ -35,13 +35,16 @@ public final class SweepWriter {
 
     static void writeRanking(SweepResult r, Map<Perturbation, Double> envelope, Path file) throws IOException {
         try (BufferedWriter w = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
-            w.write("scope,rank,detector,score,weakest_parameter\n");
+            w.write("scope,rank,detector,score,weakest_parameter,refinement\n");
+            Map<org.targetbench.detect.DetectorType, String> refine = new java.util.EnumMap<>(org.targetbench.detect.DetectorType.class);
+            for (var c : r.detectors()) refine.put(c.type(), Csv.text(c.refine.describe()));
             for (var x : SweepSummary.rankEnvelope(r, envelope))
                 w.write("envelope," + x.rank() + "," + x.detector().cliName() + "," + Csv.num(x.score(), 4) + ","
-                        + (x.weakest() == null ? "" : x.weakest().id()) + "\n");
+                        + (x.weakest() == null ? "" : x.weakest().id()) + "," + refine.get(x.detector()) + "\n");
             for (Perturbation p : r.parameters())
                 for (var x : SweepSummary.rankParameter(r, p))
-                    w.write(p.id() + "," + x.rank() + "," + x.detector().cliName() + "," + Csv.num(x.score(), 4) + "," + p.id() + "\n");
+                    w.write(p.id() + "," + x.rank() + "," + x.detector().cliName() + "," + Csv.num(x.score(), 4) + "," + p.id()
+                            + "," + refine.get(x.detector()) + "\n");
         }
     }
 }

@@ -21,7 +21,7 @@ import java.util.regex.Pattern;
 public final class SourceSpec {
     /** Kept in step with {@link MotionScenarios#NAMES} (a constant, for annotations). */
     public static final String HELP = "a folder of PNG/JPEG frames, a video file (.mp4, .mov, .mkv, .avi, .webm, .mjpeg, ... any FFmpeg reads), webcam[:INDEX] or synthetic:NAME[,key=value...] "
-            + "with NAME one of approach, orbit, shake, vibration, still";
+            + "with NAME one of approach, converge, orbit, shake, vibration, still";
     private static final Pattern IMAGE = Pattern.compile(".*\\.(png|jpe?g|bmp|gif|tiff?|pgm|ppm)$");
     /** Files of this tool's own formats and other documents, which are never frames. */
     private static final Pattern NOT_VIDEO = Pattern.compile(".*\\.(json|csv|txt|ya?ml|md|html?|pdf|svg|xml)$");

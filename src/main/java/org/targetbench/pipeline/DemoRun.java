@@ -33,8 +33,8 @@ public final class DemoRun {
     public static final int SWEEP_TRACK_FRAMES = 4;
     /** Rehearsal starts in the demo: enough for a convergence rate, few enough to keep the demo quick. */
     public static final int REHEARSAL_STARTS = 100;
-    /** The demo's tracking run: the arm's approach to the target and a short hold (3 s at 30 fps). */
-    public static final String TRACK_MOTION = "approach,frames=90";
+    /** The demo's tracking run: the last 3 s of a servo convergence (20° roll, 1.5x zoom, wide-angle lens) at 30 fps. */
+    public static final String TRACK_MOTION = "converge,frames=90";
     /** Detector that seeds the demo's tracks. */
     public static final DetectorType TRACK_SEEDING = DetectorType.SHI_TOMASI;
     /** Frame at which the demo's tracking reports survival. */

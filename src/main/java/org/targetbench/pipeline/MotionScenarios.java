@@ -1,5 +1,6 @@
 package org.targetbench.pipeline;
 
+import org.targetbench.camera.CameraModel;
 import org.targetbench.camera.Trajectories;
 import org.targetbench.camera.Trajectory;
 import org.targetbench.perturb.MotionConfig;
@@ -18,9 +19,14 @@ import java.util.Map;
  */
 public final class MotionScenarios {
     /** Motion names, in the order they are listed to people. */
-    public static final List<String> NAMES = List.of("approach", "orbit", "shake", "vibration", "still");
+    public static final List<String> NAMES = List.of("approach", "converge", "orbit", "shake", "vibration", "still");
     /** Settings a name may carry, with what they mean. */
     public static final Map<String, String> KEYS = keys();
+
+    /** Radial distortion of the lens {@code converge} is seen through (a wide-angle board lens; invented). */
+    public static final double CONVERGE_K1 = -0.27;
+    /** Starting and final distance of {@code converge}, metres: a 1.5x zoom. */
+    public static final double CONVERGE_FROM_M = 0.40, CONVERGE_TO_M = 0.26;
 
     private MotionScenarios() {}
 
@@ -35,6 +41,7 @@ public final class MotionScenarios {
         k.put("amplitude_mm", "vibration amplitude or shake translation, mm");
         k.put("frequency_hz", "vibration frequency, Hz");
         k.put("amplitude_deg", "orbit swing or shake rotation, degrees");
+        k.put("roll_deg", "converge: starting roll, degrees");
         k.put("seed", "seed of noise and shake");
         return k;
     }
@@ -43,6 +50,7 @@ public final class MotionScenarios {
     public static String describe(String name) {
         return switch (name) {
             case "approach" -> "the arm closes in from 0.40 m and an oblique view to the square-on reference at 0.25 m, then holds still";
+            case "converge" -> "a servo convergence through a wide-angle lens (k1 = " + CONVERGE_K1 + "): the camera closes from 0.40 m to 0.26 m (1.5x zoom) while a 20° roll dies away";
             case "orbit" -> "the camera swings ±25° around the target on a figure of eight at 0.25 m (period 5 s)";
             case "shake" -> "hand-held shake around the reference view: ±1° and ±2 mm, 0.5-6 Hz";
             case "vibration" -> "cell vibration: 0.3 mm at 12 Hz sideways at the reference view";
@@ -95,11 +103,18 @@ public final class MotionScenarios {
         double seconds = c.frames / c.fps;
         Trajectory t = switch (name) {
             case "approach" -> Trajectories.approach(w, h, s, 0.40, 2.0 / 3 * seconds);
+            case "converge" -> Trajectories.converge(w, h, CONVERGE_TO_M, CONVERGE_FROM_M, v.getOrDefault("roll_deg", 20.0), seconds);
             case "orbit" -> Trajectories.orbit(w, h, s, v.getOrDefault("amplitude_deg", 25.0), 5.0);
             case "shake" -> Trajectories.shake(w, h, s, v.getOrDefault("amplitude_deg", 1.0), v.getOrDefault("amplitude_mm", 2.0), c.seed);
             case "vibration" -> Trajectories.vibration(w, h, s, v.getOrDefault("amplitude_mm", 0.3), v.getOrDefault("frequency_hz", 12.0));
             default -> Trajectories.still(w, h, s);
         };
-        return new MotionSource(name, d, DemoScenario.camera(), t, DemoScenario.lighting(), c);
+        return new MotionSource(name, d, name.equals("converge") ? convergeCamera() : DemoScenario.camera(), t, DemoScenario.lighting(), c);
+    }
+
+    /** The demo's flange camera with the wide-angle lens of {@code converge}: radial distortion k1 only. */
+    public static CameraModel convergeCamera() {
+        CameraModel p = DemoScenario.camera();
+        return new CameraModel(p.width(), p.height(), p.fx(), p.fy(), p.cx(), p.cy(), CONVERGE_K1, 0, 0, 0, 0);
     }
 }

@@ -42,6 +42,20 @@ public final class KltConfig {
      * noise of a flat patch with 1.5 grey levels of sensor noise (about 0.4) and far below a clean corner (hundreds).
      */
     public double minEigenvalue = 2;
+    /**
+     * Drift correction: after each frame-to-frame step, align the track's first template (affine warp, gain and bias;
+     * Baker &amp; Matthews 2004, Matthews, Ishikawa &amp; Baker 2004) starting from the new position and keep the
+     * corrected position when the alignment converges within {@link #maxCorrection}. Without it a frame-to-frame
+     * tracker's position random-walks away from its feature over a long run. The residual check then measures the
+     * window against the first template.
+     */
+    public boolean driftCorrection = true;
+    /**
+     * Largest correction the drift correction may apply in one frame, pixels; > 0. A larger one is not applied (the
+     * frame-to-frame position stands). The default 1 px is several times the drift of a frame-to-frame tracker over
+     * a few seconds (measured about 0.1-0.4 px) and well below a corner's distance to the next similar structure.
+     */
+    public double maxCorrection = 1.0;
     /** New tracks start no closer than this to each other or to a live track, pixels; >= 0. */
     public double minSpacing = 8;
     /** Whether tracks that die are replaced. */
@@ -54,6 +68,7 @@ public final class KltConfig {
         c.windowRadius = windowRadius; c.pyramidLevels = pyramidLevels; c.maxIterations = maxIterations; c.epsilon = epsilon;
         c.forwardBackward = forwardBackward; c.fbThreshold = fbThreshold; c.maxResidual = maxResidual;
         c.minEigenvalue = minEigenvalue; c.minSpacing = minSpacing; c.respawn = respawn; c.maxTracks = maxTracks;
+        c.driftCorrection = driftCorrection; c.maxCorrection = maxCorrection;
         return c;
     }
 
@@ -68,6 +83,7 @@ public final class KltConfig {
         if (!(minEigenvalue >= 0) || !Double.isFinite(minEigenvalue))
             throw new IllegalArgumentException("minEigenvalue must be >= 0 (grey levels/px)², got " + minEigenvalue);
         if (!(minSpacing >= 0) || !Double.isFinite(minSpacing)) throw new IllegalArgumentException("minSpacing must be >= 0 px, got " + minSpacing);
+        if (!(maxCorrection > 0) || !Double.isFinite(maxCorrection)) throw new IllegalArgumentException("maxCorrection must be > 0 px, got " + maxCorrection);
         if (respawn == null) throw new IllegalArgumentException("respawn policy must be set");
         if (maxTracks < 1 || maxTracks > 100_000) throw new IllegalArgumentException("maxTracks must be 1..100000, got " + maxTracks);
     }

@@ -30,19 +30,38 @@ import java.util.List;
  * {@link KltConfig#minEigenvalue} ([3] eq. 7), and the point tracked back into the previous frame: the distance from
  * where it lands to where it started is the forward-backward error ([4] sec. 2, eq. 1).
  *
- * <p>Caveats: templates are re-taken every frame (no affine model), so slow drift over many frames is not corrected;
+ * <p>Drift correction ({@link KltConfig#driftCorrection}, on by default): the frame-to-frame step above random-walks
+ * away from the feature over many frames, because every re-taken template carries the last frame's error. So each
+ * track also keeps the template of the frame it was born in, and after the frame-to-frame step that template is
+ * aligned with the full-resolution frame under an affine warp with gain and bias, inverse compositional
+ * ({@link AffineAnchor}; [6] sec. 3.2), starting from the frame-to-frame position and the warp of the previous frame;
+ * when it converges within {@link KltConfig#maxCorrection} of the frame-to-frame position its answer replaces it
+ * ([5] sec. 2.4, strategy 3). The affine warp follows the roll, zoom and local lens distortion of an approach that a
+ * translation-only window cannot. The residual check is made against that first template, warped (a window whose
+ * aligned residual exceeds {@link KltConfig#maxResidual} ends as {@link TrackOutcome#RESIDUAL_TOO_LARGE}), and the
+ * forward-backward check starts from the corrected position with the re-taken template.
+ *
+ * <p>Caveats: an alignment that does not converge leaves the frame-to-frame position uncorrected for that frame;
  * the tracker is single threaded and not thread safe; every frame of a run must have the same size.
  *
  * <p>References: [1] B. D. Lucas, T. Kanade, "An iterative image registration technique with an application to stereo
  * vision", IJCAI 1981. [2] J.-Y. Bouguet, "Pyramidal implementation of the Lucas Kanade feature tracker", Intel
  * Corporation, 2000. [3] J. Shi, C. Tomasi, "Good features to track", CVPR 1994. [4] Z. Kalal, K. Mikolajczyk,
- * J. Matas, "Forward-backward error: automatic detection of tracking failures", ICPR 2010.
+ * J. Matas, "Forward-backward error: automatic detection of tracking failures", ICPR 2010. [5] I. Matthews,
+ * T. Ishikawa, S. Baker, "The template update problem", IEEE PAMI 26(6), 2004. [6] S. Baker, I. Matthews,
+ * "Lucas-Kanade 20 years on: a unifying framework", IJCV 56(3), 2004.
  */
 public final class KltTracker {
     /** Gaussian kernel radius of the pyramid (5 taps, as in [2]); the sigma is derived from it by BoofCV. */
     private static final int PYRAMID_KERNEL_RADIUS = 2;
     /** BoofCV's own singularity guard on det G per pixel; texture is judged by {@link KltConfig#minEigenvalue}. */
     private static final float MIN_DETERMINANT = 1e-6f;
+    /**
+     * Most iterations of the drift correction: it starts from the frame-to-frame answer, a few hundredths of a pixel
+     * from its optimum, and converges in two or three; one that has not converged after this many is not applied
+     * (common practice, no source; bounds its cost).
+     */
+    private static final int ANCHOR_ITERATIONS = 6;
 
     private final KltConfig config;
     private final PointDetector seeder;
@@ -60,10 +79,13 @@ public final class KltTracker {
         final int id;
         final PyramidKltFeature feature;
         final boolean initial;
+        /** Drift correction against the first template; null when off or the first window was incomplete. */
+        final AffineAnchor anchor;
         float x, y;
 
-        Live(int id, PyramidKltFeature feature, boolean initial, float x, float y) {
+        Live(int id, PyramidKltFeature feature, AffineAnchor anchor, boolean initial, float x, float y) {
             this.id = id;
+            this.anchor = anchor;
             this.feature = feature;
             this.initial = initial;
             this.x = x;
@@ -205,8 +227,24 @@ public final class KltTracker {
             }
             fx[i] = t.feature.x;
             fy[i] = t.feature.y;
-            if (!inImage(fx[i], fy[i])) outcome[i] = TrackOutcome.LEFT_IMAGE;
-            else if (!klt.setDescription(t.feature) || minEigenvalue(t.feature.desc[0]) < config.minEigenvalue) outcome[i] = TrackOutcome.TOO_FLAT;
+            if (!inImage(fx[i], fy[i])) {
+                outcome[i] = TrackOutcome.LEFT_IMAGE;
+                continue;
+            }
+            if (t.anchor != null && t.anchor.align(current.getLayer(0), fx[i], fy[i], Math.min(config.maxIterations, ANCHOR_ITERATIONS), config.epsilon) == AffineAnchor.Status.CONVERGED) {
+                // [5] strategy 3: keep the first template's answer when it lies close to the frame-to-frame one
+                if (t.anchor.residual > config.maxResidual) {
+                    outcome[i] = TrackOutcome.RESIDUAL_TOO_LARGE;
+                    continue;
+                }
+                if (Math.hypot(t.anchor.rx - fx[i], t.anchor.ry - fy[i]) <= config.maxCorrection) {
+                    t.anchor.commit();
+                    fx[i] = (float) t.anchor.rx;
+                    fy[i] = (float) t.anchor.ry;
+                    t.feature.setPosition(fx[i], fy[i]);
+                }
+            }
+            if (!klt.setDescription(t.feature) || minEigenvalue(t.feature.desc[0]) < config.minEigenvalue) outcome[i] = TrackOutcome.TOO_FLAT;
             else outcome[i] = TrackOutcome.TRACKED;
         }
         // backward: the new templates into the previous frame must land where the track came from
@@ -265,7 +303,12 @@ public final class KltTracker {
                 spare.add(f);
                 continue;
             }
-            Live t = new Live(nextId++, f, initial, x, y);
+            AffineAnchor anchor = null;
+            if (config.driftCorrection) {
+                anchor = new AffineAnchor(config.windowRadius);
+                if (!anchor.init(current.getLayer(0), currentDx[0], currentDy[0], x, y)) anchor = null;
+            }
+            Live t = new Live(nextId++, f, anchor, initial, x, y);
             live.add(t);
             grid.add(x, y);
             rows.add(new TrackPoint(t.id, frame, x, y, TrackOutcome.STARTED, Double.NaN));

@@ -79,7 +79,11 @@ public final class BenchMain {
     }
 
     private static FrameTask ours(DetectorType type, BenchFrames frames) {
-        PointDetector detector = Detectors.create(type);
+        // like for like with OpenCV's detectors, which do not refine: the refinement stage has its own row in
+        // TrackBench (against cornerSubPix)
+        org.targetbench.detect.DetectorConfig c = org.targetbench.detect.DetectorConfig.defaults(type);
+        c.refine.enabled = false;
+        PointDetector detector = Detectors.create(c);
         return f -> detector.detect(frames.gray.get(f)).size();
     }
 

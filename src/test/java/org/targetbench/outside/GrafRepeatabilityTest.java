@@ -68,6 +68,10 @@ class GrafRepeatabilityTest {
     static final double MAX_SHIFTED_SINGLE_RATIO = 0.35;
     /** Largest allowed |ours - OpenCV| Shi-Tomasi repeatability. */
     static final double MAX_OPENCV_GAP = 0.10;
+    /** Largest shortfall against OpenCV's goodFeaturesToTrack with the same count, both unrefined (common practice, no source). */
+    static final double MAX_OPENCV_GAP_UNREFINED = 0.05;
+    /** Largest repeatability the default refinement may cost on natural texture (common practice, no source). */
+    static final double REFINE_LOSS_TOL = 0.015;
     /** Largest allowed difference between our BT.601 luma and OpenCV's float BGR2GRAY of the same file, grey levels. */
     static final double LUMA_TOL = 1e-3;
 
@@ -183,15 +187,42 @@ class GrafRepeatabilityTest {
         assertEquals(ThresholdMode.RELATIVE, defaults.thresholdMode, "qualityLevel maps only onto a relative threshold");
         ShiTomasiConfig boxNoRefine = defaults.copy();
         boxNoRefine.weighted = false;
-        boxNoRefine.refineRadius = 0;
+        boxNoRefine.refine.enabled = false;
 
         double cvRep = score(openCvCorners(g1, defaults), openCvCorners(g3, defaults), h13).repeatability().getAsDouble();
         for (ShiTomasiConfig c : new ShiTomasiConfig[]{defaults, boxNoRefine}) {
             PointDetector ours = Detectors.create(c);
             double ourRep = score(ours.detect(g1), ours.detect(g3), h13).repeatability().getAsDouble();
             assertEquals(cvRep, ourRep, MAX_OPENCV_GAP,
-                    "Shi-Tomasi (weighted=" + c.weighted + ", refine=" + c.refineRadius + ") vs OpenCV goodFeaturesToTrack");
+                    "Shi-Tomasi (weighted=" + c.weighted + ", refine=" + c.refine + ") vs OpenCV goodFeaturesToTrack");
         }
+    }
+
+    @Test
+    void refinementIsFairOnNaturalTexture() {
+        // Reference library: OpenCV 4.9 Imgproc.goodFeaturesToTrack, same count (500), same float grey pixels, scored
+        // by the same Repeatability rules on graf 1 -> 3 (Mikolajczyk et al. 2005). Both without refinement, our
+        // defaults otherwise (Gaussian window). Then our default refinement stage (RefineConfig's keep rule) must not
+        // lower our own repeatability by more than REFINE_LOSS_TOL. Measured (2026-12-02): OpenCV 0.5238; ours
+        // unrefined 0.6086; ours with the default refinement 0.5963; with every refinement kept (the old behaviour)
+        // 0.4548. Ours is above OpenCV by 0.085 (the Gaussian window; with a box window 0.5701), so the bound is
+        // one-sided: not more than MAX_OPENCV_GAP_UNREFINED below the reference library.
+        ShiTomasiConfig plain = new ShiTomasiConfig();
+        plain.refine.enabled = false;
+        assertEquals(500, plain.maxFeatures);
+        double cvRep = score(openCvCorners(g1, plain), openCvCorners(g3, plain), h13).repeatability().getAsDouble();
+        PointDetector unrefined = Detectors.create(plain), refined = Detectors.create(new ShiTomasiConfig());
+        double ourPlain = score(unrefined.detect(g1), unrefined.detect(g3), h13).repeatability().getAsDouble();
+        double ourRefined = score(refined.detect(g1), refined.detect(g3), h13).repeatability().getAsDouble();
+        ShiTomasiConfig always = new ShiTomasiConfig();
+        always.refine.maxShiftPx = always.refine.windowRadius;
+        always.refine.minEigenRatio = 0;
+        always.refine.maxFitRmsPx = Double.MAX_VALUE;
+        PointDetector all = Detectors.create(always);
+        double ourAll = score(all.detect(g1), all.detect(g3), h13).repeatability().getAsDouble();
+        String table = "OpenCV " + cvRep + ", ours unrefined " + ourPlain + ", default refinement " + ourRefined + ", every refinement kept " + ourAll;
+        assertTrue(ourPlain >= cvRep - MAX_OPENCV_GAP_UNREFINED, table);
+        assertTrue(ourRefined >= ourPlain - REFINE_LOSS_TOL, table);
     }
 
     /**

@@ -36,8 +36,17 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
  * iterations or a 0.01 px step. Points that either tracker loses are left out.
  */
 class KltVsOpenCvTest {
-    /** Largest allowed median disagreement, pixels (common practice, no source; measured 0.0002 px). */
-    static final double MEDIAN_TOL_PX = 0.05;
+    /**
+     * Largest allowed median disagreement of the Lucas-Kanade step itself (drift correction off, as OpenCV has none),
+     * pixels: a hundredth of a pixel, far below what a servo notices (common practice, no source); measured 0.0002 px.
+     */
+    static final double MEDIAN_TOL_PX = 0.01;
+    /**
+     * The same with drift correction on (our default), pixels: the correction is a different estimator (affine warp,
+     * gain and bias, whole-pixel template), so it agrees less closely; measured 0.010-0.012 px (common practice, no
+     * source, for the bound).
+     */
+    static final double CORRECTED_MEDIAN_TOL_PX = 0.02;
     static final int W = 640, H = 480;
     static final long SEED = 7;
 
@@ -54,9 +63,9 @@ class KltVsOpenCvTest {
         return m;
     }
 
-    @ParameterizedTest(name = "shift ({0}, {1}) px")
-    @CsvSource({"0.3, 0.7", "2.25, -1.6", "7.3, 4.1", "15.6, -9.2"})
-    void medianDisagreementWithOpenCvIsTiny(double dx, double dy) {
+    @ParameterizedTest(name = "shift ({0}, {1}) px, drift correction {2}")
+    @CsvSource({"0.3, 0.7, false", "2.25, -1.6, false", "7.3, 4.1, false", "15.6, -9.2, false", "0.3, 0.7, true", "15.6, -9.2, true"})
+    void medianDisagreementWithOpenCvIsTiny(double dx, double dy, boolean driftCorrection) {
         GrayF32 a = TrackScenes.quantised(TrackScenes.texture(W, H, SEED, 0, 0));
         GrayF32 b = TrackScenes.quantised(TrackScenes.texture(W, H, SEED, dx, dy));
         ShiTomasiConfig st = new ShiTomasiConfig();
@@ -67,6 +76,7 @@ class KltVsOpenCvTest {
         KltConfig k = new KltConfig();
         k.maxTracks = 1000;
         k.forwardBackward = false;
+        k.driftCorrection = driftCorrection;
         KltTracker ours = new KltTracker(k, null);
         TrackFrame f0 = ours.start(a, 0, seeds);
         TrackFrame f1 = ours.process(b, 1);
@@ -91,6 +101,6 @@ class KltVsOpenCvTest {
         double[] used = Arrays.copyOf(d, n);
         Arrays.sort(used);
         double median = used[n / 2];
-        assertTrue(median < MEDIAN_TOL_PX, "median disagreement " + median + " px");
+        assertTrue(median < (driftCorrection ? CORRECTED_MEDIAN_TOL_PX : MEDIAN_TOL_PX), "median disagreement " + median + " px");
     }
 }

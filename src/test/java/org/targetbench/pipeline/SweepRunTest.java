@@ -75,8 +75,11 @@ class SweepRunTest {
                 java.util.Optional.empty());
         var r = new SweepRun(config(List.of(DetectorType.HARRIS, DetectorType.SHI_TOMASI), List.of(Perturbation.SCALE),
                 Map.of(Perturbation.SCALE, new double[]{1.0, 2.0}))).run(graf, Progress.NONE, () -> false);
+        // Since refinement has a keep rule (RefineConfig) Harris keeps 0.785 and Shi-Tomasi 0.762 at 2x (measured
+        // 2026-12-02; the old loss of more than 0.3 was largely the fixed-size refinement window's), so only a clear
+        // loss is asserted
         for (DetectorType d : List.of(DetectorType.HARRIS, DetectorType.SHI_TOMASI))
-            assertTrue(mean(r, d, Perturbation.SCALE, 2.0) < mean(r, d, Perturbation.SCALE, 1.0) - 0.3,
+            assertTrue(mean(r, d, Perturbation.SCALE, 2.0) < mean(r, d, Perturbation.SCALE, 1.0) - 0.1,
                     d + " must lose much of its repeatability at 2x: " + mean(r, d, Perturbation.SCALE, 2.0));
     }
 
