@@ -28,6 +28,12 @@ final class CompareCommand implements Callable<Integer> {
     @Option(names = "--truth", paramLabel = "FILE", description = "Ground-truth file (default: truth.json in the frame folder, if present).")
     Path truth;
 
+    @Option(names = "--target", paramLabel = "FILE", description = "In place of --truth: register the frames to this printed design (target.json) and score against that; see the register command.")
+    Path target;
+
+    @Option(names = "--camera", paramLabel = "FILE", description = "With --target: intrinsics with distortion to register with (camera.json, OpenCV or ROS YAML).")
+    Path camera;
+
     @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output folder, written atomically.")
     Path out;
 
@@ -36,8 +42,20 @@ final class CompareCommand implements Callable<Integer> {
     @Override
     public Integer call() throws Exception {
         var configs = detectorOptions.configs();
-        try (ImageFolderSource source = ImageFolderSource.open(frames, truth);
-             AtomicOutput output = AtomicOutput.open(out)) {
+        if (camera != null && target == null) throw new UserError("--camera goes with --target (the intrinsics to register with)");
+        try (AtomicOutput output = AtomicOutput.open(out)) {
+            Path truthFile = truth;
+            if (target != null)
+                try (ImageFolderSource footage = ImageFolderSource.open(frames, null)) {
+                    truthFile = TargetTruth.register(footage, target, camera, truth, output);
+                }
+            compare(configs, truthFile, output);
+        }
+        return 0;
+    }
+
+    private void compare(java.util.List<org.targetbench.detect.DetectorConfig> configs, Path truthFile, AtomicOutput output) throws Exception {
+        try (ImageFolderSource source = ImageFolderSource.open(frames, truthFile)) {
             CompareResult result = new CompareRun(configs, detectorOptions.epsilon).run(source, new ConsoleProgress("detecting"));
             CompareWriter.write(result, output);
             OverlayWriter.write(result, output);
@@ -48,6 +66,5 @@ final class CompareCommand implements Callable<Integer> {
             w.println("Results written to " + output.target());
             w.flush();
         }
-        return 0;
     }
 }

@@ -30,7 +30,7 @@ import static org.targetbench.cli.BadInputTest.assertBadInput;
 class RegisterCliTest {
     static final Path XC10 = Path.of("target-designs/fixture-xc10/target.json");
     @TempDir static Path tmp;
-    static Path frames, cameraJson, blank;
+    static Path frames, smooth, cameraJson, blank;
 
     @BeforeAll
     static void footage() throws Exception {
@@ -46,6 +46,10 @@ class RegisterCliTest {
             GrayF32 img = i == 3 ? flat(110) : r.render(d, Pose.facing(d.widthMm(), d.heightMm(), 0.24 - 0.005 * i, 8 + 2 * i, -6 + 3 * i, 3 - i, 0.002 * i, -0.001 * i), i).image();
             ImageFiles.writePng(img, frames.resolve(String.format("frame_%03d.png", i)));
         }
+        smooth = Files.createDirectories(tmp.resolve("smooth"));
+        for (int i = 0; i < 8; i++)
+            ImageFiles.writePng(r.render(d, Pose.facing(d.widthMm(), d.heightMm(), 0.24, 8 + 0.3 * i, -6 + 0.2 * i, 1, 0.0005 * i, 0), 10 + i).image(),
+                    smooth.resolve(String.format("frame_%03d.png", i)));
         blank = Files.createDirectories(tmp.resolve("blank"));
         for (int i = 0; i < 2; i++) ImageFiles.writePng(flat(120 + i), blank.resolve("frame_00" + i + ".png"));
     }
@@ -78,6 +82,25 @@ class RegisterCliTest {
         Cli.Result c = Cli.run("compare", "--frames", frames.toString(), "--truth", out.resolve("truth.json").toString(), "--out", cmp.toString());
         assertEquals(0, c.exit(), c.err());
         assertTrue(Files.readString(cmp.resolve("summary.json")).contains("\"true_features\""));
+    }
+
+    @Test
+    void compareAndTrackRegisterOnTheFlyWithTarget() throws IOException {
+        Path cmp = tmp.resolve("cmp-target");
+        Cli.Result c = Cli.run("compare", "--frames", frames.toString(), "--target", XC10.toString(), "--camera", cameraJson.toString(), "--out", cmp.toString());
+        assertEquals(0, c.exit(), c.err());
+        assertTrue(Files.exists(cmp.resolve("registration/registration.csv")));
+        assertTrue(Files.readString(cmp.resolve("summary.json")).contains("\"true_features\""));
+        // a recording of the same frames (MJPEG AVI), tracked with drift against the registered truth
+        Path avi = tmp.resolve("clip.avi");
+        Cli.Result rec = Cli.run("record", "--source", smooth.toString(), "--out", avi.toString(), "--quality", "95");
+        assertEquals(0, rec.exit(), rec.err());
+        Path trk = tmp.resolve("trk-target");
+        Cli.Result t = Cli.run("track", "--source", avi.toString(), "--target", XC10.toString(), "--camera", cameraJson.toString(), "--out", trk.toString());
+        assertEquals(0, t.exit(), t.err());
+        assertTrue(Files.exists(trk.resolve("drift.csv")), t.out());
+        assertTrue(Files.readString(trk.resolve("summary.json")).contains("\"frames_with_truth\" : 7"), t.out());
+        assertTrue(Files.exists(trk.resolve("registration/truth.json")));
     }
 
     @Test

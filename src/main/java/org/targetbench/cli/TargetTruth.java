@@ -1,0 +1,42 @@
+package org.targetbench.cli;
+
+import org.targetbench.camera.CameraModel;
+import org.targetbench.export.AtomicOutput;
+import org.targetbench.export.RegistrationWriter;
+import org.targetbench.pipeline.RegisterRun;
+import org.targetbench.register.RegisterConfig;
+import org.targetbench.source.FrameSource;
+import org.targetbench.source.SourceException;
+import org.targetbench.source.TargetFile;
+import org.targetbench.target.TargetDesign;
+
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.Optional;
+
+/**
+ * {@code --target T.json [--camera C]} in place of {@code --truth}: registers the footage to the design first and
+ * writes what the registration found into the output's {@code registration/} folder (registration.csv,
+ * registered.csv, truth.json), whose truth.json the command then reads like any other.
+ */
+final class TargetTruth {
+    private TargetTruth() {}
+
+    /**
+     * @param footage a freshly opened source of the same footage the command will read (it is read to the end)
+     * @return the truth file written inside the (uncommitted) output
+     */
+    static Path register(FrameSource footage, Path target, Path camera, Path truth, AtomicOutput output) throws SourceException, IOException {
+        if (truth != null) throw new UserError("give either --truth or --target, not both");
+        if (camera != null && target == null) throw new UserError("--camera goes with --target (the intrinsics to register with)");
+        TargetDesign design = TargetFile.read(target);
+        Optional<CameraModel> cam = RegisterCommand.camera(camera, footage);
+        RegisterRun.Result result = new RegisterRun(design, cam, new RegisterConfig()).run(footage, null);
+        if (result.registeredCount() == 0) throw RegisterCommand.neverRegistered(design, result);
+        Path dir = output.folder("registration");
+        RegistrationWriter.writeCsvs(result, dir.resolve("registration.csv"), dir.resolve("registered.csv"));
+        Path file = dir.resolve("truth.json");
+        RegistrationWriter.writeTruth(result, design, cam, file);
+        return file;
+    }
+}
