@@ -31,7 +31,13 @@ final class ServoSteps {
 
     /** Chooses a set; a refusal becomes a {@link NoAcceptableSet}. */
     static PickRun.Result pick(ResultsFolder.Data data, String detector, SelectConfig sc) throws SourceException {
-        PickRun.Result r = PickRun.run(data, detector, new CandidateConfig(), sc, Version.get(), ServoWriters.now());
+        return pick(data, detector, sc, java.util.Optional.empty());
+    }
+
+    /** As above, with survival and jitter measured on a tracking run of the same design ({@code pick --tracks}). */
+    static PickRun.Result pick(ResultsFolder.Data data, String detector, SelectConfig sc,
+                               java.util.Optional<org.targetbench.source.TrackRunFiles.Data> tracks) throws SourceException {
+        PickRun.Result r = PickRun.run(data, detector, new CandidateConfig(), sc, Version.get(), ServoWriters.now(), tracks);
         if (r.set().isEmpty()) throw new NoAcceptableSet(r.selection().message());
         return r;
     }

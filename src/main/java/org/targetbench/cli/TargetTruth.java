@@ -5,6 +5,7 @@ import org.targetbench.export.AtomicOutput;
 import org.targetbench.export.RegistrationWriter;
 import org.targetbench.pipeline.RegisterRun;
 import org.targetbench.register.RegisterConfig;
+import org.targetbench.source.CameraFiles;
 import org.targetbench.source.FrameSource;
 import org.targetbench.source.SourceException;
 import org.targetbench.source.TargetFile;
@@ -17,7 +18,8 @@ import java.util.Optional;
 /**
  * {@code --target T.json [--camera C]} in place of {@code --truth}: registers the footage to the design first and
  * writes what the registration found into the output's {@code registration/} folder (registration.csv,
- * registered.csv, truth.json), whose truth.json the command then reads like any other.
+ * registered.csv, truth.json), whose truth.json the command then reads like any other; target.json and camera.json
+ * are copied beside the results for {@code pick}.
  */
 final class TargetTruth {
     private TargetTruth() {}
@@ -37,6 +39,9 @@ final class TargetTruth {
         RegistrationWriter.writeCsvs(result, dir.resolve("registration.csv"), dir.resolve("registered.csv"));
         Path file = dir.resolve("truth.json");
         RegistrationWriter.writeTruth(result, design, cam, file);
+        // the design and intrinsics beside the results, where pick looks for them
+        java.nio.file.Files.copy(target, output.file("target.json"));
+        if (cam.isPresent()) CameraFiles.write(cam.get(), output.file("camera.json"), CameraFiles.Layout.JSON);
         return file;
     }
 }

@@ -17,6 +17,7 @@ import org.targetbench.servo.ServoSet;
 import org.targetbench.source.FrameTruth;
 import org.targetbench.source.ResultsFolder;
 import org.targetbench.source.SourceException;
+import org.targetbench.source.TrackRunFiles;
 import org.targetbench.target.TargetDesign;
 
 import java.util.ArrayList;
@@ -50,6 +51,16 @@ public final class PickRun {
 
     public static Result run(ResultsFolder.Data data, String detectorName, CandidateConfig cc, SelectConfig sc,
                              String toolVersion, String created) throws SourceException {
+        return run(data, detectorName, cc, sc, toolVersion, created, Optional.empty());
+    }
+
+    /**
+     * As above; with {@code tracks} (a {@code track --target} run on the same design) the candidates' track survival
+     * and jitter are the measured ones ({@link MeasuredTracks}) and the set's tracker settings name that run and its
+     * footage.
+     */
+    public static Result run(ResultsFolder.Data data, String detectorName, CandidateConfig cc, SelectConfig sc,
+                             String toolVersion, String created, Optional<TrackRunFiles.Data> tracks) throws SourceException {
         String folder = data.folderName();
         String detector = detectorName != null ? detectorName : data.ranking().isEmpty() ? null : data.ranking().get(0);
         if (detector == null) throw new SourceException(folder + "/summary.json: the ranking is empty; name a detector with --detector");
@@ -111,6 +122,15 @@ public final class PickRun {
         c2.epsilonPx = data.epsilonPx();
         List<Candidate> cands = Candidates.build(new Candidates.Frame(ref, refDet, Optional.empty(), refTruth), others, camera,
                 design.orElse(null), pose, c2);
+        String trackerNote = "{}";
+        if (tracks.isPresent()) {
+            Map<Integer, MeasuredTracks.Figures> figs = MeasuredTracks.figures(tracks.get());
+            cands = MeasuredTracks.apply(cands, figs);
+            trackerNote = "{\"track_survival_and_jitter_from\": " + jsonString(tracks.get().folder().toString())
+                    + ", \"footage\": " + jsonString(tracks.get().source())
+                    + ", \"designed_features_measured\": " + figs.size()
+                    + ", \"method\": \"per designed feature: share of the run its first-frame track survived; SD of tracked minus registered pixel\"}";
+        }
         Selection sel = ServoPointSelector.select(cands, camera.width(), camera.height(), sc);
         if (sel.outcome() != Selection.Outcome.SELECTED) return new Result(detector, cands, sel, Optional.empty(), poseMethod);
         List<ServoPoint> pts = new ArrayList<>();
@@ -120,9 +140,19 @@ public final class PickRun {
         }
         String designRef = design.map(d -> d.name() + " (" + data.targetFile().map(data::shortName).orElse("target.json") + ")").orElse("unknown");
         ServoSet set = new ServoSet(toolVersion, created, camera, design.map(TargetDesign::id).orElse("unknown"), designRef,
-                Optional.of(pose), poseMethod, detector, data.detectorSettings().getOrDefault(detector, "{}"), "{}", pts,
+                Optional.of(pose), poseMethod, detector, data.detectorSettings().getOrDefault(detector, "{}"), trackerNote, pts,
                 sel.condition(), sel.sigmaMin());
         return new Result(detector, cands, sel, Optional.of(set), poseMethod);
+    }
+
+    private static String jsonString(String s) {
+        StringBuilder b = new StringBuilder("\"");
+        for (char ch : s.toCharArray()) {
+            if (ch == '"' || ch == '\\') b.append('\\').append(ch);
+            else if (ch < 0x20) b.append(String.format(Locale.ROOT, "\\u%04x", (int) ch));
+            else b.append(ch);
+        }
+        return b.append('"').toString();
     }
 
     private static List<String> allFrames(ResultsFolder.Data data, Map<String, List<Detection>> byFrame) {

@@ -104,6 +104,21 @@ class RegisterCliTest {
     }
 
     @Test
+    void pickFillsSurvivalAndJitterFromATrackingRunOnTheSameTarget() throws IOException {
+        Path cmp = tmp.resolve("pick-cmp"), trk = tmp.resolve("pick-trk");
+        assertEquals(0, Cli.run("compare", "--frames", smooth.toString(), "--target", XC10.toString(), "--camera", cameraJson.toString(),
+                "--detectors", "shi-tomasi", "--out", cmp.toString()).exit());
+        Cli.Result t = Cli.run("track", "--source", smooth.toString(), "--target", XC10.toString(), "--camera", cameraJson.toString(), "--out", trk.toString());
+        assertEquals(0, t.exit(), t.err());
+        Cli.Result p = Cli.run("pick", "--from", cmp.toString(), "--tracks", trk.toString());
+        assertEquals(0, p.exit(), p.err() + p.out());
+        String set = Files.readString(cmp.resolve("servo-set.json"));
+        assertTrue(set.contains("track_survival_and_jitter_from"), set);
+        assertTrue(set.matches("(?s).*\"track_survival\" : [0-9.]+.*"), set);
+        assertTrue(set.matches("(?s).*\"jitter_px\" : [0-9.]+.*"), set);
+    }
+
+    @Test
     void aDesignThatNeverRegistersIsRefused() throws IOException {
         Path out = tmp.resolve("never");
         assertBadInput(out, "never registered: 2 frames tried", "register", "--frames", blank.toString(), "--target", XC10.toString(), "--out", out.toString());
