@@ -45,18 +45,23 @@ final class CompareCommand implements Callable<Integer> {
         if (camera != null && target == null) throw new UserError("--camera goes with --target (the intrinsics to register with)");
         try (AtomicOutput output = AtomicOutput.open(out)) {
             Path truthFile = truth;
+            TargetTruth.Registered registered = null;
             if (target != null)
                 try (ImageFolderSource footage = ImageFolderSource.open(frames, null)) {
-                    truthFile = TargetTruth.register(footage, target, camera, truth, output);
+                    registered = TargetTruth.registered(footage, target, camera, truth, output);
+                    truthFile = registered.truthFile();
                 }
-            compare(configs, truthFile, output);
+            compare(configs, truthFile, registered, output);
         }
         return 0;
     }
 
-    private void compare(java.util.List<org.targetbench.detect.DetectorConfig> configs, Path truthFile, AtomicOutput output) throws Exception {
+    private void compare(java.util.List<org.targetbench.detect.DetectorConfig> configs, Path truthFile, TargetTruth.Registered registered,
+                         AtomicOutput output) throws Exception {
         try (ImageFolderSource source = ImageFolderSource.open(frames, truthFile)) {
-            CompareResult result = new CompareRun(configs, detectorOptions.epsilon).run(source, new ConsoleProgress("detecting"));
+            CompareRun run = new CompareRun(configs, detectorOptions.epsilon);
+            if (registered != null) registered.applyTo(run);
+            CompareResult result = run.run(source, new ConsoleProgress("detecting"));
             CompareWriter.write(result, output);
             OverlayWriter.write(result, output);
             output.commit();

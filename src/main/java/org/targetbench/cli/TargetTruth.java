@@ -28,7 +28,21 @@ final class TargetTruth {
      * @param footage a freshly opened source of the same footage the command will read (it is read to the end)
      * @return the truth file written inside the (uncommitted) output
      */
+    /** What the registration gave: the truth file, and the run with the intrinsics it used. */
+    record Registered(Path truthFile, RegisterRun.Result result, Optional<CameraModel> camera) {
+        /** Points a comparison at the registered poses where lens distortion leaves no homography. */
+        org.targetbench.pipeline.CompareRun applyTo(org.targetbench.pipeline.CompareRun run) {
+            if (camera.isPresent() && camera.get().isDistorted())
+                run.withRegisteredTruth(camera.get(), RegisterRun.undistortedFromReference(result));
+            return run;
+        }
+    }
+
     static Path register(FrameSource footage, Path target, Path camera, Path truth, AtomicOutput output) throws SourceException, IOException {
+        return registered(footage, target, camera, truth, output).truthFile();
+    }
+
+    static Registered registered(FrameSource footage, Path target, Path camera, Path truth, AtomicOutput output) throws SourceException, IOException {
         if (truth != null) throw new UserError("give either --truth or --target, not both");
         if (camera != null && target == null) throw new UserError("--camera goes with --target (the intrinsics to register with)");
         TargetDesign design = TargetFile.read(target);
@@ -42,6 +56,6 @@ final class TargetTruth {
         // the design and intrinsics beside the results, where pick looks for them
         java.nio.file.Files.copy(target, output.file("target.json"));
         if (cam.isPresent()) CameraFiles.write(cam.get(), output.file("camera.json"), CameraFiles.Layout.JSON);
-        return file;
+        return new Registered(file, result, cam);
     }
 }

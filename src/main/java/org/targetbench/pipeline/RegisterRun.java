@@ -72,6 +72,20 @@ public final class RegisterRun {
         return new Result(out, best);
     }
 
+    /**
+     * Per registered frame (the reference included), the homography from the reference frame to it between
+     * undistorted images, H = G_f G_ref^-1 (for {@link CompareRun#withRegisteredTruth}).
+     */
+    public static Map<String, Homography> undistortedFromReference(Result result) {
+        Map<String, Homography> out = new LinkedHashMap<>();
+        Optional<Frame> ref = result.reference();
+        if (ref.isEmpty()) return out;
+        Homography gRefInv = ref.get().registration().designToImage().orElseThrow().inverse();
+        for (Frame fr : result.frames())
+            if (fr.registration().registered()) out.put(fr.name(), fr.registration().designToImage().orElseThrow().after(gRefInv).normalised());
+        return out;
+    }
+
     /** Truth of every registered frame, keyed by frame name, in the form the scores read. */
     public static Map<String, FrameTruth> truth(Result result, boolean distorted) {
         Map<String, FrameTruth> out = new LinkedHashMap<>();
