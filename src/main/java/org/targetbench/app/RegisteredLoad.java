@@ -2,7 +2,6 @@ package org.targetbench.app;
 
 import org.targetbench.camera.CameraModel;
 import org.targetbench.camera.Pose;
-import org.targetbench.camera.Projection.ProjectedFeature;
 import org.targetbench.pipeline.RegisterRun;
 import org.targetbench.register.FrameRegistrar;
 import org.targetbench.register.RegisterConfig;
@@ -66,10 +65,5 @@ final class RegisteredLoad {
             scene = Optional.of(new Session.Scene(design, camera.get(), new RenderConfig(), poses.get(0).t(2), poses));
         String label = name + ", registered to " + design.id() + " (" + result.registeredCount() + " of " + frames.size() + " frames)";
         return new Result(new SourceLoader.Loaded(label, out, reference, scene, false), failed);
-    }
-
-    /** True feature pixels of a frame, for tests. */
-    static List<ProjectedFeature> features(SourceLoader.Loaded l, String frame) {
-        return l.frames().stream().filter(f -> f.name().equals(frame)).findFirst().map(f -> f.truth().features()).orElse(List.of());
     }
 }
