@@ -38,18 +38,19 @@ import java.util.concurrent.Callable;
 final class SweepCommand implements Callable<Integer> {
     @Spec CommandSpec spec;
 
+    /** Where the base views come from: --target alone renders them; --frames degrades yours (with --target, registered to it). */
     static final class Input {
-        @Option(names = "--target", paramLabel = "FILE", description = "Target design (target.json): base views are rendered with truth.")
+        @Option(names = "--target", paramLabel = "FILE", description = "Target design (target.json): base views are rendered with truth; with --frames, the frames are registered to it for truth.")
         Path target;
 
         @Option(names = "--frames", paramLabel = "DIR", description = "Folder of PNG/JPEG frames to degrade instead.")
         Path frames;
     }
 
-    @ArgGroup(exclusive = true, multiplicity = "1")
+    @ArgGroup(exclusive = false, multiplicity = "1")
     Input input;
 
-    @Option(names = "--camera", paramLabel = "FILE", description = "Camera for --target (default: the demo's 640x480 flange camera).")
+    @Option(names = "--camera", paramLabel = "FILE", description = "Camera for --target (default: the demo's 640x480 flange camera); with --frames --target, the intrinsics to register with.")
     Path camera;
 
     @Option(names = "--standoff", paramLabel = "M", description = "Distance of the rendered views, metres (default: where the target fills half the view).")
@@ -94,8 +95,16 @@ final class SweepCommand implements Callable<Integer> {
             throw new UserError(e.getMessage().replace("trackFrames must", "--track-frames must"));
         }
         Map<Perturbation, Double> env = envelope(envelope);
-        SweepBase base = base(cfg);
+        if (input.target == null && input.frames == null) throw new UserError("give --target (render base views) or --frames (degrade your frames)");
         try (AtomicOutput output = AtomicOutput.open(out); SweepJob job = new SweepJob()) {
+            Path registeredTruth = null;
+            if (input.frames != null && input.target != null) {
+                if (standoff != null) throw new UserError("--standoff goes with rendered views (--target alone), not --frames");
+                try (org.targetbench.source.ImageFolderSource footage = org.targetbench.source.ImageFolderSource.open(input.frames, null)) {
+                    registeredTruth = TargetTruth.register(footage, input.target, camera, truth, output);
+                }
+            }
+            SweepBase base = registeredTruth != null ? FolderBase.read(input.frames, registeredTruth, views) : base(cfg);
             SweepResult r = new SweepRun(cfg).run(base, new ConsoleProgress("sweeping"), job::cancelled);
             write(r, env, output);
             output.commit();

@@ -122,6 +122,18 @@ class RegisterCliTest {
     }
 
     @Test
+    void sweepOfFramesRegistersThemWithTarget() throws IOException {
+        Path sw = tmp.resolve("sweep-target");
+        Cli.Result r = Cli.run("sweep", "--frames", smooth.toString(), "--target", XC10.toString(), "--camera", cameraJson.toString(),
+                "--kinds", "blur", "--levels", "2", "--views", "2", "--detectors", "harris", "--out", sw.toString());
+        assertEquals(0, r.exit(), r.err());
+        List<String> rows = Files.readAllLines(sw.resolve("sweep.csv"));
+        // localisation_px (8th column) is measured against the registered truth
+        assertTrue(rows.get(1).split(",", -1)[7].matches("0\\.[0-9]+"), rows.get(1));
+        assertTrue(Files.exists(sw.resolve("registration/truth.json")));
+    }
+
+    @Test
     void aDesignThatNeverRegistersIsRefused() throws IOException {
         Path out = tmp.resolve("never");
         assertBadInput(out, "never registered: 2 frames tried", "register", "--frames", blank.toString(), "--target", XC10.toString(), "--out", out.toString());
