@@ -40,6 +40,7 @@ class ArchitectureTest {
             List.of("source"),
             List.of("perturb"),
             List.of("detect", "track"),
+            List.of("register"),
             List.of("score"),
             List.of("select"),
             List.of("servo"),
@@ -59,7 +60,7 @@ class ArchitectureTest {
     private static final Path MAIN = Path.of("src/main/java/org/targetbench");
 
     @ParameterizedTest
-    @ValueSource(strings = {"target", "camera", "perturb", "detect", "track", "score", "select", "servo", "arm", "pipeline"})
+    @ValueSource(strings = {"target", "camera", "perturb", "detect", "track", "register", "score", "select", "servo", "arm", "pipeline"})
     void algorithmPackagesTouchNoScreensOrFiles(String pkg) throws IOException {
         Path dir = MAIN.resolve(pkg);
         assertTrue(Files.isDirectory(dir), "package " + pkg + " is missing");

@@ -70,7 +70,8 @@ final class LiveView extends JPanel implements Session.Listener {
                 Ui.button("src.demo", "Demo scene", "Load the built-in scene: a checkerboard on the fixture plate seen from twelve arm positions", this::loadDemo),
                 Ui.button("src.folder", "Open frame folder...", "Load a folder of PNG/JPEG frames (with truth.json if present)", this::chooseFolder),
                 Ui.button("src.video", "Open video...", "Load a video: MP4, MOV, MKV, WebM, AVI or MJPEG (with NAME.truth.json if present)", this::chooseVideo),
-                Ui.button("src.camera", "Camera...", "Show a connected camera live", this::camera)),
+                Ui.button("src.camera", "Camera...", "Show a connected camera live", this::camera),
+                Ui.button("src.register", "Register to design...", "Give the loaded frames truth from the printed design (target.json) and, optionally, the camera's intrinsics", this::chooseRegistration)),
                 BorderLayout.WEST);
         add(top, BorderLayout.NORTH);
 
@@ -205,6 +206,40 @@ final class LiveView extends JPanel implements Session.Listener {
         }.execute();
     }
 
+    /** Frames of the registered source that did not register, with the reason (shown in the frame label). */
+    private java.util.Map<String, String> notRegistered = java.util.Map.of();
+
+    void chooseRegistration() {
+        if (!session.hasFrames()) {
+            ctx.status().accept("Load a frame folder or a video first, then register it to its design");
+            return;
+        }
+        JFileChooser fc = new JFileChooser(ctx.prefs().get("lastTargetFolder", System.getProperty("user.dir")));
+        fc.setDialogTitle("The printed design (target.json)");
+        fc.setFileFilter(new javax.swing.filechooser.FileNameExtensionFilter("Target designs (target.json)", "json"));
+        if (fc.showOpenDialog(ctx.window()) != JFileChooser.APPROVE_OPTION) return;
+        Path target = fc.getSelectedFile().toPath();
+        ctx.prefs().put("lastTargetFolder", String.valueOf(target.getParent()));
+        JFileChooser cc = new JFileChooser(String.valueOf(target.getParent()));
+        cc.setDialogTitle("Camera intrinsics (camera.json, OpenCV or ROS YAML); Cancel for none");
+        Path camera = cc.showOpenDialog(ctx.window()) == JFileChooser.APPROVE_OPTION ? cc.getSelectedFile().toPath() : null;
+        registerTo(target, camera);
+    }
+
+    /** Registers the loaded frames to a design (and camera); the scores, track and servo views then use that truth. */
+    void registerTo(Path target, Path camera) {
+        String name = session.sourceName();
+        java.util.List<org.targetbench.source.SourceFrame> frames = java.util.List.copyOf(session.frames());
+        load("registration to " + target.getFileName(), () -> {
+            var design = org.targetbench.source.TargetFile.read(target);
+            var cam = camera == null ? java.util.Optional.<org.targetbench.camera.CameraModel>empty()
+                    : java.util.Optional.of(org.targetbench.source.CameraFiles.read(camera));
+            RegisteredLoad.Result r = RegisteredLoad.register(name, frames, design, cam);
+            javax.swing.SwingUtilities.invokeLater(() -> notRegistered = r.notRegistered());
+            return r.loaded();
+        });
+    }
+
     void loadFolder(Path dir) {
         load(dir.toString(), () -> SourceLoader.folder(dir));
     }
@@ -226,8 +261,10 @@ final class LiveView extends JPanel implements Session.Listener {
                 frameSlider.setValue(session.frameIndex());
                 updating = false;
                 var f = session.frame();
+                String nr = notRegistered.get(f.name());
                 frameLabel.setText(" " + (session.frameIndex() + 1) + "/" + session.frames().size() + "  " + f.name()
-                        + (session.frameIndex() == session.referenceIndex() ? " (reference)" : ""));
+                        + (session.frameIndex() == session.referenceIndex() ? " (reference)" : "")
+                        + (nr != null && session.sourceName().contains(", registered to ") ? "  NOT REGISTERED: " + nr + " (not scored)" : ""));
                 if (session.detections() == null) canvas.setFrame(f.image());
             }
             case SHOWN -> drawOverlay();

@@ -28,6 +28,12 @@ final class CompareCommand implements Callable<Integer> {
     @Option(names = "--truth", paramLabel = "FILE", description = "Ground-truth file (default: truth.json in the frame folder, if present).")
     Path truth;
 
+    @Option(names = "--target", paramLabel = "FILE", description = "In place of --truth: register the frames to this printed design (target.json) and score against that; see the register command.")
+    Path target;
+
+    @Option(names = "--camera", paramLabel = "FILE", description = "With --target: intrinsics with distortion to register with (camera.json, OpenCV or ROS YAML).")
+    Path camera;
+
     @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output folder, written atomically.")
     Path out;
 
@@ -36,10 +42,26 @@ final class CompareCommand implements Callable<Integer> {
     @Override
     public Integer call() throws Exception {
         var configs = detectorOptions.configs();
-        try (ImageFolderSource source = ImageFolderSource.open(frames, truth);
-             AtomicOutput output = AtomicOutput.open(out); SweepJob job = new SweepJob()) {
+        if (camera != null && target == null) throw new UserError("--camera goes with --target (the intrinsics to register with)");
+        try (AtomicOutput output = AtomicOutput.open(out); SweepJob job = new SweepJob()) {
+            Path truthFile = truth;
+            TargetTruth.Registered registered = null;
+            if (target != null)
+                try (ImageFolderSource footage = ImageFolderSource.open(frames, null)) {
+                    registered = TargetTruth.registered(footage, target, camera, truth, output);
+                    truthFile = registered.truthFile();
+                }
+            return compare(configs, truthFile, registered, output, job);
+        }
+    }
+
+    private int compare(java.util.List<org.targetbench.detect.DetectorConfig> configs, Path truthFile, TargetTruth.Registered registered,
+                        AtomicOutput output, SweepJob job) throws Exception {
+        try (ImageFolderSource source = ImageFolderSource.open(frames, truthFile)) {
             StoppableFrames stoppable = new StoppableFrames(source, job::cancelled, 2 * Runtime.getRuntime().availableProcessors());
-            CompareResult result = new CompareRun(configs, detectorOptions.epsilon).run(stoppable, stoppable.progress(new ConsoleProgress("detecting")));
+            CompareRun run = new CompareRun(configs, detectorOptions.epsilon);
+            if (registered != null) registered.applyTo(run);
+            CompareResult result = run.run(stoppable, stoppable.progress(new ConsoleProgress("detecting")));
             CompareWriter.write(result, output);
             OverlayWriter.write(result, output);
             var dotBias = CompareDotBias.rows(frames, result);

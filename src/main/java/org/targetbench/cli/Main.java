@@ -18,7 +18,7 @@ import java.io.PrintWriter;
         description = "Bench for fiducial targets, point detectors and servo point sets of eye-in-hand visual servoing cells.",
         subcommands = {DemoCommand.class, CompareCommand.class, SweepCommand.class, TrackCommand.class, PickCommand.class,
                 RehearseCommand.class, HandEyeCommand.class, RenderCommand.class, RecordCommand.class, DevicesCommand.class, DesignCommand.class,
-                CheckCommand.class, ShootoutCommand.class, CalibrateCommand.class, AppCommand.class, CommandLine.HelpCommand.class})
+                CheckCommand.class, ShootoutCommand.class, CalibrateCommand.class, RegisterCommand.class, AppCommand.class, CommandLine.HelpCommand.class})
 public final class Main implements Runnable {
     public static final int EXIT_NOTHING_ACCEPTABLE = 1;
     public static final int EXIT_BAD_INPUT = 2;

@@ -52,6 +52,9 @@ final class PickCommand implements Callable<Integer> {
     @Option(names = "--min-separation", paramLabel = "PX", description = "Least distance between chosen points, pixels (default: 24).")
     Double minSeparation;
 
+    @Option(names = "--tracks", paramLabel = "DIR", description = "Output of track --target on the same design: fills each candidate's track survival and jitter with measured values.")
+    Path tracks;
+
     @Option(names = "--min-repeatability", paramLabel = "R", description = "Least per-point repeatability, 0..1 (default: 0.7).")
     Double minRepeatability;
 
@@ -75,7 +78,8 @@ final class PickCommand implements Callable<Integer> {
         String name = file.getFileName().toString();
         if (!name.endsWith(".json")) throw new UserError("--out must name a .json file, got " + file);
         ResultsFolder.Data data = ResultsFolder.read(from, new ResultsFolder.Overrides(truth, camera, target, poses));
-        PickRun.Result r = ServoSteps.pick(data, detector, sc);
+        PickRun.Result r = ServoSteps.pick(data, detector, sc,
+                tracks == null ? java.util.Optional.empty() : java.util.Optional.of(org.targetbench.source.TrackRunFiles.read(tracks)));
         Path dir = file.toAbsolutePath().getParent();
         String stem = name.substring(0, name.length() - ".json".length());
         List<String> written;

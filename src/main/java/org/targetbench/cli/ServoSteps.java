@@ -33,9 +33,15 @@ final class ServoSteps {
 
     /** Chooses a set; a refusal becomes a {@link NoAcceptableSet}. */
     static PickRun.Result pick(ResultsFolder.Data data, String detector, SelectConfig sc) throws SourceException {
+        return pick(data, detector, sc, java.util.Optional.empty());
+    }
+
+    /** As above, with survival and jitter measured on a tracking run of the same design ({@code pick --tracks}). */
+    static PickRun.Result pick(ResultsFolder.Data data, String detector, SelectConfig sc,
+                               java.util.Optional<org.targetbench.source.TrackRunFiles.Data> tracks) throws SourceException {
         PickRun.Result r;
         try {
-            r = PickRun.run(data.pickInput(), detector, new CandidateConfig(), sc, Version.get(), ServoWriters.now());
+            r = PickRun.run(data.pickInput(), detector, new CandidateConfig(), sc, Version.get(), ServoWriters.now(), tracks);
         } catch (PickRun.Refused e) {
             throw new SourceException(PickRefusals.explain(e, data.where()));
         }

@@ -38,15 +38,16 @@ import java.util.concurrent.Callable;
 final class SweepCommand implements Callable<Integer> {
     @Spec CommandSpec spec;
 
+    /** Where the base views come from: --target alone renders them; --frames degrades yours (with --target, registered to it). */
     static final class Input {
-        @Option(names = "--target", paramLabel = "FILE", description = "Target design (target.json): base views are rendered with truth.")
+        @Option(names = "--target", paramLabel = "FILE", description = "Target design (target.json): base views are rendered with truth; with --frames, the frames are registered to it for truth.")
         Path target;
 
         @Option(names = "--frames", paramLabel = "DIR", description = "Folder of PNG/JPEG frames to degrade instead.")
         Path frames;
     }
 
-    @ArgGroup(exclusive = true, multiplicity = "1")
+    @ArgGroup(exclusive = false, multiplicity = "1")
     Input input;
 
     /** Camera for --target (default: the demo's 640x480 flange camera). */
@@ -94,8 +95,22 @@ final class SweepCommand implements Callable<Integer> {
             throw new UserError(e.getMessage().replace("trackFrames must", "--track-frames must"));
         }
         Map<Perturbation, Double> env = envelope(conditions.envelope);
-        SweepBase base = base(cfg);
+        if (input.target == null && input.frames == null) throw new UserError("give --target (render base views) or --frames (degrade your frames)");
         try (AtomicOutput output = AtomicOutput.open(out); SweepJob job = new SweepJob()) {
+            Path registeredTruth = null;
+            if (input.frames != null && input.target != null) {
+                if (standoff.mm() != null || oldStandoffM != null)
+                    throw new UserError("--standoff-mm goes with rendered views (--target alone), not --frames");
+                try (ImageFolderSource footage = ImageFolderSource.open(input.frames, null)) {
+                    registeredTruth = TargetTruth.register(footage, input.target, camera.file, truth, output);
+                }
+            }
+            SweepBase base;
+            if (registeredTruth != null)
+                try (ImageFolderSource src = ImageFolderSource.open(input.frames, registeredTruth)) {
+                    base = SweepBase.fromFrames(src, "frames of " + input.frames + " registered to " + input.target.getFileName(), views);
+                }
+            else base = base(cfg);
             SweepResult r = new SweepRun(cfg).run(base, new ConsoleProgress("sweeping"), job::cancelled);
             write(r, env, output);
             var dotBias = org.targetbench.pipeline.DotBiasTable.forSweep(base, cfg);

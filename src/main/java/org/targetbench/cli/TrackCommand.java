@@ -46,6 +46,12 @@ final class TrackCommand implements Callable<Integer> {
     @Option(names = "--truth", paramLabel = "FILE", description = "truth.json for a folder or video (default: truth.json in the folder, or NAME.truth.json beside the video).")
     Path truth;
 
+    @Option(names = "--target", paramLabel = "FILE", description = "In place of --truth: register the footage to this printed design (target.json); drift is then measured against the registered truth.")
+    Path target;
+
+    @Option(names = "--camera", paramLabel = "FILE", description = "With --target: intrinsics with distortion to register with (camera.json, OpenCV or ROS YAML).")
+    Path camera;
+
     @Option(names = "--out", required = true, paramLabel = "DIR", description = "Output folder, written atomically.")
     Path out;
 
@@ -120,8 +126,20 @@ final class TrackCommand implements Callable<Integer> {
             throw new UserError("--frame-count must be >= 1, got " + frames + " (leave it out to track every frame)");
         if (survivalAt < 0) throw new UserError("--survival-at must be >= 0, got " + survivalAt);
         boolean live = SourceSpec.isLive(source);
-        try (FrameSource src = SourceSpec.open(source, truth);
-             AtomicOutput output = AtomicOutput.open(out);
+        if (target != null && live) throw new UserError("--target registers recorded footage; record the camera first, then track the recording");
+        if (camera != null && target == null) throw new UserError("--camera goes with --target (the intrinsics to register with)");
+        try (AtomicOutput output = AtomicOutput.open(out)) {
+            Path truthFile = truth;
+            if (target != null)
+                try (FrameSource footage = SourceSpec.open(source, null)) {
+                    truthFile = TargetTruth.register(footage, target, camera, truth, output);
+                }
+            return track(k, seed, live, truthFile, output);
+        }
+    }
+
+    private int track(KltConfig k, DetectorConfig seed, boolean live, Path truthFile, AtomicOutput output) throws Exception {
+        try (FrameSource src = SourceSpec.open(source, truthFile);
              SweepJob job = new SweepJob();
              TrackWriter writer = new TrackWriter(output)) {
             PrintWriter w = spec.commandLine().getOut();

@@ -103,6 +103,9 @@ public final class ResultsFolder {
         Map<String, Map<String, List<Detection>>> dets = readDetections(detFile);
 
         Path truthFile = o.truth() != null ? o.truth() : folder.resolve("frames").resolve("truth.json");
+        // a comparison run with --target keeps its registered truth in registration/
+        if (o.truth() == null && !Files.isRegularFile(truthFile) && Files.isRegularFile(folder.resolve("registration").resolve("truth.json")))
+            truthFile = folder.resolve("registration").resolve("truth.json");
         Optional<TruthFile.Truth> truth = Optional.empty();
         if (o.truth() != null || Files.isRegularFile(truthFile)) {
             Set<String> names = new LinkedHashSet<>(imageNames(truthFile.toAbsolutePath().getParent()));

@@ -1,5 +1,6 @@
 package org.targetbench.pipeline;
 
+import org.targetbench.camera.CameraModel;
 import org.targetbench.camera.Homography;
 import org.targetbench.detect.Detection;
 import org.targetbench.detect.DetectorConfig;
@@ -48,6 +49,10 @@ public final class CompareRun {
     private final List<DetectorConfig> configs;
     private final double epsilon;
     private final int threads;
+    /** Registered truth under lens distortion: intrinsics, and per frame the reference-to-frame homography between
+     * undistorted images (see {@link #withRegisteredTruth}); empty otherwise. */
+    private Optional<CameraModel> undistort = Optional.empty();
+    private Map<String, Homography> undistortedH = Map.of();
 
     public CompareRun(List<DetectorConfig> configs, double epsilon, int threads) {
         if (configs.isEmpty()) throw new IllegalArgumentException("at least one detector is needed");
@@ -67,6 +72,31 @@ public final class CompareRun {
     private record FrameInfo(int index, String name, org.targetbench.source.FrameTruth truth) {}
 
     private record Raw(FrameInfo frame, DetectorType type, List<Detection> detections, double millis) {}
+
+    /**
+     * Scores repeatability through registered poses where lens distortion leaves no homography between raw frames:
+     * both frames' points are undistorted with the intrinsics (eqs. 1-3 of {@link CameraModel} inverted), and the
+     * plane induces the homography H = G_f G_ref^-1 between undistorted images, G = K [r1 r2 t] (Hartley &amp;
+     * Zisserman 2004, eq. 13.1). The image-region rules of the score are applied in undistorted pixels, which differ
+     * from the image rectangle near its edge under strong distortion.
+     */
+    public CompareRun withRegisteredTruth(CameraModel camera, Map<String, Homography> undistortedFromReference) {
+        this.undistort = Optional.of(camera);
+        this.undistortedH = Map.copyOf(undistortedFromReference);
+        return this;
+    }
+
+    private List<Detection> undistorted(List<Detection> pts) {
+        CameraModel c = undistort.orElseThrow();
+        boofcv.struct.distort.Point2Transform2_F64 t = c.pixelToNormalised();
+        georegression.struct.point.Point2D_F64 n = new georegression.struct.point.Point2D_F64();
+        List<Detection> out = new ArrayList<>(pts.size());
+        for (Detection p : pts) {
+            t.compute(p.x(), p.y(), n);
+            out.add(new Detection(c.fx() * n.x + c.cx(), c.fy() * n.y + c.cy(), p.response(), p.scale()));
+        }
+        return out;
+    }
 
     public CompareResult run(FrameSource source, Progress progress) throws SourceException, InterruptedException {
         int total = source.frameCount();
@@ -140,6 +170,9 @@ public final class CompareRun {
                 FrameInfo f = r.frame();
                 Optional<Homography> hm = f == ref ? Optional.empty() : f.truth().fromReference();
                 FrameScoring.Scored sc = FrameScoring.score(refDet, r.detections(), hm, w, h, f.truth().features(), w, h, epsilon);
+                if (f != ref && hm.isEmpty() && undistortedH.containsKey(f.name()))
+                    sc = sc.withRepeatability(Repeatability.score(undistorted(refDet), undistorted(r.detections()), undistortedH.get(f.name()),
+                            w, h, w, h, epsilon));
                 sc.repeatability().ifPresent(rr -> rr.repeatability().ifPresent(reps::add));
                 if (sc.localisation().isPresent()) {
                     dists.add(sc.locDistances());
@@ -161,7 +194,7 @@ public final class CompareRun {
         }
         summaries.sort(RANKING);
         samples.sort(Comparator.comparing((SourceFrame f) -> !f.name().equals(refName)).thenComparingInt(SourceFrame::index));
-        int withH = (int) frames.stream().filter(f -> f != ref && f.truth().fromReference().isPresent()).count();
+        int withH = (int) frames.stream().filter(f -> f != ref && (f.truth().fromReference().isPresent() || undistortedH.containsKey(f.name()))).count();
         int withPts = (int) frames.stream().filter(f -> !f.truth().features().isEmpty()).count();
         return new CompareResult(source.description(), w, h, refName, epsilon, frames.size(), withH, withPts,
                 configs, summaries, scores, samples);

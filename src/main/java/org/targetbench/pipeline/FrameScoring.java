@@ -31,6 +31,11 @@ public final class FrameScoring {
      */
     public record Scored(Optional<RepeatabilityResult> repeatability, Optional<LocalisationResult> localisation, double[] locDistances,
                          SpreadResult spread) {
+        /** The same scores with repeatability measured another way (between undistorted images, for registered truth). */
+        public Scored withRepeatability(RepeatabilityResult r) {
+            return new Scored(Optional.of(r), localisation, locDistances, spread);
+        }
+
         /** RMS localisation error, pixels; NaN when unknown. */
         public double localisationRmsPx() { return localisation.map(LocalisationResult::rmsPx).orElse(Double.NaN); }
 

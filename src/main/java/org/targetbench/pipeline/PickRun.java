@@ -16,6 +16,7 @@ import org.targetbench.select.ServoPointSelector;
 import org.targetbench.servo.ServoPoint;
 import org.targetbench.servo.ServoSet;
 import org.targetbench.source.FrameTruth;
+import org.targetbench.source.TrackRunFiles;
 import org.targetbench.target.TargetDesign;
 
 import java.util.ArrayList;
@@ -119,6 +120,16 @@ public final class PickRun {
      */
     public static Result run(Input data, String detectorName, CandidateConfig cc, SelectConfig sc,
                              String toolVersion, String created) throws Refused {
+        return run(data, detectorName, cc, sc, toolVersion, created, Optional.empty());
+    }
+
+    /**
+     * As above; with {@code tracks} (a {@code track --target} run on the same design) the candidates' track survival
+     * and jitter are the measured ones ({@link MeasuredTracks}) and the set's tracker settings name that run and its
+     * footage.
+     */
+    public static Result run(Input data, String detectorName, CandidateConfig cc, SelectConfig sc,
+                             String toolVersion, String created, Optional<TrackRunFiles.Data> tracks) throws Refused {
         String detector = detectorName != null ? detectorName : data.ranking().isEmpty() ? null : data.ranking().get(0);
         if (detector == null) throw Refused.of(Problem.EMPTY_RANKING, null);
         Map<String, List<Detection>> byFrame = data.detections().get(detector);
@@ -173,6 +184,15 @@ public final class PickRun {
         c2.epsilonPx = data.epsilonPx();
         List<Candidate> cands = Candidates.build(new Candidates.Frame(ref, refDet, Optional.empty(), refTruth), others, camera,
                 design.orElse(null), pose, c2);
+        String trackerNote = "{}";
+        if (tracks.isPresent()) {
+            Map<Integer, MeasuredTracks.Figures> figs = MeasuredTracks.figures(tracks.get());
+            cands = MeasuredTracks.apply(cands, figs);
+            trackerNote = "{\"track_survival_and_jitter_from\": " + jsonString(tracks.get().folder().toString())
+                    + ", \"footage\": " + jsonString(tracks.get().source())
+                    + ", \"designed_features_measured\": " + figs.size()
+                    + ", \"method\": \"per designed feature: share of the run its first-frame track survived; SD of tracked minus registered pixel\"}";
+        }
         Selection sel = ServoPointSelector.select(cands, camera.width(), camera.height(), sc);
         if (sel.outcome() != Selection.Outcome.SELECTED) return new Result(detector, cands, sel, Optional.empty(), poseMethod);
         List<ServoPoint> pts = new ArrayList<>();
@@ -181,9 +201,19 @@ public final class PickRun {
         }
         String designRef = design.map(d -> d.name() + " (" + data.designLabel() + ")").orElse("unknown");
         ServoSet set = new ServoSet(toolVersion, created, camera, design.map(TargetDesign::id).orElse("unknown"), designRef,
-                Optional.of(pose), poseMethod, detector, data.detectorSettings().getOrDefault(detector, "{}"), "{}", pts,
+                Optional.of(pose), poseMethod, detector, data.detectorSettings().getOrDefault(detector, "{}"), trackerNote, pts,
                 sel.condition(), sel.sigmaMin());
         return new Result(detector, cands, sel, Optional.of(set), poseMethod);
+    }
+
+    private static String jsonString(String s) {
+        StringBuilder b = new StringBuilder("\"");
+        for (char ch : s.toCharArray()) {
+            if (ch == '"' || ch == '\\') b.append('\\').append(ch);
+            else if (ch < 0x20) b.append(String.format(Locale.ROOT, "\\u%04x", (int) ch));
+            else b.append(ch);
+        }
+        return b.append('"').toString();
     }
 
     private static List<String> allFrames(Input data, Map<String, List<Detection>> byFrame) {

@@ -163,9 +163,10 @@ public final class TrackingMetrics {
         State s = new State();
         s.lastX = p.x();
         s.lastY = p.y();
-        if (hInv.isPresent()) {
-            s.plane = hInv.get().apply(p.x(), p.y());
-        } else {
+        if (hInv.isPresent()) s.plane = hInv.get().apply(p.x(), p.y());
+        // also anchored to a true feature: the reference frame has the identity homography even when the other
+        // frames only have points (registered truth under lens distortion)
+        {
             double best = FEATURE_MATCH_PX;
             for (ProjectedFeature f : features) {
                 double d = Math.hypot(f.u() - p.x(), f.v() - p.y());

@@ -23,4 +23,9 @@ import org.targetbench.score.Robustness;
  */
 public record Candidate(int id, double u, double v, double response, double x, double y, double zM, double targetXMm,
                         double targetYMm, int featureId, boolean designed, int framesVisible, int framesFound,
-                        Robustness robustness) {}
+                        Robustness robustness) {
+    /** This candidate with other robustness figures. */
+    public Candidate withRobustness(Robustness r) {
+        return new Candidate(id, u, v, response, x, y, zM, targetXMm, targetYMm, featureId, designed, framesVisible, framesFound, r);
+    }
+}

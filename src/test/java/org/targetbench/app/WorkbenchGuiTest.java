@@ -361,4 +361,33 @@ class WorkbenchGuiTest {
         }
         window.button("camera.start").requireText("Start");
     }
+
+    @Test
+    @Order(12)
+    void aFolderRegisteredToItsDesignDrivesTheScoresAndMarksFramesThatDidNotRegister(@org.junit.jupiter.api.io.TempDir Path tmp) throws Exception {
+        var design = org.targetbench.source.TargetFile.read(Path.of("target-designs/fixture-cb15/target.json"));
+        Path cameraFile = Path.of("target-designs/flange-camera.json");
+        var camera = org.targetbench.source.CameraFiles.read(cameraFile);
+        var renderer = new org.targetbench.source.SyntheticRenderer(camera, new org.targetbench.source.RenderConfig());
+        for (int i = 0; i < 3; i++)
+            org.targetbench.source.ImageFiles.writePng(renderer.render(design, org.targetbench.camera.Pose.facing(design.widthMm(), design.heightMm(),
+                    0.25, 5 + 3 * i, -4 + 2 * i, 2, 0.002 * i, 0)).image(), tmp.resolve("frame_00" + i + ".png"));
+        var blank = new boofcv.struct.image.GrayF32(camera.width(), camera.height());
+        java.util.Arrays.fill(blank.data, 110f);
+        org.targetbench.source.ImageFiles.writePng(blank, tmp.resolve("frame_003.png"));
+        awaitDialogsClosed();
+        window.list("nav").selectItem("Live");
+        GuiActionRunner.execute(() -> workbench.live().loadFolder(tmp));
+        waitFor("folder loaded", () -> workbench.session().frames().size() == 4 && workbench.session().detections() != null);
+        GuiActionRunner.execute(() -> workbench.live().registerTo(Path.of("target-designs/fixture-cb15/target.json"), cameraFile));
+        waitFor("registered", () -> workbench.session().sourceName().contains("registered to fixture-cb15 (3 of 4 frames)")
+                && workbench.session().detections() != null);
+        assertTrue(GuiActionRunner.execute(() -> workbench.session().scene().isPresent()), "the registered poses make the scene (depth for the servo view)");
+        assertEquals(48, GuiActionRunner.execute(() -> workbench.session().frames().get(1).truth().features().size()));
+        assertTrue(GuiActionRunner.execute(() -> workbench.session().frames().get(1).truth().fromReference().isPresent()), "no distortion: homography truth");
+        assertTrue(GuiActionRunner.execute(() -> workbench.session().frames().get(3).truth().features().isEmpty()), "the blank frame has no truth");
+        GuiActionRunner.execute(() -> workbench.session().setFrameIndex(3));
+        waitFor("frame label says so", () -> GuiActionRunner.execute(() -> window.label("play.label").target().getText()).contains("NOT REGISTERED"));
+        shot("live-registered");
+    }
 }

@@ -1,0 +1,567 @@
+package org.targetbench.register;
+
+import boofcv.abst.geo.Estimate1ofEpipolar;
+import boofcv.abst.geo.RefineEpipolar;
+import boofcv.alg.feature.detect.chess.ChessboardCorner;
+import boofcv.alg.feature.detect.chess.DetectChessboardCornersXPyramid;
+import boofcv.factory.geo.EpipolarError;
+import boofcv.factory.geo.FactoryMultiView;
+import boofcv.struct.distort.Point2Transform2_F64;
+import boofcv.struct.geo.AssociatedPair;
+import boofcv.struct.image.GrayF32;
+import boofcv.struct.image.ImageType;
+import georegression.struct.point.Point2D_F64;
+import org.ejml.data.DMatrixRMaj;
+import org.targetbench.camera.CameraModel;
+import org.targetbench.camera.Homography;
+import org.targetbench.camera.Pose;
+import org.targetbench.camera.PoseEstimation;
+import org.targetbench.camera.Projection;
+import org.targetbench.target.FeatureKind;
+import org.targetbench.target.TargetDesign;
+import org.targetbench.target.TargetFeature;
+
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+
+/**
+ * Registers frames to a known planar design: which designed feature is where in the frame, with the plane's pose
+ * (given intrinsics) or the design-to-image homography (without), so scores on real footage have truth.
+ *
+ * <p>Method, per frame:
+ * <ol>
+ *   <li><b>Correspondences.</b> Designs with a grid finder (checkerboard, dot grid, square grid) use it
+ *   ({@link GridFinder}, BoofCV [1]). Designs of x-corners without one (random x-corner fields, marker grids, and
+ *   checkerboards whose grid finder failed, e.g. partly out of view) match BoofCV's x-corner candidates [2] to the
+ *   designed features: first around the previous frame's prediction; failing that (or on the first frame) by a
+ *   global search of similarity hypotheses from every pair of designed features onto every pair of candidates,
+ *   scored by the designed features that land on a candidate (a RANSAC-style consensus, Fischler &amp; Bolles 1981
+ *   [3], made exhaustive because the candidate set is small). The best hypotheses are refined by alternating
+ *   homography fits (normalised DLT, Hartley &amp; Zisserman 2004 [4] alg. 4.2) and nearest-candidate matching with
+ *   a shrinking radius, in undistorted pixels when intrinsics are given.</li>
+ *   <li><b>Model.</b> With intrinsics: the planar pose by IPPE and Levenberg-Marquardt on the reprojection error
+ *   ({@link PoseEstimation}); predictions apply the lens distortion, eqs. (1)-(3) of {@link CameraModel}. Without:
+ *   the homography by normalised DLT and Levenberg-Marquardt on the transfer error [4] (exact only for a
+ *   distortion-free camera). A fit that shows the back of the page is refused.</li>
+ *   <li><b>Orientation.</b> A symmetric layout (an odd-by-odd or even-by-even checkerboard, a grid of dots, squares
+ *   or markers) fits in several turns. The image decides when the design's reflectance, sampled over the page through
+ *   each candidate, correlates clearly better in one turn ({@link RegisterConfig#orientationMargin}); otherwise the
+ *   turn closest to the previous registered frame is kept, and on a first frame the upright turn is assumed and the
+ *   note says so.</li>
+ *   <li><b>Acceptance.</b> At least {@link RegisterConfig#minFeatures} features, a share
+ *   {@link RegisterConfig#minInViewFraction} of those predicted in view (for matched designs), and an RMS residual
+ *   at most {@link RegisterConfig#maxRmsPx}. Anything else is a typed failure and is never scored.</li>
+ * </ol>
+ *
+ * <p>Keeps the previous registration between calls: one registrar per sequence and thread.
+ *
+ * <p>[1] P. Abeles, BoofCV 1.2.2, FactoryFiducialCalibration. [2] BoofCV 1.2.2, DetectChessboardCornersXPyramid
+ * (x-corner intensity after Abeles 2021, "Pyramidal blur aware x-corner chessboard detector", arXiv:2110.13793).
+ * [3] M. A. Fischler, R. C. Bolles, "Random sample consensus", CACM 24(6), 1981. [4] R. Hartley, A. Zisserman,
+ * Multiple View Geometry in Computer Vision, 2nd ed., 2004, ch. 4.
+ */
+public final class FrameRegistrar {
+    /** Sample grid over the page for the photometric orientation check (columns, rows). */
+    private static final int PHOTO_COLS = 48, PHOTO_ROWS = 36;
+    /** Photometric samples keep this far from any edge of the design, millimetres. */
+    private static final double PHOTO_CLEAR_MM = 1.5;
+    /** Above this many similarity hypotheses the global search pairs only near neighbours (design and image). */
+    private static final double EXHAUSTIVE_LIMIT = 5e7;
+    /** Near neighbours paired in the restricted global search: in the design, and among the candidates. */
+    private static final int DESIGN_NEIGHBOURS = 4, CANDIDATE_NEIGHBOURS = 6;
+    /**
+     * In the restricted search a hypothesis is scored in full only when at least PRESCORE_MATCHES of the anchor and
+     * its nearest designed features (PRESCORE_FEATURES in all) land on candidates.
+     */
+    private static final int PRESCORE_FEATURES = 9, PRESCORE_MATCHES = 8;
+    /** In the restricted search only the strongest candidates anchor hypotheses. */
+    private static final int RESTRICTED_ANCHORS = 24;
+    /** Two fits whose predictions differ by less than this are the same, pixels. */
+    private static final double SAME_FIT_PX = 0.5;
+    /** Matching radii of the refinement after a global hypothesis, pixels (the last is the config's match radius). */
+    private static final double[] GLOBAL_RADII_PX = {12, 6};
+    /** Tolerance of a similarity hypothesis grows with the distance from its anchor (perspective, tilt). */
+    /**
+     * Global hypotheses kept for refinement: a regular layout (a marker grid) matches itself in many wrong ways with
+     * every feature landing on a candidate, so the count alone cannot rank them; the photometric check does.
+     */
+    private static final int GLOBAL_KEEP = 40;
+    private static final double HYPOTHESIS_SLOPE = 0.25, HYPOTHESIS_BASE_PX = 3;
+
+    private final TargetDesign design;
+    private final Optional<CameraModel> camera;
+    private final RegisterConfig config;
+    private final Optional<GridFinder> grid;
+    private final boolean xcornerDesign;
+    private final boolean globalSearch;
+    private final List<int[]> symmetries;
+    /** Tolerance when testing a turn of the design onto itself, millimetres. */
+    private static final double SYMMETRY_TOL_MM = 1e-3;
+    private DetectChessboardCornersXPyramid<GrayF32> xcorners;
+    private Fit previous;
+
+    /**
+     * @param design the printed design
+     * @param camera the intrinsics with distortion, or empty to register with homographies
+     */
+    public FrameRegistrar(TargetDesign design, Optional<CameraModel> camera, RegisterConfig config) {
+        config.checkValidity();
+        this.design = design;
+        this.camera = camera;
+        this.config = config.copy();
+        this.grid = GridFinder.forDesign(design);
+        this.xcornerDesign = !design.features().isEmpty() && design.features().stream().allMatch(f -> f.kind() == FeatureKind.X_CORNER);
+        this.globalSearch = xcornerDesign;
+        this.symmetries = symmetries(design);
+    }
+
+    public TargetDesign design() { return design; }
+
+    public Optional<CameraModel> camera() { return camera; }
+
+    /** Forgets the previous frame (a cut in the footage). */
+    public void reset() { previous = null; }
+
+    /** A fitted model and its correspondences. */
+    private record Fit(List<Match> matches, Optional<Pose> pose, Homography working, double rmsPx) {}
+
+    /** Registers one frame. */
+    public Registration register(GrayF32 image) {
+        if (camera.isPresent() && (camera.get().width() != image.width || camera.get().height() != image.height))
+            throw new IllegalArgumentException("intrinsics are for " + camera.get().width() + " x " + camera.get().height()
+                    + " but the frame is " + image.width + " x " + image.height);
+        imageW = image.width;
+        imageH = image.height;
+        List<List<Match>> hyps = new ArrayList<>();
+        if (grid.isPresent()) hyps.addAll(grid.get().find(image, design));
+        if (hyps.isEmpty() && xcornerDesign) hyps.addAll(matchXCorners(image));
+        if (hyps.isEmpty()) return Registration.failed(RegistrationNote.NOT_FOUND, 0, Double.NaN);
+
+        hyps = withSymmetricAlternatives(hyps);
+        List<Fit> accepted = new ArrayList<>();
+        RegistrationNote worst = RegistrationNote.NO_MODEL;
+        int bestUsed = 0;
+        double bestRms = Double.NaN;
+        for (List<Match> h : hyps) {
+            Optional<Fit> f = fit(h);
+            if (f.isEmpty()) continue;
+            Fit fit = f.get();
+            if (Double.isNaN(bestRms) || fit.rmsPx < bestRms) { bestRms = fit.rmsPx; bestUsed = fit.matches.size(); }
+            if (fit.matches.size() < config.minFeatures || !enoughInView(fit)) { worst = RegistrationNote.TOO_FEW_FEATURES; continue; }
+            if (fit.rmsPx > config.maxRmsPx) {
+                if (worst != RegistrationNote.TOO_FEW_FEATURES) worst = RegistrationNote.RESIDUAL_ABOVE_LIMIT;
+                continue;
+            }
+            boolean dup = false;
+            for (Fit a : accepted) dup |= sameFit(a, fit);
+            if (!dup) accepted.add(fit);
+        }
+        if (accepted.isEmpty()) return Registration.failed(worst, bestUsed, bestRms);
+
+        Fit chosen;
+        RegistrationNote note = RegistrationNote.OK;
+        if (accepted.size() == 1) {
+            chosen = accepted.get(0);
+        } else {
+            List<double[]> scored = new ArrayList<>();
+            for (int i = 0; i < accepted.size(); i++) scored.add(new double[]{i, photometric(image, accepted.get(i))});
+            scored.sort(Comparator.comparingDouble((double[] s) -> -s[1]));
+            if (scored.get(0)[1] - scored.get(1)[1] >= config.orientationMargin) {
+                chosen = accepted.get((int) scored.get(0)[0]);
+            } else {
+                List<Fit> tied = new ArrayList<>();
+                for (double[] s : scored) if (scored.get(0)[1] - s[1] < config.orientationMargin) tied.add(accepted.get((int) s[0]));
+                if (previous != null) {
+                    chosen = tied.stream().min(Comparator.comparingDouble(this::distanceToPrevious)).orElseThrow();
+                    note = RegistrationNote.ORIENTATION_BY_CONTINUITY;
+                } else {
+                    chosen = tied.stream().min(Comparator.comparingDouble(this::turnFromUpright)).orElseThrow();
+                    note = RegistrationNote.ORIENTATION_ASSUMED;
+                }
+            }
+        }
+        if (photometric(image, chosen) < config.minPhotometric)
+            return Registration.failed(RegistrationNote.NOT_FOUND, chosen.matches.size(), chosen.rmsPx);
+        previous = chosen;
+        Optional<Homography> h = Optional.of(chosen.working);
+        return new Registration(note, chosen.pose, h, chosen.matches.size(), chosen.rmsPx, predict(chosen));
+    }
+
+    /**
+     * Adds, for each hypothesis made of designed features, the same pixels read as the design turned by each of its
+     * symmetries, so the orientation step sees every way the layout fits.
+     */
+    private List<List<Match>> withSymmetricAlternatives(List<List<Match>> hyps) {
+        if (symmetries.isEmpty()) return hyps;
+        List<List<Match>> out = new ArrayList<>(hyps);
+        for (List<Match> h : hyps) {
+            if (!h.stream().allMatch(m -> m.featureId() >= 0)) continue;
+            for (int[] perm : symmetries) {
+                List<Match> alt = new ArrayList<>();
+                for (Match m : h) {
+                    TargetFeature t = design.features().get(perm[m.featureId()]);
+                    alt.add(new Match(t.xMm(), t.yMm(), m.u(), m.v(), t.id()));
+                }
+                out.add(alt);
+            }
+        }
+        return out;
+    }
+
+    /**
+     * The turns (90, 180, 270 degrees about the features' centroid) that lay the designed features onto designed
+     * features of the same kind, as permutations of feature ids.
+     */
+    static List<int[]> symmetries(TargetDesign design) {
+        List<TargetFeature> fs = design.features();
+        List<int[]> out = new ArrayList<>();
+        if (fs.isEmpty()) return out;
+        double cx = 0, cy = 0;
+        for (TargetFeature f : fs) { cx += f.xMm(); cy += f.yMm(); }
+        cx /= fs.size(); cy /= fs.size();
+        int[][] turns = {{0, -1, 1, 0}, {-1, 0, 0, -1}, {0, 1, -1, 0}};
+        for (int[] a : turns) {
+            int[] perm = new int[fs.size()];
+            boolean ok = true;
+            for (int i = 0; i < fs.size() && ok; i++) {
+                double dx = fs.get(i).xMm() - cx, dy = fs.get(i).yMm() - cy;
+                double x = cx + a[0] * dx + a[1] * dy, y = cy + a[2] * dx + a[3] * dy;
+                perm[i] = -1;
+                for (TargetFeature g : fs)
+                    if (g.kind() == fs.get(i).kind() && Math.abs(g.xMm() - x) < SYMMETRY_TOL_MM && Math.abs(g.yMm() - y) < SYMMETRY_TOL_MM) {
+                        perm[i] = g.id();
+                        break;
+                    }
+                ok = perm[i] >= 0;
+            }
+            if (ok) out.add(perm);
+        }
+        return out;
+    }
+
+    // ---- models -------------------------------------------------------------------------------------------------
+
+    private Optional<Fit> fit(List<Match> ms) {
+        if (ms.size() < 4) return Optional.empty();
+        if (camera.isPresent()) {
+            List<double[]> px = new ArrayList<>(), mm = new ArrayList<>();
+            for (Match m : ms) { px.add(new double[]{m.u(), m.v()}); mm.add(new double[]{m.xMm(), m.yMm()}); }
+            Optional<PoseEstimation.Estimate> e = PoseEstimation.planar(camera.get(), px, mm);
+            if (e.isEmpty()) return Optional.empty();
+            Pose pose = e.get().pose();
+            if (!(pose.r(2, 2) > 0)) return Optional.empty(); // the back of the page
+            return Optional.of(new Fit(ms, Optional.of(pose), Projection.targetToImage(camera.get(), pose), e.get().reprojectionRmsPx()));
+        }
+        List<double[]> from = new ArrayList<>(), to = new ArrayList<>();
+        for (Match m : ms) { from.add(new double[]{m.xMm(), m.yMm()}); to.add(new double[]{m.u(), m.v()}); }
+        Optional<Homography> h = homography(from, to, true);
+        if (h.isEmpty() || !facing(h.get())) return Optional.empty();
+        double sum = 0;
+        for (Match m : ms) {
+            double[] p = h.get().apply(m.xMm(), m.yMm());
+            sum += sq(p[0] - m.u()) + sq(p[1] - m.v());
+        }
+        return Optional.of(new Fit(ms, Optional.empty(), h.get(), Math.sqrt(sum / ms.size())));
+    }
+
+    /** Whether the homography keeps the page's handedness at the design centre (the front of the page is seen). */
+    private boolean facing(Homography h) {
+        double cx = design.widthMm() / 2, cy = design.heightMm() / 2;
+        double w = h.get(2, 0) * cx + h.get(2, 1) * cy + h.get(2, 2);
+        double[] p = h.apply(cx, cy), px = h.apply(cx + 1, cy), py = h.apply(cx, cy + 1);
+        double det = (px[0] - p[0]) * (py[1] - p[1]) - (px[1] - p[1]) * (py[0] - p[0]);
+        return det > 0 && w != 0;
+    }
+
+    /** Normalised DLT, optionally refined by Levenberg-Marquardt on the transfer error. */
+    static Optional<Homography> homography(List<double[]> from, List<double[]> to, boolean refine) {
+        List<AssociatedPair> pairs = new ArrayList<>();
+        for (int i = 0; i < from.size(); i++) pairs.add(new AssociatedPair(from.get(i)[0], from.get(i)[1], to.get(i)[0], to.get(i)[1]));
+        Estimate1ofEpipolar dlt = FactoryMultiView.homographyDLT(true);
+        DMatrixRMaj h = new DMatrixRMaj(3, 3);
+        if (!dlt.process(pairs, h)) return Optional.empty();
+        if (refine) {
+            RefineEpipolar lm = FactoryMultiView.homographyRefine(1e-12, 50, EpipolarError.SIMPLE);
+            DMatrixRMaj r = new DMatrixRMaj(3, 3);
+            if (lm.fitModel(pairs, h, r)) h = r;
+        }
+        try {
+            return Optional.of(new Homography(h.data.clone()).normalised());
+        } catch (IllegalArgumentException e) {
+            return Optional.empty();
+        }
+    }
+
+    /** Pixel of a design point under a fit, lens distortion applied; NaNs behind the camera. */
+    private double[] project(Fit f, double xMm, double yMm) {
+        if (f.pose.isPresent()) return Projection.projectTargetPoint(camera.get(), f.pose.get(), xMm, yMm);
+        return f.working.apply(xMm, yMm);
+    }
+
+    private List<Registration.PredictedFeature> predict(Fit f) {
+        List<Registration.PredictedFeature> out = new ArrayList<>();
+        for (TargetFeature t : design.features()) {
+            double[] p = project(f, t.xMm(), t.yMm());
+            if (!Double.isFinite(p[0]) || !Double.isFinite(p[1])) continue;
+            if (p[0] < -0.5 || p[1] < -0.5 || p[0] > imageW - 0.5 || p[1] > imageH - 0.5) continue;
+            double z = f.pose.map(pose -> pose.targetToCamera(t.xMm(), t.yMm())[2]).orElse(Double.NaN);
+            out.add(new Registration.PredictedFeature(t.id(), t.xMm(), t.yMm(), p[0], p[1], z));
+        }
+        return out;
+    }
+
+    /** Size of the frame being registered. */
+    private int imageW, imageH;
+
+    private boolean enoughInView(Fit f) {
+        boolean designed = f.matches.stream().allMatch(m -> m.featureId() >= 0);
+        if (!designed) return true; // a grid finder found its whole grid
+        int inView = 0;
+        for (TargetFeature t : design.features()) {
+            double[] p = project(f, t.xMm(), t.yMm());
+            if (p[0] >= -0.5 && p[1] >= -0.5 && p[0] <= imageW - 0.5 && p[1] <= imageH - 0.5) inView++;
+        }
+        return f.matches.size() >= Math.ceil(config.minInViewFraction * inView);
+    }
+
+    private boolean sameFit(Fit a, Fit b) {
+        for (TargetFeature t : design.features()) {
+            double[] p = project(a, t.xMm(), t.yMm()), q = project(b, t.xMm(), t.yMm());
+            if (!(Math.hypot(p[0] - q[0], p[1] - q[1]) < SAME_FIT_PX)) return false;
+        }
+        return true;
+    }
+
+    // ---- orientation --------------------------------------------------------------------------------------------
+
+    /** Correlation of the design's reflectance with the image, sampled over the page through the fit. */
+    private double photometric(GrayF32 image, Fit f) {
+        double sr = 0, si = 0, srr = 0, sii = 0, sri = 0;
+        int n = 0;
+        for (int j = 0; j < PHOTO_ROWS; j++)
+            for (int i = 0; i < PHOTO_COLS; i++) {
+                double x = (i + 0.5) / PHOTO_COLS * design.widthMm(), y = (j + 0.5) / PHOTO_ROWS * design.heightMm();
+                double[] p = project(f, x, y);
+                if (!(p[0] >= 0 && p[1] >= 0 && p[0] <= image.width - 1 && p[1] <= image.height - 1)) continue;
+                double r = design.reflectance(x, y);
+                if (design.reflectance(x - PHOTO_CLEAR_MM, y - PHOTO_CLEAR_MM) != r || design.reflectance(x + PHOTO_CLEAR_MM, y - PHOTO_CLEAR_MM) != r
+                        || design.reflectance(x - PHOTO_CLEAR_MM, y + PHOTO_CLEAR_MM) != r || design.reflectance(x + PHOTO_CLEAR_MM, y + PHOTO_CLEAR_MM) != r)
+                    continue; // near an edge: blur and print spread, not registration, decide the grey level there
+                double g = bilinear(image, p[0], p[1]);
+                sr += r; si += g; srr += r * r; sii += g * g; sri += r * g;
+                n++;
+            }
+        if (n < 10) return 0;
+        double cov = sri - sr * si / n, vr = srr - sr * sr / n, vi = sii - si * si / n;
+        return vr > 0 && vi > 0 ? cov / Math.sqrt(vr * vi) : 0;
+    }
+
+    private static double bilinear(GrayF32 img, double x, double y) {
+        int x0 = Math.min((int) Math.floor(x), img.width - 2), y0 = Math.min((int) Math.floor(y), img.height - 2);
+        x0 = Math.max(x0, 0); y0 = Math.max(y0, 0);
+        double ax = x - x0, ay = y - y0;
+        return (1 - ay) * ((1 - ax) * img.get(x0, y0) + ax * img.get(x0 + 1, y0))
+                + ay * ((1 - ax) * img.get(x0, y0 + 1) + ax * img.get(x0 + 1, y0 + 1));
+    }
+
+    private double distanceToPrevious(Fit f) {
+        double sum = 0;
+        int n = 0;
+        for (TargetFeature t : design.features()) {
+            double[] p = project(f, t.xMm(), t.yMm()), q = project(previous, t.xMm(), t.yMm());
+            double d = Math.hypot(p[0] - q[0], p[1] - q[1]);
+            if (Double.isFinite(d)) { sum += d; n++; }
+        }
+        return n == 0 ? Double.MAX_VALUE : sum / n;
+    }
+
+    /** Angle between the design's x axis, as imaged at the page centre, and the image's x axis, radians. */
+    private double turnFromUpright(Fit f) {
+        double cx = design.widthMm() / 2, cy = design.heightMm() / 2;
+        double[] p = project(f, cx, cy), q = project(f, cx + 1, cy);
+        return Math.abs(Math.atan2(q[1] - p[1], q[0] - p[0]));
+    }
+
+    // ---- x-corner matching --------------------------------------------------------------------------------------
+
+    private List<List<Match>> matchXCorners(GrayF32 image) {
+        if (xcorners == null) xcorners = new DetectChessboardCornersXPyramid<>(ImageType.single(GrayF32.class));
+        xcorners.process(image);
+        List<ChessboardCorner> found = new ArrayList<>(xcorners.getCorners().toList());
+        found.sort(Comparator.comparingDouble((ChessboardCorner c) -> -c.intensity));
+        int keepCandidates = Math.max(config.maxCandidates, design.features().size() + design.features().size() / 2);
+        if (found.size() > keepCandidates) found = new ArrayList<>(found.subList(0, keepCandidates));
+        // raw pixels (pixel-centre convention) and working pixels (undistorted when intrinsics are given)
+        int n = found.size();
+        double[][] raw = new double[n][], work = new double[n][];
+        Point2Transform2_F64 toNorm = camera.map(CameraModel::pixelToNormalised).orElse(null);
+        Point2D_F64 tmp = new Point2D_F64();
+        for (int i = 0; i < n; i++) {
+            ChessboardCorner c = found.get(i);
+            raw[i] = new double[]{c.x - GridFinder.CHESS_OFFSET_PX, c.y - GridFinder.CHESS_OFFSET_PX};
+            if (toNorm != null) {
+                toNorm.compute(raw[i][0], raw[i][1], tmp);
+                CameraModel k = camera.get();
+                work[i] = new double[]{k.fx() * tmp.x + k.cx(), k.fy() * tmp.y + k.cy()};
+            } else work[i] = raw[i];
+        }
+        List<List<Match>> out = new ArrayList<>();
+        if (n < 4) return out;
+        if (previous != null) {
+            List<int[]> m = assign(previous.working, work, config.followRadiusPx);
+            if (m.size() >= 4) {
+                m = refineMatches(m, work, new double[]{config.followRadiusPx / 2});
+                if (m.size() >= config.minFeatures) {
+                    out.add(toMatches(m, raw));
+                    return out;
+                }
+            }
+        }
+        if (!globalSearch) return out;
+        for (List<int[]> m : globalHypotheses(work, n)) {
+            m = refineMatches(m, work, GLOBAL_RADII_PX);
+            if (m.size() >= 4) out.add(toMatches(m, raw));
+        }
+        return out;
+    }
+
+    private List<Match> toMatches(List<int[]> m, double[][] raw) {
+        List<Match> ms = new ArrayList<>();
+        for (int[] fm : m) {
+            TargetFeature t = design.features().get(fm[0]);
+            ms.add(new Match(t.xMm(), t.yMm(), raw[fm[1]][0], raw[fm[1]][1], t.id()));
+        }
+        return ms;
+    }
+
+    /** Alternates homography fits and matching with the given radii, then the final match radius. */
+    private List<int[]> refineMatches(List<int[]> m, double[][] work, double[] radii) {
+        double[] all = new double[radii.length + 1];
+        System.arraycopy(radii, 0, all, 0, radii.length);
+        all[radii.length] = config.matchRadiusPx;
+        for (double r : all) {
+            if (m.size() < 4) return m;
+            List<double[]> from = new ArrayList<>(), to = new ArrayList<>();
+            for (int[] fm : m) {
+                TargetFeature t = design.features().get(fm[0]);
+                from.add(new double[]{t.xMm(), t.yMm()});
+                to.add(work[fm[1]]);
+            }
+            Optional<Homography> h = homography(from, to, false);
+            if (h.isEmpty()) return List.of();
+            m = assign(h.get(), work, r);
+        }
+        return m;
+    }
+
+    /** One-to-one matches (feature index, candidate index) within the radius, closest pairs first. */
+    private List<int[]> assign(Homography h, double[][] work, double radius) {
+        List<double[]> pairs = new ArrayList<>();
+        List<TargetFeature> fs = design.features();
+        for (int f = 0; f < fs.size(); f++) {
+            double[] p = h.apply(fs.get(f).xMm(), fs.get(f).yMm());
+            for (int c = 0; c < work.length; c++) {
+                double d = Math.hypot(work[c][0] - p[0], work[c][1] - p[1]);
+                if (d <= radius) pairs.add(new double[]{d, f, c});
+            }
+        }
+        pairs.sort(Comparator.comparingDouble(a -> a[0]));
+        boolean[] usedF = new boolean[fs.size()], usedC = new boolean[work.length];
+        List<int[]> out = new ArrayList<>();
+        for (double[] p : pairs) {
+            int f = (int) p[1], c = (int) p[2];
+            if (usedF[f] || usedC[c]) continue;
+            usedF[f] = true; usedC[c] = true;
+            out.add(new int[]{f, c});
+        }
+        return out;
+    }
+
+    /**
+     * Exhaustive similarity hypotheses: designed features a, b onto candidates p, q; each scored by the designed
+     * features predicted within a tolerance (growing with the distance from p) of a candidate. Returns the matches
+     * of the best few hypotheses.
+     */
+    private List<List<int[]>> globalHypotheses(double[][] work, int n) {
+        List<TargetFeature> fs = design.features();
+        int m = fs.size();
+        final int keep = GLOBAL_KEEP;
+        List<Object[]> best = new ArrayList<>(); // {score, matches}
+        Map<String, Boolean> seen = new HashMap<>();
+        boolean restricted = (double) m * m * n * n * m > EXHAUSTIVE_LIMIT;
+        int[][] designNb = neighbours(m, i -> fs.get(i).xMm(), i -> fs.get(i).yMm(), restricted ? DESIGN_NEIGHBOURS : m - 1);
+        double[] wx = new double[n], wy = new double[n];
+        for (int i = 0; i < n; i++) { wx[i] = work[i][0]; wy[i] = work[i][1]; }
+        int[][] byDistance = new int[m][];
+        int[][] allNb = neighbours(m, i -> fs.get(i).xMm(), i -> fs.get(i).yMm(), m - 1);
+        for (int i = 0; i < m; i++) {
+            byDistance[i] = new int[m];
+            byDistance[i][0] = i;
+            System.arraycopy(allNb[i], 0, byDistance[i], 1, m - 1);
+        }
+        int[][] candNb = neighbours(n, i -> work[i][0], i -> work[i][1], restricted ? CANDIDATE_NEIGHBOURS : n - 1);
+        for (int a = 0; a < m; a++)
+            for (int b : designNb[a]) {
+                if (!restricted && b < a) continue;
+                double fax = fs.get(a).xMm(), fay = fs.get(a).yMm();
+                double dfx = fs.get(b).xMm() - fax, dfy = fs.get(b).yMm() - fay, df2 = dfx * dfx + dfy * dfy;
+                for (int p = 0; p < (restricted ? Math.min(n, RESTRICTED_ANCHORS) : n); p++)
+                    for (int q : candNb[p]) {
+                        double dpx = work[q][0] - work[p][0], dpy = work[q][1] - work[p][1];
+                        // z = (dp) / (df) as complex numbers
+                        double zr = (dpx * dfx + dpy * dfy) / df2, zi = (dpy * dfx - dpx * dfy) / df2;
+                        List<int[]> matches = new ArrayList<>();
+                        boolean[] usedC = new boolean[n];
+                        boolean pruned = false;
+                        for (int ci = 0; ci < m; ci++) {
+                            if (restricted && ci == PRESCORE_FEATURES && matches.size() < PRESCORE_MATCHES) { pruned = true; break; }
+                            int c = byDistance[a][ci];
+                            double ex = fs.get(c).xMm() - fax, ey = fs.get(c).yMm() - fay;
+                            double px = work[p][0] + zr * ex - zi * ey, py = work[p][1] + zi * ex + zr * ey;
+                            double tol = HYPOTHESIS_BASE_PX + HYPOTHESIS_SLOPE * Math.sqrt(sq(px - work[p][0]) + sq(py - work[p][1]));
+                            int bestC = -1;
+                            double bestD2 = tol * tol;
+                            for (int k = 0; k < n; k++) {
+                                if (usedC[k]) continue;
+                                double ddx = wx[k] - px, ddy = wy[k] - py, d2 = ddx * ddx + ddy * ddy;
+                                if (d2 < bestD2) { bestD2 = d2; bestC = k; }
+                            }
+                            if (bestC >= 0) { usedC[bestC] = true; matches.add(new int[]{c, bestC}); }
+                        }
+                        if (pruned || matches.size() < 4) continue;
+                        if (best.size() == keep && matches.size() <= (int) best.get(keep - 1)[0]) continue;
+                        StringBuilder key = new StringBuilder();
+                        matches.sort(Comparator.comparingInt((int[] mm) -> mm[0]));
+                        for (int[] mm : matches) key.append(mm[0]).append(':').append(mm[1]).append(',');
+                        if (seen.put(key.toString(), Boolean.TRUE) != null) continue;
+                        best.add(new Object[]{matches.size(), matches});
+                        best.sort(Comparator.comparingInt((Object[] o) -> -(int) o[0]));
+                        if (best.size() > keep) best.remove(best.size() - 1);
+                    }
+            }
+        List<List<int[]>> out = new ArrayList<>();
+        for (Object[] o : best) {
+            @SuppressWarnings("unchecked") List<int[]> l = (List<int[]>) o[1];
+            out.add(l);
+        }
+        return out;
+    }
+
+    /** For each of n points, the indices of its k nearest others, nearest first. */
+    private static int[][] neighbours(int n, java.util.function.IntToDoubleFunction x, java.util.function.IntToDoubleFunction y, int k) {
+        int[][] out = new int[n][];
+        for (int i = 0; i < n; i++) {
+            final int ii = i;
+            out[i] = java.util.stream.IntStream.range(0, n).filter(j -> j != ii)
+                    .boxed().sorted(Comparator.comparingDouble(j -> Math.hypot(x.applyAsDouble(j) - x.applyAsDouble(ii), y.applyAsDouble(j) - y.applyAsDouble(ii))))
+                    .limit(Math.max(0, k)).mapToInt(Integer::intValue).toArray();
+        }
+        return out;
+    }
+
+    private static double sq(double x) { return x * x; }
+}
