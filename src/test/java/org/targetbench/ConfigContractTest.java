@@ -129,8 +129,8 @@ class ConfigContractTest {
             m.put(org.targetbench.perturb.Perturbation.values()[0], new double[]{0.5});
             return m;
         }
-        // a nested config: a fresh instance with its first field changed
-        Object n = t.getConstructor().newInstance();
+        // a nested config: a copy of the current one with its first field changed
+        Object n = v != null ? t.getMethod("copy").invoke(v) : t.getConstructor().newInstance();
         Field f = publicFields(t).get(0);
         f.set(n, other(f.getType(), f.get(n)));
         return n;

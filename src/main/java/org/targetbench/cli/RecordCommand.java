@@ -81,7 +81,10 @@ final class RecordCommand implements Callable<Integer> {
                 }
             }
             if (n == 0) throw new org.targetbench.source.SourceException("the source delivered no frames: " + src.description());
-            if (!truth.isEmpty()) TruthFile.write(src.referenceName(), truth, output.file(truthName), false);
+            // a source without truth still gives its reference frame the identity: that alone is no truth to write
+            boolean hasTruth = truth.size() > 1 || truth.values().stream().anyMatch(t -> !t.features().isEmpty());
+            if (!hasTruth) truth.clear();
+            if (hasTruth) TruthFile.write(src.referenceName(), truth, output.file(truthName), false);
             output.commit();
             PrintWriter w = spec.commandLine().getOut();
             w.println("Recorded " + n + " frames of " + src.description() + " to " + out + " (" + Files.size(out) / 1024 + " KB)"

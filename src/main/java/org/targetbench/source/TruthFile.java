@@ -51,7 +51,7 @@ public final class TruthFile {
         JsonIn.Parsed parsed = JsonIn.parse(file);
         JsonIn in = parsed.in();
         JsonNode root = parsed.root();
-        in.knownKeys(root, "format", "version", "reference", "convention", "homographies", "points");
+        in.knownKeys(root, "format", "version", "reference", "convention", "homographies", "points", "source", "camera", "poses");
         String reference = in.text(root, "reference", "truth");
         if (!frameNames.contains(reference)) throw in.error("reference", "names frame \"" + reference + "\", which is not in the folder");
         Map<String, Optional<Homography>> hs = new LinkedHashMap<>();

@@ -142,11 +142,14 @@ class ChessboardPhotoRegistrationTest {
      * points are undistorted with the reference intrinsics, where the plane-to-plane mapping is the homography
      * G_b G_a^-1 of the two registrations.
      */
+    /** Every detector that has something to find on a chessboard: all but the dot-centre detector, which finds no dots there. */
+    static final List<DetectorType> ON_CHESSBOARDS = java.util.Arrays.stream(DetectorType.values()).filter(t -> t != DetectorType.DOTS).toList();
+
     static Map<DetectorType, double[]> repeatability() {
         Map<DetectorType, double[]> out = new EnumMap<>(DetectorType.class);
         String ref = PHOTOS.get(0);
         Homography ga = REGISTERED.get(ref).designToImage().orElseThrow();
-        for (DetectorType type : DetectorType.values()) {
+        for (DetectorType type : ON_CHESSBOARDS) {
             var det = Detectors.create(type);
             List<Detection> a = undistort(det.detect(IMAGES.get(ref)));
             List<Double> values = new ArrayList<>();
@@ -176,7 +179,7 @@ class ChessboardPhotoRegistrationTest {
     @Test
     void repeatabilityWithRegisteredTruthIsDefinedForEveryDetector() {
         Map<DetectorType, double[]> rep = repeatability();
-        for (DetectorType type : DetectorType.values()) {
+        for (DetectorType type : ON_CHESSBOARDS) {
             double[] v = rep.get(type);
             assertTrue(v.length >= 10, type + ": scored on " + v.length + " photos");
             double mean = Arrays.stream(v).average().orElse(Double.NaN);
