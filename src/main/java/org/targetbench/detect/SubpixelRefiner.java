@@ -16,6 +16,8 @@ import java.util.List;
  * repeated until q moves less than {@link RefineConfig#epsilon}. How well (1) fits, the weighted RMS distance of the
  * gradients' lines from q, sqrt(Σ w (gᵀ(p - q))² / Σ w |g|²), is near 0 at a designed corner and large on texture. The gradients are 3 x 3 Sobel, computed only inside
  * the windows (no full-frame pass). Works for any detector's points: L-corners, x-corners and FAST corners alike.
+ * Blurred corners, whose misfit is the width of their edges, are kept only when a window of twice the radius
+ * agrees (the rule in {@link RefineConfig}).
  *
  * <p>Not thread safe (one instance per detector). Reference: [1] W. Förstner, E. Gülch, "A fast operator for detection
  * and precise location of distinct points, corners and centres of circular features", ISPRS Intercommission
@@ -29,16 +31,15 @@ public final class SubpixelRefiner {
     public enum Fate { REFINED, NOT_CONVERGED, SHIFT_TOO_LARGE, NOT_CORNER_LIKE, AT_BORDER }
 
     private final RefineConfig config;
-    private final double[] weight;
+    private final double[] weight, wideWeight;
+    private final double[] state = new double[4];
     private int refined, kept;
 
     public SubpixelRefiner(RefineConfig config) {
         config.checkValidity();
         this.config = config.copy();
-        int r = this.config.windowRadius, side = 2 * r + 1;
-        weight = new double[side * side];
-        double s2 = 2 * Math.pow(r / 2.0, 2);
-        for (int j = -r, k = 0; j <= r; j++) for (int i = -r; i <= r; i++, k++) weight[k] = Math.exp(-(i * i + j * j) / s2);
+        weight = gaussian(this.config.windowRadius);
+        wideWeight = gaussian(2 * this.config.windowRadius);
     }
 
     public RefineConfig config() { return config.copy(); }
@@ -65,7 +66,39 @@ public final class SubpixelRefiner {
 
     /** Refines one point; {@code out} receives the refined position on {@link Fate#REFINED}. */
     public Fate refine(GrayF32 img, double x0, double y0, double[] out) {
-        int r = config.windowRadius;
+        Fate f = iterate(img, x0, y0, config.windowRadius, weight, state);
+        if (f != null) return f;
+        if (Math.hypot(state[0] - x0, state[1] - y0) > config.maxShiftPx) return Fate.SHIFT_TOO_LARGE;
+        double fit = state[2];
+        if (!(fit <= Math.max(config.maxFitRmsPx, config.maxBlurredFitRmsPx))) return Fate.NOT_CORNER_LIKE;
+        if (state[3] < config.minEigenRatio) return Fate.NOT_CORNER_LIKE;
+        double qx = state[0], qy = state[1];
+        if (!(fit <= config.maxFitRmsPx)) {
+            // a blurred corner: its fit is the width of its edges; accepted only when a window twice as large
+            // converges on the same point (a corner is one point at every window size; texture is not; derived)
+            Fate g = iterate(img, x0, y0, 2 * config.windowRadius, wideWeight, state);
+            if (g != null) return g == Fate.AT_BORDER ? Fate.AT_BORDER : Fate.NOT_CORNER_LIKE;
+            if (Math.hypot(state[0] - qx, state[1] - qy) > config.maxScaleDisagreementPx) return Fate.NOT_CORNER_LIKE;
+            if (!(state[2] <= config.maxBlurredFitRmsPx) || state[3] < config.minEigenRatio) return Fate.NOT_CORNER_LIKE;
+        }
+        out[0] = qx;
+        out[1] = qy;
+        return Fate.REFINED;
+    }
+
+    static double[] gaussian(int r) {
+        int side = 2 * r + 1;
+        double[] w = new double[side * side];
+        double s2 = 2 * Math.pow(r / 2.0, 2);
+        for (int j = -r, k = 0; j <= r; j++) for (int i = -r; i <= r; i++, k++) w[k] = Math.exp(-(i * i + j * j) / s2);
+        return w;
+    }
+
+    /**
+     * Iterates (1) from (x0, y0) with window radius r. Returns a failing fate, or null when converged with
+     * {@code st} = {qx, qy, fit, λmin/λmax}.
+     */
+    private Fate iterate(GrayF32 img, double x0, double y0, int r, double[] weight, double[] st) {
         double qx = x0, qy = y0;
         double a = 0, b = 0, c = 0, fit = Double.NaN;
         boolean converged = false;
@@ -109,12 +142,11 @@ public final class SubpixelRefiner {
             }
         }
         if (!converged) return Fate.NOT_CONVERGED;
-        if (Math.hypot(qx - x0, qy - y0) > config.maxShiftPx) return Fate.SHIFT_TOO_LARGE;
-        if (!(fit <= config.maxFitRmsPx)) return Fate.NOT_CORNER_LIKE;
         double half = (a + c) / 2, root = Math.sqrt((a - c) * (a - c) / 4 + b * b);
-        if ((half - root) < config.minEigenRatio * (half + root)) return Fate.NOT_CORNER_LIKE;
-        out[0] = qx;
-        out[1] = qy;
-        return Fate.REFINED;
+        st[0] = qx;
+        st[1] = qy;
+        st[2] = fit;
+        st[3] = (half - root) / (half + root);
+        return null;
     }
 }
