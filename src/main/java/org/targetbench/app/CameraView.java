@@ -45,8 +45,11 @@ import java.util.concurrent.atomic.AtomicReference;
  *
  * <p>Freeze keeps the shown frame and its points (zoom and pan still work) while the camera and a recording go on.
  * A camera that stops delivering (unplugged, driver failure) ends the stream with a plain message, and a recording
- * is finished and kept. Truth: the {@link LiveScoring.Registration} hook ({@link #setRegistration}); until a
- * frame-to-design registration is plugged in, repeatability is measured against the previous scored frame.
+ * is finished and kept. Truth: the {@link LiveScoring.Registration} hook ({@link #setRegistration}). With a design
+ * (and optionally a camera file) chosen ("Target..."), every scored frame is registered to the design on the scoring
+ * thread ({@link org.targetbench.pipeline.LiveRegistration}, a fresh registrar per stream), and the table shows
+ * repeatability, localisation and found share against the target; a frame that does not register is shown as such
+ * and not scored. Without a target, repeatability is measured against the previous scored frame.
  */
 final class CameraView extends JPanel {
     /** Opens camera {@code index} at {@code size} (WxH, or null for its default); webcams here, a simulated camera in tests. */
@@ -72,12 +75,18 @@ final class CameraView extends JPanel {
     private final JLabel rates = Ui.named(new JLabel(" "), "camera.rates", null);
     private final JLabel message = Ui.named(new JLabel("Press \"Find cameras\"."), "camera.message", null);
     private final JLabel against = Ui.named(new JLabel(" "), "camera.against", null);
+    /** What the live frames are registered to, and how the shown frame fared. */
+    private final JLabel registered = Ui.named(new JLabel("Target: none (choose one for scores against it)"), "camera.registration", null);
     private final DefaultTableModel scores = new DefaultTableModel(new Object[]{"Detector", "Points", "Repeatability", "Coverage", "Loc. RMS", "Found", "ms"}, 0) {
         @Override public boolean isCellEditable(int r, int c) { return false; }
     };
     private Webcams.Discovery discovery = new Webcams.Discovery(List.of(), "not looked for yet");
     private Opener opener = WEBCAMS;
-    private LiveScoring.Registration registration = LiveScoring.NO_REGISTRATION;
+    /** Makes the registration of one stream (a registrar follows its previous frame, so one per stream). */
+    private volatile java.util.function.Supplier<LiveScoring.Registration> registrations = () -> LiveScoring.NO_REGISTRATION;
+    /** The chosen design's name and camera file, for the label; null without a target. */
+    private volatile String targetLabel;
+    private final AtomicInteger registeredFrames = new AtomicInteger(), triedFrames = new AtomicInteger();
     private Stream stream;
 
     CameraView(AppContext ctx) {
@@ -87,8 +96,10 @@ final class CameraView extends JPanel {
         startStop = Ui.button("camera.start", "Start", "Show the chosen camera live, or stop it", this::toggle);
         freeze = Ui.button("camera.freeze", "Freeze", "Hold the shown frame and its points; the camera and a recording go on", this::toggleFreeze);
         record = Ui.button("camera.record", "Record...", "Record every image the camera delivers to an MP4, AVI or MJPEG file while you watch", this::toggleRecord);
+        JButton target = Ui.button("camera.target", "Target...", "Register every live frame to the printed design (target.json) and, optionally, "
+                + "the camera's intrinsics, for scores against the target", this::chooseTarget);
         device.addActionListener(e -> fillSizes());
-        add(Ui.row(Ui.button("camera.find", "Find cameras", "Look for connected cameras", this::find), device, size, startStop, freeze, record),
+        add(Ui.row(Ui.button("camera.find", "Find cameras", "Look for connected cameras", this::find), device, size, startStop, freeze, record, target),
                 BorderLayout.NORTH);
         add(canvas, BorderLayout.CENTER);
         JPanel bottom = new JPanel(new BorderLayout());
@@ -106,6 +117,7 @@ final class CameraView extends JPanel {
         sp.setPreferredSize(new Dimension(420, 130));
         side.add(sp);
         side.add(Ui.row(against));
+        side.add(Ui.row(registered));
         side.add(Box.createVerticalGlue());
         add(side, BorderLayout.EAST);
         updateButtons();
@@ -123,8 +135,56 @@ final class CameraView extends JPanel {
         updateButtons();
     }
 
-    /** The hook for live truth: frame-to-design registration, when a target is chosen. */
-    void setRegistration(LiveScoring.Registration r) { registration = r; }
+    /** The hook for live truth: frame-to-design registration, when a target is chosen. Applies from the next stream. */
+    void setRegistration(LiveScoring.Registration r) {
+        registrations = () -> r;
+        targetLabel = r.active() ? "a target" : null;
+    }
+
+    private void chooseTarget() {
+        JFileChooser fc = new JFileChooser(ctx.prefs().get("lastTargetFolder", System.getProperty("user.dir")));
+        fc.setDialogTitle("The printed design (target.json); Cancel for none");
+        fc.setFileFilter(new javax.swing.filechooser.FileNameExtensionFilter("Target designs (target.json)", "json"));
+        if (fc.showOpenDialog(ctx.window()) != JFileChooser.APPROVE_OPTION) {
+            clearTarget();
+            return;
+        }
+        Path t = fc.getSelectedFile().toPath();
+        ctx.prefs().put("lastTargetFolder", String.valueOf(t.getParent()));
+        JFileChooser cc = new JFileChooser(String.valueOf(t.getParent()));
+        cc.setDialogTitle("Camera intrinsics (camera.json, OpenCV or ROS YAML); Cancel for none");
+        registerTo(t, cc.showOpenDialog(ctx.window()) == JFileChooser.APPROVE_OPTION ? cc.getSelectedFile().toPath() : null);
+    }
+
+    /** No target: repeatability against the previous frame again (from the next stream). */
+    void clearTarget() {
+        setRegistration(LiveScoring.NO_REGISTRATION);
+        registered.setText("Target: none (choose one for scores against it)");
+    }
+
+    /**
+     * Registers live frames to the design in {@code target} with the intrinsics in {@code camera} (null: none) from the
+     * next stream on (a running stream is restarted). A file that cannot be read is said plainly and changes nothing.
+     */
+    void registerTo(Path target, Path camera) {
+        org.targetbench.target.TargetDesign design;
+        Optional<org.targetbench.camera.CameraModel> cam;
+        try {
+            design = org.targetbench.source.TargetFile.read(target);
+            cam = camera == null ? Optional.empty() : Optional.of(org.targetbench.source.CameraFiles.read(camera));
+        } catch (SourceException e) {
+            say("Target not set: " + e.getMessage());
+            return;
+        }
+        org.targetbench.register.RegisterConfig rc = new org.targetbench.register.RegisterConfig();
+        registrations = () -> new org.targetbench.pipeline.LiveRegistration(design, cam, rc);
+        targetLabel = design.id() + (camera == null ? " (no camera file: homographies, exact only without lens distortion)" : " with " + camera.getFileName());
+        registered.setText("Target: " + targetLabel);
+        say("Live frames are registered to " + targetLabel + (stream != null ? " from the next start." : "."));
+    }
+
+    /** Frames registered to the target, and frames tried, in the current or last stream. */
+    int[] registeredOfTried() { return new int[]{registeredFrames.get(), triedFrames.get()}; }
 
     private void find() {
         say("Looking for cameras...");
@@ -313,6 +373,8 @@ final class CameraView extends JPanel {
 
         void begin() {
             shown.set(0);
+            registeredFrames.set(0);
+            triedFrames.set(0);
             grabber.start();
             scorer.start();
         }
@@ -409,6 +471,7 @@ final class CameraView extends JPanel {
 
         private void scoreLoop() {
             int version = ctx.session().configVersion();
+            LiveScoring.Registration registration = registrations.get();
             LiveScoring scoring = new LiveScoring(ctx.session().configs(), registration);
             while (!halted) {
                 GrayF32 img;
@@ -427,6 +490,8 @@ final class CameraView extends JPanel {
                     scoring = new LiveScoring(ctx.session().configs(), registration);
                 }
                 LiveScoring.Scored s = scoring.score(img);
+                if (s.registration() != LiveScoring.RegistrationState.NONE) triedFrames.incrementAndGet();
+                if (s.registration() == LiveScoring.RegistrationState.REGISTERED) registeredFrames.incrementAndGet();
                 shownRate.tick();
                 SwingUtilities.invokeLater(() -> show(s));
             }
@@ -470,10 +535,27 @@ final class CameraView extends JPanel {
                 case PREVIOUS_FRAME -> "Repeatability: against the previous shown frame, as if nothing moved (hold still)";
                 case REGISTERED_REFERENCE -> "Repeatability: against the first registered frame, through the target";
             });
+            if (s.against() == LiveScoring.Against.NOTHING && s.registration() != LiveScoring.RegistrationState.NONE
+                    && s.registration() != LiveScoring.RegistrationState.REGISTERED)
+                against.setText("Repeatability: none, this frame did not register");
+            registered.setText(registrationText(s));
             rates.setText(String.format(Locale.ROOT, "%.1f frames/s scored and shown of the camera's %.1f frames/s; %d of %d images dropped%s",
                     shownRate.perSecond(), cameraRate.perSecond(), dropped.get(), delivered.get(),
                     recording() == null ? "" : "; recording to " + recording().getFileName()));
         }
+    }
+
+    /** The registration line under the table: the target, how this frame fared, and the count so far. */
+    private String registrationText(LiveScoring.Scored s) {
+        String count = String.format(Locale.ROOT, " (%d of %d frames registered)", registeredFrames.get(), triedFrames.get());
+        return switch (s.registration()) {
+            case NONE -> "Target: none (choose one for scores against it)";
+            case REGISTERED -> "Target " + targetLabel + ": this frame registered" + count;
+            case NOT_REGISTERED -> "Target " + targetLabel + ": this frame NOT REGISTERED, "
+                    + s.note().map(org.targetbench.register.RegistrationNote::sentence).orElse("not found") + " (not scored)" + count;
+            case WRONG_SIZE -> "Target " + targetLabel + ": NOT REGISTERED, the camera file is for another image size than "
+                    + s.frame().width + " x " + s.frame().height + " (choose its size or another file)" + count;
+        };
     }
 
     /** On the event-dispatch thread once a stream has fully stopped. */

@@ -51,12 +51,14 @@ public final class ResultsFolder {
                        Map<String, String> detectorSettings, Map<String, Map<String, List<Detection>>> detections,
                        Optional<TruthFile.Truth> truth, Optional<CameraModel> camera, Optional<TargetDesign> target,
                        Optional<List<Pose>> poses, Optional<Path> cameraFile, Optional<Path> targetFile, Optional<Path> posesFile,
-                       Path truthFile, String folderName) {
+                       Path truthFile, String folderName, Map<String, Pose> registeredPoses) {
         /** What a pick starts from: this folder's detections and scene, the files named as the set records them. */
         public PickRun.Input pickInput() {
             return new PickRun.Input(referenceFrame, epsilonPx, ranking, detectorSettings, detections, truth.map(TruthFile.Truth::frames),
                     camera, target, poses.map(p -> p.get(0)), posesFile.map(this::shortName).orElse("poses.json"),
-                    targetFile.map(this::shortName).orElse("target.json"));
+                    targetFile.map(this::shortName).orElse("target.json"),
+                    camera.isPresent() && !registeredPoses.isEmpty()
+                            ? PickRun.Input.planeInduced(camera.get(), referenceFrame, registeredPoses) : Map.of());
         }
 
         /** Names for the sentences that explain a refused pick. */
@@ -126,8 +128,10 @@ public final class ResultsFolder {
         if (camera.isPresent() && (camera.get().width() != w || camera.get().height() != h))
             throw new SourceException(camF + ": image size " + camera.get().width() + "x" + camera.get().height()
                     + " does not match the results' " + w + "x" + h);
+        // registered truth carries per-frame poses when intrinsics were given (for repeatability under distortion)
+        Map<String, Pose> registeredPoses = truth.isPresent() ? org.targetbench.source.RegisteredPoses.read(truthFile) : Map.of();
         return new Data(folder, ref, w, h, eps, ranking, settings, dets, truth, camera, target, poses,
-                Optional.ofNullable(camF), Optional.ofNullable(tgtF), Optional.ofNullable(posF), truthFile, folderName);
+                Optional.ofNullable(camF), Optional.ofNullable(tgtF), Optional.ofNullable(posF), truthFile, folderName, registeredPoses);
     }
 
     /** The explicit file (which must exist), else the default when it exists, else null. */

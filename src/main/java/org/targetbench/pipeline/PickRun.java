@@ -62,11 +62,40 @@ public final class PickRun {
      * @param referencePose    the reference view's pose, when known (else estimated from the design and the truth)
      * @param posesLabel       how the set names where a known pose came from (e.g. a file name)
      * @param designLabel      how the set names where the design came from
+     * @param undistortedFromReference registered truth under lens distortion: per frame name, the homography from the
+     *                         reference frame between undistorted images, G_f G_ref^-1 with G = K [r1 r2 t] of the
+     *                         registered poses (as {@link CompareRun#withRegisteredTruth}); empty otherwise
      */
     public record Input(String referenceFrame, double epsilonPx, List<String> ranking, Map<String, String> detectorSettings,
                         Map<String, Map<String, List<Detection>>> detections, Optional<Map<String, FrameTruth>> truth,
                         Optional<CameraModel> camera, Optional<TargetDesign> design, Optional<Pose> referencePose,
-                        String posesLabel, String designLabel) {
+                        String posesLabel, String designLabel, Map<String, Homography> undistortedFromReference) {
+        public Input {
+            undistortedFromReference = Map.copyOf(undistortedFromReference);
+        }
+
+        /** Without registered truth under lens distortion. */
+        public Input(String referenceFrame, double epsilonPx, List<String> ranking, Map<String, String> detectorSettings,
+                     Map<String, Map<String, List<Detection>>> detections, Optional<Map<String, FrameTruth>> truth,
+                     Optional<CameraModel> camera, Optional<TargetDesign> design, Optional<Pose> referencePose,
+                     String posesLabel, String designLabel) {
+            this(referenceFrame, epsilonPx, ranking, detectorSettings, detections, truth, camera, design, referencePose,
+                    posesLabel, designLabel, Map.of());
+        }
+
+        /**
+         * The homographies between undistorted images induced by the target plane in registered poses, from the
+         * reference frame's pose to each frame's: G_f G_ref^-1, G = K [r1 r2 t] (Hartley &amp; Zisserman 2004, eq. 13.1).
+         * Empty when the reference frame has no pose.
+         */
+        public static Map<String, Homography> planeInduced(CameraModel camera, String referenceFrame, Map<String, Pose> poses) {
+            Pose ref = poses.get(referenceFrame);
+            Map<String, Homography> out = new java.util.LinkedHashMap<>();
+            if (ref == null) return out;
+            Homography gRefInv = Projection.targetToImage(camera, ref).inverse();
+            for (var e : poses.entrySet()) out.put(e.getKey(), Projection.targetToImage(camera, e.getValue()).after(gRefInv).normalised());
+            return out;
+        }
         FrameTruth truthOf(String frame) {
             FrameTruth t = truth.map(m -> m.get(frame)).orElse(null);
             if (t != null) return t;
@@ -174,16 +203,19 @@ public final class PickRun {
             throw new Refused(Problem.NO_DEPTH, detector, List.of(), 0, Double.NaN, design.isEmpty(), refTruth.isEmpty());
         }
 
+        // under lens distortion, registered poses give repeatability between undistorted images
+        boolean undistorted = camera.isDistorted() && !data.undistortedFromReference().isEmpty();
         List<Candidates.Frame> others = new ArrayList<>();
         for (String name : allFrames(data, byFrame)) {
             if (name.equals(ref)) continue;
             FrameTruth ft = data.truthOf(name);
-            others.add(new Candidates.Frame(name, byFrame.getOrDefault(name, List.of()), ft.fromReference(), ft.features()));
+            Optional<Homography> h = undistorted ? Optional.ofNullable(data.undistortedFromReference().get(name)) : ft.fromReference();
+            others.add(new Candidates.Frame(name, byFrame.getOrDefault(name, List.of()), h, ft.features()));
         }
         CandidateConfig c2 = cc.copy();
         c2.epsilonPx = data.epsilonPx();
         List<Candidate> cands = Candidates.build(new Candidates.Frame(ref, refDet, Optional.empty(), refTruth), others, camera,
-                design.orElse(null), pose, c2);
+                design.orElse(null), pose, c2, undistorted);
         String trackerNote = "{}";
         if (tracks.isPresent()) {
             Map<Integer, MeasuredTracks.Figures> figs = MeasuredTracks.figures(tracks.get());

@@ -12,7 +12,9 @@ import java.util.Optional;
  * @param note         registered or not, and why
  * @param pose         the target's pose in the camera frame, when intrinsics were given and the frame registered
  * @param designToImage design millimetres to pixels, when no intrinsics were given and the frame registered (with
- *                     intrinsics: the mapping to undistorted pixels, K [r1 r2 t])
+ *                     intrinsics: the mapping to undistorted pixels through which the features are predicted, the general
+ *                     planar mapping fitted after the pose, or K [r1 r2 t] of the pose when too few features matched;
+ *                     see {@link FrameRegistrar})
  * @param featuresUsed designed features (or grid key points) matched and used in the fit; 0 when none
  * @param rmsPx        RMS reprojection residual of the used features, pixels; NaN when nothing was fitted
  * @param predicted    every designed feature predicted inside the image (lens distortion applied), id order; empty

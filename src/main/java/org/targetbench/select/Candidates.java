@@ -53,17 +53,31 @@ public final class Candidates {
      */
     public static List<Candidate> build(Frame reference, List<Frame> others, CameraModel camera, TargetDesign design,
                                         Pose referencePose, CandidateConfig config) {
+        return build(reference, others, camera, design, referencePose, config, false);
+    }
+
+    /**
+     * As {@link #build(Frame, List, CameraModel, TargetDesign, Pose, CandidateConfig)}; with
+     * {@code undistortedHomographies} the frames' homographies map between undistorted images (registered truth under
+     * lens distortion, where no homography exists between raw frames): the repeatability count then undistorts both
+     * frames' detections with the intrinsics (eqs. 1-3 of {@link CameraModel} inverted) and applies the image-region
+     * rules in undistorted pixels, as the comparison does. Everything else stays in raw pixels.
+     */
+    public static List<Candidate> build(Frame reference, List<Frame> others, CameraModel camera, TargetDesign design,
+                                        Pose referencePose, CandidateConfig config, boolean undistortedHomographies) {
         config.checkValidity();
         int w = camera.width(), h = camera.height();
         Point2Transform2_F64 toNorm = camera.pixelToNormalised();
         List<ProjectedFeature> designed = design == null ? List.of() : Projection.visibleFeatures(design, camera, referencePose);
         List<Candidate> out = new ArrayList<>();
         List<Detection> ref = reference.detections();
+        List<Detection> refForRepeat = undistortedHomographies ? undistorted(ref, camera) : ref;
         // found again: the one rule of Repeatability (one-to-one pairing within epsilon), per frame with a homography
         List<int[]> foundAgain = new ArrayList<>();
         for (Frame f : others)
             foundAgain.add(f.fromReference().isEmpty() ? null
-                    : Repeatability.foundAgain(ref, f.detections(), f.fromReference().get(), w, h, w, h, config.epsilonPx));
+                    : Repeatability.foundAgain(refForRepeat, undistortedHomographies ? undistorted(f.detections(), camera) : f.detections(),
+                    f.fromReference().get(), w, h, w, h, config.epsilonPx));
         for (int id = 0; id < ref.size(); id++) {
             Detection d = ref.get(id);
             // repeatability over frames with a homography
@@ -141,6 +155,18 @@ public final class Candidates {
         double xt = pose.r(0, 0) * pc[0] + pose.r(1, 0) * pc[1] + pose.r(2, 0) * pc[2];
         double yt = pose.r(0, 1) * pc[0] + pose.r(1, 1) * pc[1] + pose.r(2, 1) * pc[2];
         return new double[]{xt * 1000, yt * 1000, lambda};
+    }
+
+    /** Detections moved to undistorted pixels, K applied to the undistorted normalised coordinates. */
+    private static List<Detection> undistorted(List<Detection> pts, CameraModel c) {
+        Point2Transform2_F64 t = c.pixelToNormalised();
+        Point2D_F64 n = new Point2D_F64();
+        List<Detection> out = new ArrayList<>(pts.size());
+        for (Detection p : pts) {
+            t.compute(p.x(), p.y(), n);
+            out.add(new Detection(c.fx() * n.x + c.cx(), c.fy() * n.y + c.cy(), p.response(), p.scale()));
+        }
+        return out;
     }
 
     private static double nearest(List<Detection> dets, double x, double y) {

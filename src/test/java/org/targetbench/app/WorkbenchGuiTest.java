@@ -363,6 +363,68 @@ class WorkbenchGuiTest {
     }
 
     @Test
+    @Order(13)
+    void liveFramesOfASimulatedCameraAreRegisteredToTheChosenTarget(@org.junit.jupiter.api.io.TempDir Path tmp) throws Exception {
+        awaitDialogsClosed();
+        CameraView cv = workbench.camera();
+        // the demo target seen by a lens with barrel distortion, the camera swaying; every 5th image looks away
+        var design = org.targetbench.source.TargetFile.read(Path.of("target-designs/fixture-cb15/target.json"));
+        var lens = new org.targetbench.camera.CameraModel(640, 480, 532, 532, 319.5, 239.5, -0.25, 0.05, 0, 0, 0);
+        Path cameraFile = tmp.resolve("phone.json");
+        org.targetbench.source.CameraFiles.write(lens, cameraFile, org.targetbench.source.CameraFiles.Layout.JSON);
+        var rc = new org.targetbench.source.RenderConfig();
+        rc.noiseSigma = 1;
+        var renderer = new org.targetbench.source.SyntheticRenderer(lens, rc);
+        java.util.List<java.awt.image.BufferedImage> scene = new java.util.ArrayList<>();
+        for (int i = 0; i < 4; i++)
+            scene.add(org.targetbench.source.ImageFiles.toBuffered(renderer.render(design, org.targetbench.camera.Pose.facing(design.widthMm(),
+                    design.heightMm(), 0.26, 6 + 2 * i, -5 + 2 * i, 2, 0.002 * i, 0), i).image()));
+        var blank = new boofcv.struct.image.GrayF32(640, 480);
+        java.util.Arrays.fill(blank.data, 110f);
+        scene.add(org.targetbench.source.ImageFiles.toBuffered(blank));
+        CameraView.Opener simulated = (index, size) -> new org.targetbench.source.WebcamSource(
+                new org.targetbench.source.FakeCamera(scene, 100_000, 30), "simulated camera at " + size);
+        GuiActionRunner.execute(() -> cv.offer(new org.targetbench.source.Webcams.Discovery(java.util.List.of(
+                new org.targetbench.source.Webcams.CameraInfo(0, "simulated camera", java.util.List.of("640x480"))), ""), simulated));
+        window.list("nav").selectItem("Camera");
+        GuiActionRunner.execute(() -> cv.registerTo(Path.of("target-designs/fixture-cb15/target.json"), cameraFile));
+        window.label("camera.registration").requireText(java.util.regex.Pattern.compile("Target: fixture-cb15 with phone\\.json"));
+        window.button("camera.start").click();
+        int detectors = org.targetbench.detect.DetectorType.values().length;
+        java.util.concurrent.atomic.AtomicBoolean sawRegistered = new java.util.concurrent.atomic.AtomicBoolean(),
+                sawNotRegistered = new java.util.concurrent.atomic.AtomicBoolean();
+        java.util.concurrent.atomic.AtomicReference<String> scoredRow = new java.util.concurrent.atomic.AtomicReference<>();
+        waitFor("registered frames scored against the target, and a frame that did not register shown as such", () -> {
+            String text = GuiActionRunner.execute(() -> window.label("camera.registration").target().getText());
+            String rep = GuiActionRunner.execute(() -> window.label("camera.against").target().getText());
+            if (text.contains("this frame registered") && rep.contains("against the first registered frame")) {
+                javax.swing.JTable t = window.table("camera.scores").target();
+                String row = GuiActionRunner.execute(() -> {
+                    for (int r = 0; r < t.getRowCount(); r++)
+                        if ("Harris".equalsIgnoreCase(String.valueOf(t.getValueAt(r, 0)).trim()))
+                            return t.getValueAt(r, 2) + "|" + t.getValueAt(r, 4) + "|" + t.getValueAt(r, 5);
+                    return null;
+                });
+                if (row != null && row.matches("[01]\\.[0-9]+\\|0\\.[0-9]+\\|[0-9]+.*%")) {
+                    scoredRow.set(row);
+                    sawRegistered.set(true);
+                }
+            }
+            if (text.contains("NOT REGISTERED, the target was not found (not scored)")) sawNotRegistered.set(true);
+            return sawRegistered.get() && sawNotRegistered.get() && window.table("camera.scores").target().getRowCount() == detectors;
+        });
+        String[] harris = scoredRow.get().split("\\|");
+        assertTrue(Double.parseDouble(harris[0]) >= 0.5, "Harris repeatability through the registered target: " + scoredRow.get());
+        assertTrue(Double.parseDouble(harris[1]) < 0.5, "Harris localisation against the registered corners: " + scoredRow.get());
+        shot("camera-registered");
+        GuiActionRunner.execute(cv::stop);
+        waitFor("stopped", () -> !cv.running());
+        int[] counts = GuiActionRunner.execute(cv::registeredOfTried);
+        assertTrue(counts[0] >= 2 && counts[0] < counts[1], "registered " + counts[0] + " of " + counts[1]);
+        GuiActionRunner.execute(cv::clearTarget);
+    }
+
+    @Test
     @Order(12)
     void aFolderRegisteredToItsDesignDrivesTheScoresAndMarksFramesThatDidNotRegister(@org.junit.jupiter.api.io.TempDir Path tmp) throws Exception {
         var design = org.targetbench.source.TargetFile.read(Path.of("target-designs/fixture-cb15/target.json"));

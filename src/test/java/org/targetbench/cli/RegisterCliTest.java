@@ -119,6 +119,10 @@ class RegisterCliTest {
         assertTrue(set.contains("track_survival_and_jitter_from"), set);
         assertTrue(set.matches("(?s).*\"track_survival\" : [0-9.]+.*"), set);
         assertTrue(set.matches("(?s).*\"jitter_px\" : [0-9.]+.*"), set);
+        // per-point repeatability through the registered poses, although the lens distortion leaves no raw homography
+        long withRepeatability = set.lines().filter(l -> l.matches("\\s*\"repeatability\" : [0-9.]+,?")).count();
+        assertTrue(withRepeatability >= 4, set);
+        assertTrue(set.lines().filter(l -> l.matches("\\s*\"repeatability\" : (0\\.[5-9][0-9]*|1\\.0),?")).count() >= 4, set);
     }
 
     @Test

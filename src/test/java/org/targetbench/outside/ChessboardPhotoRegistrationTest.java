@@ -51,12 +51,13 @@ class ChessboardPhotoRegistrationTest {
     static final List<String> PHOTOS = List.of("left01.jpg", "left02.jpg", "left03.jpg", "left04.jpg", "left05.jpg", "left06.jpg",
             "left07.jpg", "left08.jpg", "left09.jpg", "left11.jpg", "left12.jpg", "left13.jpg", "left14.jpg");
     /**
-     * Median distance between our predicted corners and OpenCV's refined corners, pixels. Derived: the predictions go
-     * through the reference calibration (0.39 px RMS over the set, PROVENANCE.md) and one rigid pose of a printed
-     * sheet per photo, which leaves 0.15-0.23 px RMS against the detected corners on these photos; the detected
-     * corners themselves agree with OpenCV's at a median of 0.07 px. Measured: 0.155 px over 702 corners.
+     * Median distance between our predicted corners and OpenCV's refined corners, pixels (Debian opencv-doc photos;
+     * 0.15 px is the accuracy asked of registered truth on real photos). The predictions go through the reference
+     * calibration (0.39 px RMS over the set, PROVENANCE.md) and, per photo, the design-to-undistorted-image
+     * homography fitted after the pose (FrameRegistrar); the detected corners themselves agree with OpenCV's at a
+     * median of 0.07 px. Measured: 0.144 px over 702 corners (0.155 px with one rigid pose per photo).
      */
-    static final double MEDIAN_TOL_PX = 0.16;
+    static final double MEDIAN_TOL_PX = 0.15;
     /** A corner counts as found by a detector within this distance of its registered position, pixels. */
     static final double FOUND_PX = 1.0;
     /** Share of designed corners Harris and Shi-Tomasi must find on each photo. */

@@ -16,12 +16,24 @@ public final class FakeCamera implements Camera {
     private long nextAt;
     private int delivered;
     private boolean closed;
+    /** Images shown in turn instead of the moving texture (a rendered target), or null. */
+    private final java.util.List<BufferedImage> scene;
 
     public FakeCamera(int width, int height, int frames, boolean failHard) {
         this(width, height, frames, failHard, 0);
     }
 
     public FakeCamera(int width, int height, int frames, boolean failHard, long intervalMs) {
+        this(width, height, frames, failHard, intervalMs, null);
+    }
+
+    /** A camera that shows {@code scene}'s images in turn (e.g. renders of a target as the camera moves). */
+    public FakeCamera(java.util.List<BufferedImage> scene, int frames, long intervalMs) {
+        this(scene.get(0).getWidth(), scene.get(0).getHeight(), frames, false, intervalMs, java.util.List.copyOf(scene));
+    }
+
+    private FakeCamera(int width, int height, int frames, boolean failHard, long intervalMs, java.util.List<BufferedImage> scene) {
+        this.scene = scene;
         this.intervalMs = intervalMs;
         this.width = width;
         this.height = height;
@@ -45,6 +57,7 @@ public final class FakeCamera implements Camera {
             if (failHard) throw new IllegalStateException("device /dev/video0 vanished");
             return null;
         }
+        if (scene != null) return scene.get(delivered++ % scene.size());
         return ImageFiles.toBuffered(TrackScenes.texture(width, height, 5, 0.5 * delivered++, 0.25 * delivered));
     }
 
