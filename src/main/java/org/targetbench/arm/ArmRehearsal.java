@@ -73,10 +73,8 @@ public final class ArmRehearsal {
         ArmRunTrace[] traces = new ArmRunTrace[Math.min(starts.size(), c.servo.tracedRuns)];
         runAll(scene, c, starts, results, traces);
         HandEye believed = handEye.perturbed(c.handEyeErrorDeg, c.handEyeErrorMm);
-        ArmRehearsalResult partial = new ArmRehearsalResult(arm, handEye, believed, c, scene.referenceJoints(), method[0], List.of(results),
-                List.of(traces), List.of(), Optional.empty(), scene.baseToTarget());
-        return new ArmRehearsalResult(arm, handEye, believed, c, scene.referenceJoints(), method[0], partial.runs(), partial.traces(),
-                ArmWords.warnings(partial), Optional.empty(), scene.baseToTarget());
+        return new ArmRehearsalResult(arm, handEye, believed, c, scene.referenceJoints(), method[0], List.of(results),
+                List.of(traces), Optional.empty(), scene.baseToTarget());
     }
 
     /** As {@link #run} and then the gain sweep over {@code lambdas} (1/s) on the same starts. */
@@ -86,7 +84,7 @@ public final class ArmRehearsal {
         List<double[]> starts = r.runs().stream().map(ArmRunResult::startJointsRad).toList();
         GainAdvice a = advise(set, arm, handEye, config, starts, lambdas);
         return new ArmRehearsalResult(r.arm(), r.handEye(), r.handEyeBelieved(), r.config(), r.referenceJointsRad(), r.poseMethod(), r.runs(),
-                r.traces(), r.warnings(), Optional.of(a), r.baseToTarget());
+                r.traces(), Optional.of(a), r.baseToTarget());
     }
 
     /** The gain sweep: every λ from every start, without traces. */

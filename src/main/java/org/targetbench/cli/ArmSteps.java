@@ -5,7 +5,7 @@ import org.targetbench.arm.ArmRehearsal;
 import org.targetbench.arm.ArmRehearsalConfig;
 import org.targetbench.arm.ArmRehearsalResult;
 import org.targetbench.arm.ArmRunResult;
-import org.targetbench.arm.ArmWords;
+import org.targetbench.pipeline.ArmWords;
 import org.targetbench.arm.HandEye;
 import org.targetbench.export.ArmWriters;
 import org.targetbench.export.AtomicOutput;
@@ -104,7 +104,7 @@ final class ArmSteps {
         ArmRunResult fast = r.runs().stream().max((a, b) -> Double.compare(a.peakSpeedRatio(), b.peakSpeedRatio())).orElse(null);
         if (fast != null) w.printf(Locale.ROOT, "  peak joint speed     %.0f %% of its limit (joint %d, run %d)%n", 100 * fast.peakSpeedRatio(), fast.peakSpeedJoint(), fast.index());
         r.advice().ifPresent(a -> w.println("  gain advice          " + ArmWords.advice(a)));
-        for (String s : r.warnings()) w.println("Warning: " + s);
+        for (String s : ArmWords.warnings(r)) w.println("Warning: " + s);
         w.println("Not modelled: " + ArmWords.NOT_MODELLED);
     }
 }

@@ -1,10 +1,19 @@
-package org.targetbench.arm;
+package org.targetbench.pipeline;
+
+import org.targetbench.arm.ArmFlag;
+import org.targetbench.arm.ArmModel;
+import org.targetbench.arm.ArmRehearsalResult;
+import org.targetbench.arm.ArmRunResult;
+import org.targetbench.arm.GainAdvice;
 
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 
-/** Every sentence about an arm rehearsal, rendered from typed results in one place. */
+/**
+ * Every sentence about an arm rehearsal, rendered from its typed results (flags, outcomes, configuration, advice) in one
+ * place beside {@link Reasons}, for the console, the files and the workbench alike.
+ */
 public final class ArmWords {
     /** What the arm rehearsal does not model; shown beside the usual safety notice. */
     public static final String NOT_MODELLED = "This arm rehearsal is kinematic only: it models no dynamics, no payload, no collisions with "
@@ -26,7 +35,7 @@ public final class ArmWords {
         };
     }
 
-    /** Warnings over all runs. */
+    /** Warnings over all runs, derived from the runs' flags and the configuration. */
     public static List<String> warnings(ArmRehearsalResult r) {
         List<String> w = new ArrayList<>();
         int n = r.runs().size();
