@@ -84,12 +84,17 @@ final class ArmSteps {
         } catch (IllegalArgumentException e) {
             throw new UserError("arm rehearsal of " + p.setName() + ": " + e.getMessage());
         }
+        write(r, p.set(), p.setName(), out, prefix);
+        return r;
+    }
+
+    /** Writes a rehearsal on the arm under {@code prefix}: runs, summary, hand-eye, arm (for a DH arm) and the report. */
+    static void write(ArmRehearsalResult r, ServoSet set, String setName, AtomicOutput out, String prefix) throws IOException {
         ArmWriters.writeRuns(r, out.file(prefix + "arm-rehearsal.csv"));
         ArmWriters.writeSummary(r, out.file(prefix + "arm-rehearsal-summary.json"));
         ArmWriters.writeHandEye(r.handEye(), out.file(prefix + "handeye.json"));
         if (!r.arm().dh().isEmpty()) ArmWriters.writeArm(r.arm(), r.referenceJointsRad(), out.file(prefix + "arm.json"));
-        ArmReport.write(r, p.set(), p.setName(), out, prefix);
-        return r;
+        ArmReport.write(r, set, setName, out, prefix);
     }
 
     static void print(ArmRehearsalResult r, PrintWriter w) {
