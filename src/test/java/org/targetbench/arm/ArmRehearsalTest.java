@@ -17,9 +17,9 @@ import static org.junit.jupiter.api.Assertions.*;
 
 /** The closed loop on the arm against the free-flying rehearsal, a published delay bound and wrist behaviour. */
 class ArmRehearsalTest {
-    /** The ideal arm must follow the free-flying camera path to this, metres. */
+    /** The ideal arm must follow the free-flying camera path to this, metres (common practice, no source). */
     static final double PATH_TOL_M = 1e-6;
-    /** Camera pose error at the end of the redundant-wrist run. */
+    /** Camera pose error at the end of the redundant-wrist run (common practice, no source). */
     static final double POSE_TOL_MM = 0.1, POSE_TOL_DEG = 0.01;
     /** The moving combination of joints 4 and 6 must match the reference to this, degrees. */
     static final double COMBINATION_TOL_DEG = 0.01;

@@ -28,7 +28,7 @@ class SyntheticCalibrationTest {
     static final double NOISE = 1.0;
     static final long SEED = 7;
 
-    /** Largest mean offset of detected corners from the true ones, px, after the BoofCV convention correction. */
+    /** Largest mean offset of detected corners from the true ones, px, after the BoofCV convention correction (common practice, no source). */
     static final double MEAN_OFFSET_TOL_PX = 0.05;
 
     static TargetDesign board;

@@ -11,11 +11,11 @@ import static org.junit.jupiter.api.Assertions.*;
 
 /** The closed loop against published behaviour, and the Monte-Carlo machinery. */
 class RehearsalTest {
-    /** Allowed relative deviation from the exponential decrease. */
+    /** Allowed relative deviation from the exponential decrease (common practice, no source). */
     private static final double DECAY_TOL = 0.02;
-    /** Allowed relative deviation of the retreat ratio from 1/cos(θ/2). */
+    /** Allowed relative deviation of the retreat ratio from 1/cos(θ/2) (common practice, no source). */
     private static final double RETREAT_TOL = 0.02;
-    /** The mean law keeps the depth within this fraction of Z*. */
+    /** The mean law keeps the depth within this fraction of Z* (common practice, no source). */
     private static final double MEAN_DEPTH_TOL = 0.02;
 
     private static RehearsalConfig config(ControlLaw law) {
