@@ -7,10 +7,6 @@ import org.targetbench.camera.PoseEstimation;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
-import java.util.concurrent.ExecutionException;
-import java.util.concurrent.ExecutorService;
-import java.util.concurrent.Executors;
-import java.util.concurrent.Future;
 
 /**
  * Rehearses a servo set in simulation before any robot moves: the closed loop v = -λ L̂⁺ (s - s*) with the camera
@@ -73,33 +69,11 @@ public final class Rehearsal {
         int n = c.starts;
         RunResult[] results = new RunResult[n];
         RunTrace[] traces = new RunTrace[Math.min(n, c.tracedRuns)];
-        ExecutorService pool = Executors.newFixedThreadPool(c.threads, r -> {
-            Thread t = new Thread(r, "targetbench-rehearse");
-            t.setDaemon(true);
-            return t;
+        ParallelRuns.run(n, c.threads, BLOCK, "targetbench-rehearse", () -> new ClosedLoop(scene, c), (loop, i) -> {
+            RunTrace[] slot = i < traces.length ? new RunTrace[1] : null;
+            results[i] = loop.run(i, slot, null);
+            if (slot != null) traces[i] = slot[0];
         });
-        try {
-            List<Future<?>> futures = new ArrayList<>();
-            ThreadLocal<ClosedLoop> loops = ThreadLocal.withInitial(() -> new ClosedLoop(scene, c));
-            for (int b = 0; b < n; b += BLOCK) {
-                int from = b, to = Math.min(n, b + BLOCK);
-                futures.add(pool.submit(() -> {
-                    ClosedLoop loop = loops.get();
-                    RunTrace[] slot = new RunTrace[1];
-                    for (int i = from; i < to; i++) {
-                        boolean traced = i < traces.length;
-                        results[i] = loop.run(i, traced ? slot : null, null);
-                        if (traced) traces[i] = slot[0];
-                    }
-                }));
-            }
-            for (Future<?> f : futures) f.get();
-        } catch (ExecutionException e) {
-            if (e.getCause() instanceof RuntimeException re) throw re;
-            throw new IllegalStateException(e.getCause());
-        } finally {
-            pool.shutdownNow();
-        }
         List<RunResult> runs = List.of(results);
         RehearsalResult.Summary summary = RehearsalResult.Summary.of(runs);
         return new RehearsalResult(c, poseMethod, runs, List.of(traces), summary, warnings(set, c, summary), scene.referenceDistanceM());
