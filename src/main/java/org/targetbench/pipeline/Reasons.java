@@ -1,5 +1,6 @@
 package org.targetbench.pipeline;
 
+import org.targetbench.camera.Calibration;
 import org.targetbench.select.Selection;
 import org.targetbench.servo.ControlLaw;
 import org.targetbench.servo.RehearsalResult;
@@ -157,6 +158,14 @@ public final class Reasons {
     /** Every warning of a rehearsal in plain words, in order. */
     public static List<String> warnings(RehearsalResult r) {
         return r.warnings().stream().map(Reasons::warning).toList();
+    }
+
+    /** Why a camera calibration could not be made, in one line. */
+    public static String calibrationFailure(Calibration.Failure f) {
+        return switch (f.kind()) {
+            case TOO_FEW_VIEWS -> "the board was found in " + f.found() + " of " + f.frames() + " frames; calibration needs at least " + f.minViews() + " views";
+            case NOT_CONVERGED -> "the calibration did not converge (" + f.detail() + "); add views with the board tilted and in different parts of the image";
+        };
     }
 
     private static String fmt(double v) {

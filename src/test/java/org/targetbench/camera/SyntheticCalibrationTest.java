@@ -113,6 +113,7 @@ class SyntheticCalibrationTest {
 
         Calibration.Outcome few = cal.solve(640, 480, names(2), found.subList(0, 2));
         Calibration.Failure f = assertInstanceOf(Calibration.Failure.class, few);
-        assertTrue(f.reason().contains("at least 3 views"), f.reason());
+        assertEquals(Calibration.Failure.Kind.TOO_FEW_VIEWS, f.kind());
+        assertEquals(3, f.minViews());
     }
 }
