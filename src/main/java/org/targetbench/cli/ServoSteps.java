@@ -59,7 +59,7 @@ final class ServoSteps {
     static void printPick(PickRun.Result r, String from, PrintWriter w) {
         Selection s = r.selection();
         ServoSet set = r.set().orElseThrow();
-        w.printf(Locale.ROOT, "Servo set from %s: detector %s, %s; %s.%n", from, r.detector(), Reasons.selection(s), s.method());
+        w.printf(Locale.ROOT, "Servo set from %s: detector %s, %s; %s.%n", from, r.detector(), Reasons.selection(s), Reasons.search(s.search()));
         w.println("Reference pose: " + r.poseMethod());
         w.printf(Locale.ROOT, "cond(L*) %.2f, sigma_min %.4f (translational columns scaled by Z*), image coverage %.0f%%%n",
                 s.condition(), s.sigmaMin(), 100 * s.coverage());

@@ -30,6 +30,15 @@ public final class Reasons {
         return String.format(Locale.ROOT, "chose %d of %d candidates (%d passed the filters)", s.chosen().size(), s.candidates(), s.passed());
     }
 
+    /** How a selection searched: "exhaustive search over n sets, m sets evaluated", "greedy + swap improvement, m sets evaluated". */
+    public static String search(Selection.Search s) {
+        return switch (s.kind()) {
+            case NONE -> "none";
+            case EXHAUSTIVE -> "exhaustive search over " + s.combinations() + " sets, " + s.evaluations() + " sets evaluated";
+            case GREEDY_SWAP -> "greedy + swap improvement, " + s.evaluations() + " sets evaluated";
+        };
+    }
+
     /** Why no servo set was acceptable. */
     public static String refusal(Selection.Refusal r) {
         return switch (r.kind()) {
