@@ -5,7 +5,7 @@ import org.jfree.chart.JFreeChart;
 import org.targetbench.arm.ArmRehearsalConfig;
 import org.targetbench.arm.ArmRehearsalResult;
 import org.targetbench.arm.ArmRunResult;
-import org.targetbench.arm.ArmWords;
+import org.targetbench.pipeline.ArmWords;
 import org.targetbench.arm.HandEye;
 import org.targetbench.export.Safety;
 import org.targetbench.pipeline.ArmInputs;
@@ -173,7 +173,7 @@ final class ArmRehearsePanel extends JPanel {
             table.addRow(new Object[]{x.index(), x.outcome().label(), Ui.fmt(x.timeS(), 2), String.format(Locale.ROOT, "%.3g", x.minManipulability()),
                     Ui.fmt(x.minLimitMarginDeg(), 1), Ui.fmt(100 * x.peakSpeedRatio(), 0) + " %", ArmWords.flags(x)});
         StringBuilder w = new StringBuilder("<html>");
-        for (String s : r.warnings()) w.append(s).append("<br>");
+        for (String s : ArmWords.warnings(r)) w.append(s).append("<br>");
         r.advice().ifPresent(a -> w.append(ArmWords.advice(a)));
         notes.setText(w.append("</html>").toString());
         charts.removeAll();

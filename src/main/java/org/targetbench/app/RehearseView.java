@@ -115,7 +115,7 @@ final class RehearseView extends JPanel implements Session.Listener {
             row("closest approach to the target", Ui.fmt(s.minPlaneDistanceM(), 3) + " m");
             row("lost a point out of view", Integer.toString(s.lostFieldOfView()));
             row("lost track / timed out / retreated / singular", s.trackLost() + " / " + s.timeouts() + " / " + s.retreated() + " / " + s.singular());
-            warnings.setText(r.warnings().isEmpty() ? "No warnings." : "<html>" + String.join("<br>", r.warnings()) + "</html>");
+            warnings.setText(r.warnings().isEmpty() ? "No warnings." : "<html>" + String.join("<br>", org.targetbench.pipeline.Reasons.warnings(r)) + "</html>");
             for (JFreeChart ch : new JFreeChart[]{RehearsalReport.errorChart(r), RehearsalReport.pathsChart(r), RehearsalReport.mapChart(r)}) {
                 ChartPanel cp = new ChartPanel(ch);
                 cp.setPreferredSize(new Dimension(680, 340));

@@ -166,7 +166,7 @@ final class ServoView extends JPanel implements Session.Listener {
         figures.setText(String.format(Locale.ROOT, "<html><b>cond(L*) %.2f</b> &nbsp; sigma_min %.4f &nbsp; %d points &nbsp; detector %s</html>",
                 set.condition(), set.sigmaMin(), set.points().size(), set.detector()));
         var f = SetDiagnostics.check(set.points());
-        findings.setText(f.isEmpty() ? "No warnings." : "<html>" + f.stream().map(x -> x.severity() + ": " + x.message()).collect(Collectors.joining("<br>")) + "</html>");
+        findings.setText(f.isEmpty() ? "No warnings." : "<html>" + f.stream().map(x -> x.severity() + ": " + org.targetbench.pipeline.Reasons.finding(x)).collect(Collectors.joining("<br>")) + "</html>");
         for (ServoPoint p : set.points())
             chosen.addRow(new Object[]{p.id(), Ui.fmt(p.u(), 2), Ui.fmt(p.v(), 2), Ui.fmt(p.zM(), 4), p.reason()});
         if (pick != null) for (Selection.Rejected r : pick.selection().rejected())

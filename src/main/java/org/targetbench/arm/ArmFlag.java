@@ -1,6 +1,6 @@
 package org.targetbench.arm;
 
-/** Warnings about one run on the arm; never a clearance. Their sentences live in {@link ArmWords}. */
+/** Warnings about one run on the arm; never a clearance. Their sentences live in {@code pipeline.ArmWords}. */
 public enum ArmFlag {
     /** A joint reached a position limit. */
     JOINT_LIMIT_REACHED,

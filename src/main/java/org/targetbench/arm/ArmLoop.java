@@ -1,12 +1,11 @@
 package org.targetbench.arm;
 
-import boofcv.struct.distort.Point2Transform2_F64;
-import georegression.struct.point.Point2D_F64;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;
 import org.ejml.dense.row.factory.LinearSolverFactory_DDRM;
 import org.ejml.interfaces.linsol.LinearSolverDense;
 import org.targetbench.camera.CameraModel;
+import org.targetbench.servo.PointProjection;
 import org.targetbench.servo.DepthMode;
 import org.targetbench.servo.RehearsalConfig;
 import org.targetbench.servo.ServoController;
@@ -31,10 +30,8 @@ final class ArmLoop {
     private final ArmRehearsalConfig c;
     private final RehearsalConfig sc;
     private final int k;
-    private final boolean pinhole;
-    private final Point2Transform2_F64 toPixel, toNorm;
     private final ServoController controller;
-    private final Point2D_F64 p2 = new Point2D_F64();
+    private final PointProjection projection;
     private final double[] u, v, x, y, z;
     private final double[][] bufX, bufY, bufZ;
     private final double[] xi = new double[6], twist = new double[6], qd = new double[J];
@@ -49,9 +46,7 @@ final class ArmLoop {
         c = config;
         sc = config.servo;
         k = scene.uStar().length;
-        pinhole = !scene.camera().isDistorted();
-        toPixel = scene.camera().normalisedToPixel();
-        toNorm = scene.camera().pixelToNormalised();
+        projection = new PointProjection(scene.camera());
         double[] zStarEst = scene.zStar().clone();
         if (sc.depthMode == DepthMode.SCALED) for (int i = 0; i < k; i++) zStarEst[i] *= sc.depthErrorFactor;
         controller = new ServoController(scene.xStar(), scene.yStar(), zStarEst, sc.lambda, sc.law);
@@ -250,61 +245,15 @@ final class ArmLoop {
 
     /** Projects the true points for a camera pose in the target frame; returns the first point out of view, or -1. */
     int project(double[] g) {
-        double[][] pw = s.targetPoints();
-        CameraModel cam = s.camera();
-        for (int i = 0; i < k; i++) {
-            double dx = pw[i][0] - g[3], dy = pw[i][1] - g[7], dz = pw[i][2] - g[11];
-            double X = g[0] * dx + g[4] * dy + g[8] * dz, Y = g[1] * dx + g[5] * dy + g[9] * dz, Z = g[2] * dx + g[6] * dy + g[10] * dz;
-            if (!(Z > 0)) return i;
-            x[i] = X / Z;
-            y[i] = Y / Z;
-            z[i] = Z;
-            if (pinhole) {
-                u[i] = cam.fx() * x[i] + cam.cx();
-                v[i] = cam.fy() * y[i] + cam.cy();
-            } else {
-                toPixel.compute(x[i], y[i], p2);
-                u[i] = p2.x;
-                v[i] = p2.y;
-            }
-            if (!cam.inImage(u[i], v[i])) return i;
-        }
-        return -1;
+        return projection.project(s.targetPoints(), g, 4, g[3], g[7], g[11], x, y, z, u, v);
     }
 
     private double errorRms() {
-        double sum = 0;
-        for (int i = 0; i < k; i++) {
-            double du = u[i] - s.uStar()[i], dv = v[i] - s.vStar()[i];
-            sum += du * du + dv * dv;
-        }
-        return Math.sqrt(sum / k);
+        return PointProjection.errorRms(u, v, s.uStar(), s.vStar());
     }
 
     private void measure(SplittableRandom rng, double[] xm, double[] ym, double[] zEst) {
-        CameraModel cam = s.camera();
-        for (int i = 0; i < k; i++) {
-            double sigma = s.noisePx()[i];
-            if (sigma > 0) {
-                double um = u[i] + sigma * gaussian(rng), vm = v[i] + sigma * gaussian(rng);
-                if (pinhole) {
-                    xm[i] = (um - cam.cx()) / cam.fx();
-                    ym[i] = (vm - cam.cy()) / cam.fy();
-                } else {
-                    toNorm.compute(um, vm, p2);
-                    xm[i] = p2.x;
-                    ym[i] = p2.y;
-                }
-            } else {
-                xm[i] = x[i];
-                ym[i] = y[i];
-            }
-            zEst[i] = switch (sc.depthMode) {
-                case TRUE -> z[i];
-                case CONSTANT -> s.zStar()[i];
-                case SCALED -> s.zStar()[i] * sc.depthErrorFactor;
-            };
-        }
+        projection.measure(rng, s.noisePx(), x, y, z, u, v, s.zStar(), sc.depthMode, sc.depthErrorFactor, xm, ym, zEst);
     }
 
     static long runSeed(long seed, int index) {
@@ -314,9 +263,4 @@ final class ArmLoop {
         return h ^ (h >>> 31);
     }
 
-    private static double gaussian(SplittableRandom rng) {
-        double a = rng.nextDouble();
-        double b = rng.nextDouble();
-        return Math.sqrt(-2 * Math.log(1 - a)) * Math.cos(2 * Math.PI * b);
-    }
 }

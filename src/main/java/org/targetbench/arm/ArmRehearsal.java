@@ -5,6 +5,7 @@ import org.ejml.dense.row.factory.LinearSolverFactory_DDRM;
 import org.ejml.interfaces.linsol.LinearSolverDense;
 import org.targetbench.camera.Pose;
 import org.targetbench.camera.PoseEstimation;
+import org.targetbench.servo.ParallelRuns;
 import org.targetbench.servo.RehearsalConfig;
 import org.targetbench.servo.ServoPoint;
 import org.targetbench.servo.ServoSet;
@@ -14,10 +15,6 @@ import java.util.Arrays;
 import java.util.List;
 import java.util.Optional;
 import java.util.SplittableRandom;
-import java.util.concurrent.ExecutionException;
-import java.util.concurrent.ExecutorService;
-import java.util.concurrent.Executors;
-import java.util.concurrent.Future;
 
 /**
  * Rehearses a servo set on a six-axis arm with the camera on its flange, before the robot moves.
@@ -73,10 +70,8 @@ public final class ArmRehearsal {
         ArmRunTrace[] traces = new ArmRunTrace[Math.min(starts.size(), c.servo.tracedRuns)];
         runAll(scene, c, starts, results, traces);
         HandEye believed = handEye.perturbed(c.handEyeErrorDeg, c.handEyeErrorMm);
-        ArmRehearsalResult partial = new ArmRehearsalResult(arm, handEye, believed, c, scene.referenceJoints(), method[0], List.of(results),
-                List.of(traces), List.of(), Optional.empty(), scene.baseToTarget());
-        return new ArmRehearsalResult(arm, handEye, believed, c, scene.referenceJoints(), method[0], partial.runs(), partial.traces(),
-                ArmWords.warnings(partial), Optional.empty(), scene.baseToTarget());
+        return new ArmRehearsalResult(arm, handEye, believed, c, scene.referenceJoints(), method[0], List.of(results),
+                List.of(traces), Optional.empty(), scene.baseToTarget());
     }
 
     /** As {@link #run} and then the gain sweep over {@code lambdas} (1/s) on the same starts. */
@@ -86,7 +81,7 @@ public final class ArmRehearsal {
         List<double[]> starts = r.runs().stream().map(ArmRunResult::startJointsRad).toList();
         GainAdvice a = advise(set, arm, handEye, config, starts, lambdas);
         return new ArmRehearsalResult(r.arm(), r.handEye(), r.handEyeBelieved(), r.config(), r.referenceJointsRad(), r.poseMethod(), r.runs(),
-                r.traces(), r.warnings(), Optional.of(a), r.baseToTarget());
+                r.traces(), Optional.of(a), r.baseToTarget());
     }
 
     /** The gain sweep: every λ from every start, without traces. */
@@ -119,33 +114,11 @@ public final class ArmRehearsal {
     private static void runAll(ArmLoop.Scene scene, ArmRehearsalConfig c, List<double[]> starts, ArmRunResult[] results, ArmRunTrace[] traces)
             throws InterruptedException {
         int n = starts.size();
-        ExecutorService pool = Executors.newFixedThreadPool(Math.max(1, Math.min(c.servo.threads, n)), r -> {
-            Thread t = new Thread(r, "targetbench-arm-rehearse");
-            t.setDaemon(true);
-            return t;
+        ParallelRuns.run(n, Math.max(1, Math.min(c.servo.threads, n)), BLOCK, "targetbench-arm-rehearse", () -> new ArmLoop(scene, c), (loop, i) -> {
+            ArmRunTrace[] slot = i < traces.length ? new ArmRunTrace[1] : null;
+            results[i] = loop.run(i, starts.get(i), slot);
+            if (slot != null) traces[i] = slot[0];
         });
-        try {
-            List<Future<?>> futures = new ArrayList<>();
-            ThreadLocal<ArmLoop> loops = ThreadLocal.withInitial(() -> new ArmLoop(scene, c));
-            for (int b = 0; b < n; b += BLOCK) {
-                int from = b, to = Math.min(n, b + BLOCK);
-                futures.add(pool.submit(() -> {
-                    ArmLoop loop = loops.get();
-                    ArmRunTrace[] slot = new ArmRunTrace[1];
-                    for (int i = from; i < to; i++) {
-                        boolean traced = i < traces.length;
-                        results[i] = loop.run(i, starts.get(i), traced ? slot : null);
-                        if (traced) traces[i] = slot[0];
-                    }
-                }));
-            }
-            for (Future<?> f : futures) f.get();
-        } catch (ExecutionException e) {
-            if (e.getCause() instanceof RuntimeException re) throw re;
-            throw new IllegalStateException(e.getCause());
-        } finally {
-            pool.shutdownNow();
-        }
     }
 
     /** Checks that every start is 6 finite joints within the limits. */

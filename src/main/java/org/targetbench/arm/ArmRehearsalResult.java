@@ -4,7 +4,8 @@ import java.util.List;
 import java.util.Optional;
 
 /**
- * The result of a rehearsal on the arm.
+ * The result of a rehearsal on the arm. Its warnings follow from the runs' flags and the configuration; {@code
+ * pipeline.ArmWords} renders them.
  *
  * @param arm              the arm
  * @param handEye          the hand-eye transform the cell has (the truth of the simulation)
@@ -13,19 +14,17 @@ import java.util.Optional;
  * @param poseMethod       how the set's reference pose was obtained
  * @param runs             every run
  * @param traces           the kept traces
- * @param warnings         plain-word warnings over all runs (rendered by {@link ArmWords})
  * @param advice           the gain advice, when asked for
  * @param baseToTarget     the target's pose in the base frame, 4 x 4 row major (for drawings)
  */
 public record ArmRehearsalResult(ArmModel arm, HandEye handEye, HandEye handEyeBelieved, ArmRehearsalConfig config, double[] referenceJointsRad,
-                                 String poseMethod, List<ArmRunResult> runs, List<ArmRunTrace> traces, List<String> warnings,
+                                 String poseMethod, List<ArmRunResult> runs, List<ArmRunTrace> traces,
                                  Optional<GainAdvice> advice, double[] baseToTarget) {
     public ArmRehearsalResult {
         config = config.copy();
         referenceJointsRad = referenceJointsRad.clone();
         runs = List.copyOf(runs);
         traces = List.copyOf(traces);
-        warnings = List.copyOf(warnings);
         baseToTarget = baseToTarget.clone();
     }
 

@@ -11,7 +11,6 @@ import org.ejml.interfaces.linsol.LinearSolverDense;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
-import java.util.Locale;
 
 /**
  * Hand-eye calibration of an eye-in-hand camera: X (camera in flange) from flange poses in the robot base and target
@@ -49,25 +48,31 @@ public final class HandEyeCalibration {
     /** Motions with rotations smaller than this carry no axis, degrees. */
     public static final double MIN_ROTATION_DEG = 0.5;
 
-    /** Why a calibration could not be made; rendered by {@link #describe}. */
+    /** Why a calibration could not be made; rendered by {@code pipeline.ArmWords.handEyeFailure}. */
     public enum Failure { TOO_FEW_VIEWS, ONE_ROTATION_AXIS, NO_SOLUTION }
 
-    /** A result or a typed failure. */
-    public record Outcome(HandEye handEye, Failure failure, String detail) {
+    /**
+     * A result or a typed failure with its numbers.
+     *
+     * @param views         views given
+     * @param axisSpreadDeg ONE_ROTATION_AXIS: spread of the relative rotation axes, degrees; NaN when no view pair
+     *                      rotates more than {@link #MIN_ROTATION_DEG}
+     * @param detail        NO_SOLUTION: the numerical step that failed, as the linear algebra reports it; else empty
+     */
+    public record Outcome(HandEye handEye, Failure failure, int views, double axisSpreadDeg, String detail) {
         public boolean ok() { return handEye != null; }
+
+        /** Fewer than three views were given. */
+        public static Outcome tooFewViews(int views) {
+            return failed(Failure.TOO_FEW_VIEWS, views, Double.NaN, "");
+        }
+
+        static Outcome failed(Failure f, int views, double axisSpreadDeg, String detail) {
+            return new Outcome(null, f, views, axisSpreadDeg, detail);
+        }
     }
 
     private HandEyeCalibration() {}
-
-    /** One line for a failure. */
-    public static String describe(Failure f, String detail) {
-        return switch (f) {
-            case TOO_FEW_VIEWS -> "hand-eye calibration needs at least 3 views with flange poses and target poses, got " + detail;
-            case ONE_ROTATION_AXIS -> "degenerate hand-eye views: every flange rotation between views is about one axis (" + detail
-                    + "); tilt the flange about at least two different axes between views (Tsai & Lenz 1989)";
-            case NO_SOLUTION -> "hand-eye calibration failed: " + detail;
-        };
-    }
 
     /**
      * @param flangeInBase  F_i, 4 x 4 row major
@@ -79,7 +84,7 @@ public final class HandEyeCalibration {
     public static Outcome calibrate(List<double[]> flangeInBase, List<double[]> targetInCamera, List<String> names, double[] flip) {
         int n = flangeInBase.size();
         if (n != targetInCamera.size() || n != names.size()) throw new IllegalArgumentException("views, poses and names differ in number");
-        if (n < 3) return new Outcome(null, Failure.TOO_FEW_VIEWS, Integer.toString(n));
+        if (n < 3) return Outcome.failed(Failure.TOO_FEW_VIEWS, n, Double.NaN, "");
         List<double[]> c = new ArrayList<>(targetInCamera);
         boolean[] flipped = new boolean[n];
         if (flip != null) {
@@ -108,8 +113,7 @@ public final class HandEyeCalibration {
             }
         double spread = axisSpreadDeg(axes);
         if (axes.size() < 2 || spread < DEGENERATE_AXIS_DEG)
-            return new Outcome(null, Failure.ONE_ROTATION_AXIS, axes.isEmpty() ? "no view pair rotates more than " + MIN_ROTATION_DEG + " deg"
-                    : String.format(Locale.ROOT, "their axes spread by %.2f deg", spread));
+            return Outcome.failed(Failure.ONE_ROTATION_AXIS, n, axes.isEmpty() ? Double.NaN : spread, "");
         DMatrixRMaj m = new DMatrixRMaj(3, 3);
         List<double[][]> pairs = new ArrayList<>();
         for (int i = 0; i < n; i++)
@@ -123,7 +127,7 @@ public final class HandEyeCalibration {
             }
         // R_X = (MᵀM)^(-1/2) Mᵀ = V Uᵀ for M = U S Vᵀ (with a sign fix for a proper rotation)
         SingularValueDecomposition_F64<DMatrixRMaj> svd = DecompositionFactory_DDRM.svd(3, 3, true, true, false);
-        if (!svd.decompose(m.copy())) return new Outcome(null, Failure.NO_SOLUTION, "the SVD of M did not converge");
+        if (!svd.decompose(m.copy())) return Outcome.failed(Failure.NO_SOLUTION, n, Double.NaN, "the SVD of M did not converge");
         DMatrixRMaj u = svd.getU(null, false), v = svd.getV(null, false);
         DMatrixRMaj rx = new DMatrixRMaj(3, 3);
         CommonOps_DDRM.multTransB(v, u, rx);
@@ -146,7 +150,7 @@ public final class HandEyeCalibration {
         }
         LinearSolverDense<DMatrixRMaj> ls = LinearSolverFactory_DDRM.leastSquares(lhs.numRows, 3);
         DMatrixRMaj t = new DMatrixRMaj(3, 1);
-        if (!ls.setA(lhs)) return new Outcome(null, Failure.NO_SOLUTION, "the translation equations are singular");
+        if (!ls.setA(lhs)) return Outcome.failed(Failure.NO_SOLUTION, n, Double.NaN, "the translation equations are singular");
         ls.solve(rhs, t);
         double[] x = Rigid.of(r, t.data);
         // per-view residuals: each view's target pose in the base against the median
@@ -165,9 +169,9 @@ public final class HandEyeCalibration {
             views.add(new HandEye.ViewResidual(names.get(i), rd[i], td[i], out, flipped[i]));
         }
         try {
-            return new Outcome(new HandEye(Rigid.rotation(x), Rigid.translation(x), views, METHOD), null, "");
+            return new Outcome(new HandEye(Rigid.rotation(x), Rigid.translation(x), views, METHOD), null, n, Double.NaN, "");
         } catch (IllegalArgumentException e) {
-            return new Outcome(null, Failure.NO_SOLUTION, e.getMessage());
+            return Outcome.failed(Failure.NO_SOLUTION, n, Double.NaN, e.getMessage());
         }
     }
 

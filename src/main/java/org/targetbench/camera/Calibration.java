@@ -51,8 +51,22 @@ public final class Calibration {
     /** What {@link #solve} gives: a {@link CalibrationResult} or a {@link Failure}. */
     public sealed interface Outcome permits CalibrationResult, Failure {}
 
-    /** Expected failure of {@link #solve}: what went wrong, for people. */
-    public record Failure(String reason) implements Outcome {}
+    /**
+     * Expected failure of {@link #solve}, with its numbers; {@code pipeline.Reasons.calibrationFailure} renders it.
+     *
+     * @param found    frames in which the board was found
+     * @param frames   frames given
+     * @param minViews views needed ({@link CalibrationConfig#minViews})
+     * @param detail   NOT_CONVERGED: the optimiser's own message; else empty
+     */
+    public record Failure(Kind kind, int found, int frames, int minViews, String detail) implements Outcome {
+        public enum Kind {
+            /** The board was found in fewer than {@code minViews} frames. */
+            TOO_FEW_VIEWS,
+            /** The optimisation did not converge. */
+            NOT_CONVERGED
+        }
+    }
 
     /**
      * BoofCV 1.2.2's x-corner chessboard detector reports corners half a pixel right of and below the pixel-centre
@@ -116,8 +130,7 @@ public final class Calibration {
         List<Integer> used = new ArrayList<>();
         for (int i = 0; i < detections.size(); i++) if (detections.get(i).isPresent()) used.add(i);
         if (used.size() < config.minViews)
-            return new Failure("the board was found in " + used.size() + " of " + names.size() + " frames; calibration needs at least "
-                    + config.minViews + " views");
+            return new Failure(Failure.Kind.TOO_FEW_VIEWS, used.size(), names.size(), config.minViews, "");
         CalibrateMonoPlanar cal = new CalibrateMonoPlanar();
         cal.configurePinhole(true, config.radialTerms, config.tangential);
         cal.initialize(width, height, List.of(detector.getLayout()));
@@ -131,7 +144,7 @@ public final class Calibration {
         try {
             found = cal.process();
         } catch (RuntimeException e) {
-            return new Failure("the calibration did not converge (" + e.getMessage() + "); add views with the board tilted and in different parts of the image");
+            return new Failure(Failure.Kind.NOT_CONVERGED, used.size(), names.size(), config.minViews, String.valueOf(e.getMessage()));
         }
         found.skew = 0; // zero skew was imposed; clear rounding dust
         CameraModel camera = CameraModel.fromBoofcv(found);

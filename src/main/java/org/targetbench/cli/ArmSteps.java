@@ -5,7 +5,7 @@ import org.targetbench.arm.ArmRehearsal;
 import org.targetbench.arm.ArmRehearsalConfig;
 import org.targetbench.arm.ArmRehearsalResult;
 import org.targetbench.arm.ArmRunResult;
-import org.targetbench.arm.ArmWords;
+import org.targetbench.pipeline.ArmWords;
 import org.targetbench.arm.HandEye;
 import org.targetbench.export.ArmWriters;
 import org.targetbench.export.AtomicOutput;
@@ -84,12 +84,17 @@ final class ArmSteps {
         } catch (IllegalArgumentException e) {
             throw new UserError("arm rehearsal of " + p.setName() + ": " + e.getMessage());
         }
+        write(r, p.set(), p.setName(), out, prefix);
+        return r;
+    }
+
+    /** Writes a rehearsal on the arm under {@code prefix}: runs, summary, hand-eye, arm (for a DH arm) and the report. */
+    static void write(ArmRehearsalResult r, ServoSet set, String setName, AtomicOutput out, String prefix) throws IOException {
         ArmWriters.writeRuns(r, out.file(prefix + "arm-rehearsal.csv"));
         ArmWriters.writeSummary(r, out.file(prefix + "arm-rehearsal-summary.json"));
         ArmWriters.writeHandEye(r.handEye(), out.file(prefix + "handeye.json"));
         if (!r.arm().dh().isEmpty()) ArmWriters.writeArm(r.arm(), r.referenceJointsRad(), out.file(prefix + "arm.json"));
-        ArmReport.write(r, p.set(), p.setName(), out, prefix);
-        return r;
+        ArmReport.write(r, set, setName, out, prefix);
     }
 
     static void print(ArmRehearsalResult r, PrintWriter w) {
@@ -104,7 +109,7 @@ final class ArmSteps {
         ArmRunResult fast = r.runs().stream().max((a, b) -> Double.compare(a.peakSpeedRatio(), b.peakSpeedRatio())).orElse(null);
         if (fast != null) w.printf(Locale.ROOT, "  peak joint speed     %.0f %% of its limit (joint %d, run %d)%n", 100 * fast.peakSpeedRatio(), fast.peakSpeedJoint(), fast.index());
         r.advice().ifPresent(a -> w.println("  gain advice          " + ArmWords.advice(a)));
-        for (String s : r.warnings()) w.println("Warning: " + s);
+        for (String s : ArmWords.warnings(r)) w.println("Warning: " + s);
         w.println("Not modelled: " + ArmWords.NOT_MODELLED);
     }
 }

@@ -88,7 +88,7 @@ final class CalibrateCommand implements Callable<Integer> {
         if (outcome instanceof Calibration.Failure fail) {
             List<String> used = new ArrayList<>();
             for (int i = 0; i < names.size(); i++) if (found.get(i).isPresent()) used.add(names.get(i));
-            throw new UserError(fail.reason() + " (board found in: " + String.join(", ", used) + ")");
+            throw new UserError(org.targetbench.pipeline.Reasons.calibrationFailure(fail) + " (board found in: " + String.join(", ", used) + ")");
         }
         CalibrationResult r = (CalibrationResult) outcome;
         List<String> written;

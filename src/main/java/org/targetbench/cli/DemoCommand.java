@@ -54,8 +54,8 @@ final class DemoCommand implements Callable<Integer> {
 
     @Mixin DetectorOptions detectorOptions;
 
-    /** The demo's stages: the run's own, then the rehearsal on the demo arm. */
-    static final List<String> STAGES = java.util.stream.Stream.concat(DemoRun.STAGES.stream(), java.util.stream.Stream.of("arm rehearsal")).toList();
+    /** The demo's stages, as the run has them. */
+    static final List<String> STAGES = DemoRun.STAGES;
 
     /** Commits the stages done and says so in one line; exit code 130. */
     private static int stopped(AtomicOutput output, PrintWriter w, int stagesDone) throws org.targetbench.export.OutputException {
@@ -119,9 +119,10 @@ final class DemoCommand implements Callable<Integer> {
             List<String> setFiles = ServoSteps.writePick(pick, output, "servo-set");
             RehearsalResult rehearsal = demo.rehearsal();
             ServoSteps.writeRehearsal(rehearsal, pick.set().get(), setName, demo.rehearsalSeconds(), output, "rehearsal/");
-            if (demo.stagesDone() < 5 || job.cancelled()) return stopped(output, w, demo.stagesDone());
+            if (demo.stagesDone() < 6) return stopped(output, w, demo.stagesDone());
             org.targetbench.pipeline.TrackResult tracking = demo.tracking();
-            var armRehearsal = DemoArmStep.run(pick.set().orElseThrow(), setName, output);
+            var armRehearsal = demo.arm();
+            ArmSteps.write(armRehearsal, pick.set().get(), setName, output, "arm/");
             if (job.cancelled()) return stopped(output, w, STAGES.size());
             output.commit();
             Path target = output.target();
@@ -151,7 +152,11 @@ final class DemoCommand implements Callable<Integer> {
             w.println("Rehearsal:   " + target.resolve("rehearsal/rehearsal.html") + " (charts), rehearsal.csv, rehearsal-summary.json");
             w.println("Try:         targetbench rehearse --set " + target.resolve(setFiles.get(0)) + " --law current --envelope 20,20,20,5,5,170 --out results/what-if");
             TrackConsole.print(tracking, w);
-            DemoArmStep.print(armRehearsal, target, w);
+            w.println();
+            ArmSteps.print(armRehearsal, w);
+            w.println("Arm:         " + target.resolve("arm/arm-rehearsal.html") + " (joint, manipulability and limit-margin charts, three-view drawing)");
+            w.println("Try:         targetbench rehearse --set " + target.resolve("servo-set.json") + " --arm " + target.resolve("arm/arm.json")
+                    + " --hand-eye " + target.resolve("arm/handeye.json") + " --latency-frames 2 --gain-sweep --out results/arm-what-if");
             w.println();
             w.println("Safety: " + Safety.NOTICE);
             w.flush();

@@ -8,6 +8,7 @@ import org.targetbench.camera.CameraModel;
 import org.targetbench.export.ArmWriters;
 import org.targetbench.export.AtomicOutput;
 import org.targetbench.export.Safety;
+import org.targetbench.pipeline.ArmWords;
 import org.targetbench.pipeline.HandEyeRun;
 import org.targetbench.source.CameraFiles;
 import org.targetbench.source.FlangePosesFile;
@@ -53,7 +54,7 @@ final class HandEyeCommand implements Callable<Integer> {
         Calibration.Board board = board(design);
         CameraModel cam = CameraFiles.read(camera);
         Map<String, double[]> flange = FlangePosesFile.read(poses);
-        if (flange.size() < 3) throw new UserError(HandEyeCalibration.describe(HandEyeCalibration.Failure.TOO_FEW_VIEWS, flange.size() + " in " + poses));
+        if (flange.size() < 3) throw new UserError(ArmWords.handEyeFailure(HandEyeCalibration.Outcome.tooFewViews(flange.size()), poses.toString()));
         HandEyeRun.Result r;
         try (ImageFolderSource src = ImageFolderSource.open(frames, null)) {
             if (src.width() != cam.width() || src.height() != cam.height())
@@ -61,7 +62,7 @@ final class HandEyeCommand implements Callable<Integer> {
             r = HandEyeRun.run(src, flange, cam, board, new ConsoleProgress("detecting"));
         }
         if (!r.outcome().ok()) {
-            String why = HandEyeCalibration.describe(r.outcome().failure(), r.outcome().detail());
+            String why = ArmWords.handEyeFailure(r.outcome(), null);
             throw new UserError(why + (r.skipped().isEmpty() ? "" : " (" + r.skipped().size() + " frames skipped, first: " + r.skipped().get(0).frame()
                     + ": " + r.skipped().get(0).reason() + ")"));
         }

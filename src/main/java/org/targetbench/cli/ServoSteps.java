@@ -59,7 +59,7 @@ final class ServoSteps {
     static void printPick(PickRun.Result r, String from, PrintWriter w) {
         Selection s = r.selection();
         ServoSet set = r.set().orElseThrow();
-        w.printf(Locale.ROOT, "Servo set from %s: detector %s, %s; %s.%n", from, r.detector(), Reasons.selection(s), s.method());
+        w.printf(Locale.ROOT, "Servo set from %s: detector %s, %s; %s.%n", from, r.detector(), Reasons.selection(s), Reasons.search(s.search()));
         w.println("Reference pose: " + r.poseMethod());
         w.printf(Locale.ROOT, "cond(L*) %.2f, sigma_min %.4f (translational columns scaled by Z*), image coverage %.0f%%%n",
                 s.condition(), s.sigmaMin(), 100 * s.coverage());
@@ -71,13 +71,13 @@ final class ServoSteps {
         for (Selection.Rejected rj : s.rejected()) why.merge(rj.why(), 1, Integer::sum);
         String b = Reasons.tally(why, true);
         w.println("Rejected " + s.rejected().size() + " candidates" + (b.isEmpty() ? "" : " (" + b + ")") + "; every reason is in the selection CSV.");
-        for (SetDiagnostics.Finding f : SetDiagnostics.check(set.points())) w.println("Warning: " + f.message());
+        for (SetDiagnostics.Finding f : SetDiagnostics.check(set.points())) w.println("Warning: " + Reasons.finding(f));
     }
 
     /** Refuses sets that must not be rehearsed (fewer than 4 points, collinear), with one line naming the file. */
     static void checkSet(ServoSet set, String name) {
         for (SetDiagnostics.Finding f : SetDiagnostics.check(set.points()))
-            if (f.severity() == SetDiagnostics.Severity.ERROR) throw new UserError("servo set " + name + ": " + f.message());
+            if (f.severity() == SetDiagnostics.Severity.ERROR) throw new UserError("servo set " + name + ": " + Reasons.finding(f));
     }
 
     /** Rehearses and writes rehearsal.csv, rehearsal-summary.json, the charts and rehearsal.html under {@code prefix}. */
@@ -117,7 +117,7 @@ final class ServoSteps {
                 s.lostFieldOfView(), s.trackLost(), s.timeouts(), s.retreated(), s.singular());
         if (s.redrawnStarts() > 0)
             w.printf(Locale.ROOT, "  redrawn starts       %d (a point was out of view at the drawn start)%n", s.redrawnStarts());
-        for (String warn : r.warnings()) w.println("Warning: " + warn);
+        for (String warn : Reasons.warnings(r)) w.println("Warning: " + warn);
     }
 
     /** A run that completed but found no acceptable result: one line on stderr, exit code 1, nothing written. */

@@ -1,6 +1,7 @@
 package org.targetbench.cli;
 
 import org.targetbench.pipeline.Progress;
+import org.targetbench.source.ForwardingSource;
 import org.targetbench.source.FrameSource;
 import org.targetbench.source.SourceException;
 import org.targetbench.source.SourceFrame;
@@ -14,8 +15,7 @@ import java.util.function.BooleanSupplier;
  * it has started and scores those. It also keeps reading at most {@code ahead} frames ahead of the frames finished (as
  * reported through {@link #progress}), so that "the frames it has started" stays a handful, not the whole folder.
  */
-final class StoppableFrames implements FrameSource {
-    private final FrameSource source;
+final class StoppableFrames extends ForwardingSource {
     private final BooleanSupplier stop;
     private final int ahead;
     private final AtomicInteger finished = new AtomicInteger();
@@ -23,7 +23,7 @@ final class StoppableFrames implements FrameSource {
     private boolean stopped;
 
     StoppableFrames(FrameSource source, BooleanSupplier stop, int ahead) {
-        this.source = source;
+        super(source);
         this.stop = stop;
         this.ahead = Math.max(1, ahead);
     }
@@ -61,12 +61,4 @@ final class StoppableFrames implements FrameSource {
         return f;
     }
 
-    @Override public String description() { return source.description(); }
-    @Override public int width() { return source.width(); }
-    @Override public int height() { return source.height(); }
-    @Override public int frameCount() { return source.frameCount(); }
-    @Override public String referenceName() { return source.referenceName(); }
-    @Override public int skippedFrames() { return source.skippedFrames(); }
-    @Override public Optional<String> endNote() { return source.endNote(); }
-    @Override public void close() { source.close(); }
 }

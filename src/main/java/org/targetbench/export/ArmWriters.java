@@ -8,7 +8,7 @@ import org.targetbench.Version;
 import org.targetbench.arm.ArmModel;
 import org.targetbench.arm.ArmRehearsalResult;
 import org.targetbench.arm.ArmRunResult;
-import org.targetbench.arm.ArmWords;
+import org.targetbench.pipeline.ArmWords;
 import org.targetbench.arm.DhRow;
 import org.targetbench.arm.GainAdvice;
 import org.targetbench.arm.HandEye;
@@ -141,7 +141,7 @@ public final class ArmWriters {
             }
         });
         ArrayNode w = root.putArray("warnings");
-        r.warnings().forEach(w::add);
+        ArmWords.warnings(r).forEach(w::add);
         root.put("not_modelled", ArmWords.NOT_MODELLED);
         root.put("safety", Safety.NOTICE);
         Files.writeString(file, MAPPER.writeValueAsString(root) + "\n", StandardCharsets.UTF_8);

@@ -106,7 +106,7 @@ public final class ServoWriters {
                 .put("retreated", m.retreated()).put("singular", m.singular())
                 .put("redrawn_starts", m.redrawnStarts());
         ArrayNode w = root.putArray("warnings");
-        r.warnings().forEach(w::add);
+        org.targetbench.pipeline.Reasons.warnings(r).forEach(w::add);
         root.put("elapsed_s", elapsedS);
         return root;
     }

@@ -1,5 +1,9 @@
 package org.targetbench.pipeline;
 
+import org.targetbench.arm.ArmRehearsalConfig;
+import org.targetbench.arm.ArmRehearsalResult;
+import org.targetbench.arm.DemoArm;
+import org.targetbench.arm.HandEye;
 import org.targetbench.detect.DetectorConfig;
 import org.targetbench.detect.DetectorType;
 import org.targetbench.perturb.PerturbKind;
@@ -9,6 +13,7 @@ import org.targetbench.select.SelectConfig;
 import org.targetbench.servo.Rehearsal;
 import org.targetbench.servo.RehearsalConfig;
 import org.targetbench.servo.RehearsalResult;
+import org.targetbench.servo.ServoSet;
 import org.targetbench.source.FrameList;
 import org.targetbench.source.SourceException;
 import org.targetbench.source.SourceFrame;
@@ -23,8 +28,9 @@ import java.util.function.BooleanSupplier;
 
 /**
  * The demo scenario as one run ({@link DemoScenario}): render the frames with truth, compare the detectors on them,
- * a short stress sweep, pick a servo set from the comparison and rehearse it, and track the arm's approach. The
- * command line writes and prints what it returns; nothing here touches files.
+ * a short stress sweep, pick a servo set from the comparison and rehearse it, track the arm's approach, and rehearse
+ * the set on the invented demo arm with one period of image latency and the gain sweep. The command line writes and
+ * prints what it returns; nothing here touches files.
  */
 public final class DemoRun {
     /** Size of the demo's short stress sweep: every kind's main parameter at this many levels on this many views. */
@@ -39,6 +45,12 @@ public final class DemoRun {
     public static final DetectorType TRACK_SEEDING = DetectorType.SHI_TOMASI;
     /** Frame at which the demo's tracking reports survival. */
     public static final int SURVIVAL_AT_FRAME = 30;
+    /** Starts on the demo arm: few, so the gain sweep stays quick. */
+    public static final int ARM_STARTS = 12;
+    /** Runs of the arm rehearsal whose traces are kept for the charts. */
+    public static final int ARM_TRACED_RUNS = 8;
+    /** Image latency of the demo's arm rehearsal, controller periods. */
+    public static final int ARM_LATENCY_FRAMES = 1;
 
     private DemoRun() {}
 
@@ -48,7 +60,7 @@ public final class DemoRun {
      * @param rehearsalSeconds wall-clock time of the rehearsal, seconds
      */
     public record Result(List<SourceFrame> frames, CompareResult compare, SweepResult sweep, PickRun.Result pick,
-                         RehearsalResult rehearsal, double rehearsalSeconds, TrackResult tracking, int stagesDone) {
+                         RehearsalResult rehearsal, double rehearsalSeconds, TrackResult tracking, ArmRehearsalResult arm, int stagesDone) {
         /** True when a stop request ended the run before its last stage; the later fields are then null. */
         public boolean stoppedEarly() {
             return stagesDone < STAGES.size();
@@ -59,7 +71,7 @@ public final class DemoRun {
      * The demo's stages, in order. A stop request is honoured between stages (a sweep or tracking run cut short keeps
      * the part it finished and counts as done); the result then holds the stages done and null for the rest.
      */
-    public static final List<String> STAGES = List.of("frames", "compare", "stress sweep", "servo set and rehearsal", "tracking");
+    public static final List<String> STAGES = List.of("frames", "compare", "stress sweep", "servo set and rehearsal", "tracking", "arm rehearsal");
 
     /** Where the run reports and what it streams to. */
     public interface Steps {
@@ -101,23 +113,37 @@ public final class DemoRun {
                 p.update(frames.size(), src.frameCount(), f.get().name());
             }
         }
-        if (steps.cancelled()) return new Result(frames, null, null, null, null, 0, null, 1);
+        if (steps.cancelled()) return new Result(frames, null, null, null, null, 0, null, null, 1);
         String reference = DemoScenario.source().referenceName();
         CompareResult compare = new CompareRun(configs, epsilon)
                 .run(new FrameList(framesDescription, frames, reference), steps.progress("detecting"));
-        if (steps.cancelled()) return new Result(frames, compare, null, null, null, 0, null, 2);
+        if (steps.cancelled()) return new Result(frames, compare, null, null, null, 0, null, null, 2);
         SweepResult sweep = new SweepRun(sweepConfig(configs, epsilon)).run(SweepBase.render(DemoScenario.target(), DemoScenario.camera(),
                 DemoScenario.lighting(), DemoScenario.STANDOFF_M, SWEEP_VIEWS, 1), steps.progress("stress sweep"), steps::cancelled);
-        if (steps.cancelled()) return new Result(frames, compare, sweep, null, null, 0, null, 3);
+        if (steps.cancelled()) return new Result(frames, compare, sweep, null, null, 0, null, null, 3);
         PickRun.Result pick = PickRun.run(pickInput.apply(compare, frames), null, new CandidateConfig(), new SelectConfig(), toolVersion, created);
         RehearsalConfig rc = new RehearsalConfig();
         rc.starts = REHEARSAL_STARTS;
         long t0 = System.nanoTime();
         RehearsalResult rehearsal = pick.set().isPresent() ? Rehearsal.run(pick.set().get(), rc) : null;
         double seconds = (System.nanoTime() - t0) / 1e9;
-        if (steps.cancelled()) return new Result(frames, compare, sweep, pick, rehearsal, seconds, null, 4);
+        if (steps.cancelled()) return new Result(frames, compare, sweep, pick, rehearsal, seconds, null, null, 4);
         TrackResult tracking = new TrackRun(new KltConfig(), DetectorConfig.defaults(TRACK_SEEDING), SURVIVAL_AT_FRAME, false, 0)
                 .run(MotionScenarios.open(TRACK_MOTION), steps.trackSink(), steps.progress("tracking"), steps::cancelled);
-        return new Result(frames, compare, sweep, pick, rehearsal, seconds, tracking, 5);
+        if (steps.cancelled() || pick.set().isEmpty()) return new Result(frames, compare, sweep, pick, rehearsal, seconds, tracking, null, 5);
+        ArmRehearsalResult arm = ArmRun.run(armRequest(pick.set().get()));
+        return new Result(frames, compare, sweep, pick, rehearsal, seconds, tracking, arm, 6);
+    }
+
+    /** The demo's rehearsal on the arm: the demo arm and mount, {@link #ARM_STARTS} starts, latency and the gain sweep. */
+    public static ArmRun.Request armRequest(ServoSet set) {
+        RehearsalConfig rc = new RehearsalConfig();
+        rc.starts = ARM_STARTS;
+        rc.tracedRuns = ARM_TRACED_RUNS;
+        ArmRehearsalConfig c = new ArmRehearsalConfig();
+        c.servo = rc;
+        c.latencyFrames = ARM_LATENCY_FRAMES;
+        c.referenceJointsRad = DemoArm.rad(DemoArm.REFERENCE_DEG);
+        return new ArmRun.Request(set, DemoArm.model(), HandEye.demo(), c, null, true);
     }
 }

@@ -1,6 +1,11 @@
 package org.targetbench.pipeline;
 
+import org.targetbench.camera.Calibration;
 import org.targetbench.select.Selection;
+import org.targetbench.servo.ControlLaw;
+import org.targetbench.servo.RehearsalResult;
+import org.targetbench.servo.RehearsalWarning;
+import org.targetbench.servo.SetDiagnostics;
 
 import java.util.ArrayList;
 import java.util.List;
@@ -8,8 +13,9 @@ import java.util.Locale;
 import java.util.Map;
 
 /**
- * The one place where the typed reasons of a selection become sentences, for the console, the files and the workbench
- * alike; a refused pick, which names files and options, is explained beside the results-folder reader
+ * The one place where the typed reasons of a selection, the findings on a servo set and the warnings of a rehearsal
+ * become sentences, for the console, the files and the workbench alike (the arm rehearsal's flags and warnings are
+ * rendered beside it by {@link ArmWords}); a refused pick, which names files and options, is explained beside the results-folder reader
  * ({@code formats.PickRefusals}). Nothing parses these sentences back: code that needs a category reads the typed reason.
  */
 public final class Reasons {
@@ -22,6 +28,15 @@ public final class Reasons {
     public static String selection(Selection s) {
         if (s.refusal().isPresent()) return refusal(s.refusal().get());
         return String.format(Locale.ROOT, "chose %d of %d candidates (%d passed the filters)", s.chosen().size(), s.candidates(), s.passed());
+    }
+
+    /** How a selection searched: "exhaustive search over n sets, m sets evaluated", "greedy + swap improvement, m sets evaluated". */
+    public static String search(Selection.Search s) {
+        return switch (s.kind()) {
+            case NONE -> "none";
+            case EXHAUSTIVE -> "exhaustive search over " + s.combinations() + " sets, " + s.evaluations() + " sets evaluated";
+            case GREEDY_SWAP -> "greedy + swap improvement, " + s.evaluations() + " sets evaluated";
+        };
     }
 
     /** Why no servo set was acceptable. */
@@ -106,6 +121,60 @@ public final class Reasons {
         List<String> s = new ArrayList<>();
         byName.forEach((k, v) -> s.add(v + " " + k));
         return String.join(", ", s);
+    }
+
+    /** A finding on a servo set in plain words. */
+    public static String finding(SetDiagnostics.Finding f) {
+        List<Integer> ids = f.pointIds();
+        return switch (f.kind()) {
+            case TOO_FEW_POINTS -> "only " + f.count() + " point" + (f.count() == 1 ? "" : "s") + ": at least " + SetDiagnostics.MIN_POINTS
+                    + " are needed (three points fit up to four camera poses, so the servo may settle at the wrong one)";
+            case TOO_FEW_DISTINCT -> "only " + f.count() + " distinct points: at least " + SetDiagnostics.MIN_POINTS + " are needed";
+            case DUPLICATE -> String.format(Locale.ROOT,
+                    "points %d and %d are the same point (%.2f, %.2f) px: a duplicated point adds no information and makes L lose rank",
+                    ids.get(0), ids.get(1), f.uPx(), f.vPx());
+            case COLLINEAR -> String.format(Locale.ROOT,
+                    "points %s lie on one line (minor/major spread %.4f < %.2f): the interaction matrix loses rank and the servo cannot control every motion",
+                    String.join(", ", ids.stream().map(String::valueOf).toList()), f.value(), f.limit());
+            case COINCIDENT -> String.format(Locale.ROOT,
+                    "points %d and %d are only %.1f px apart: a tracker can confuse them and L is close to losing rank", ids.get(0), ids.get(1), f.value());
+            case NEAR_SINGULAR -> String.format(Locale.ROOT,
+                    "cond(L*) = %.3g > %.0f: the interaction matrix is near singular; some camera motions barely move the points, so image noise "
+                            + "becomes large velocity commands; spread the points wider", f.value(), f.limit());
+        };
+    }
+
+    /** A rehearsal warning in plain words. */
+    public static String warning(RehearsalWarning w) {
+        return switch (w.kind()) {
+            case SET -> finding(w.finding().orElseThrow());
+            case TURNED_ABOUT_AXIS -> String.format(Locale.ROOT, "starts may be turned by up to %.0f deg about the optical axis: near 180 deg the current-L law "
+                    + "drives the camera back toward infinity (Chaumette 1998) and every law struggles; teach the reference closer to the start orientation", w.value());
+            case FAR_RETREAT -> String.format(Locale.ROOT, "the camera retreated to %.2f times the reference distance from the target%s", w.value(),
+                    w.law() == ControlLaw.CURRENT ? " (the current-L law under rotation about the optical axis; the mean law avoids most of it)" : "");
+            case LOST_VIEW -> w.count() + " of " + w.runs() + " runs lost a point out of the field of view: shrink the start envelope, "
+                    + "pick points nearer the image centre or use the current or mean law";
+            case REDRAWN_STARTS -> w.count() + " drawn starts had a point out of view and were drawn again (more than one per run): the field of view, "
+                    + "not the envelope, limits the starts, so the results cover a smaller envelope than asked";
+            case TRACK_LOST -> w.count() + " of " + w.runs() + " runs lost a track according to the measured survival";
+            case TIMED_OUT -> w.count() + " of " + w.runs() + " runs had not converged after " + w.value() + " s (too low a gain, noise or a local minimum)";
+            case RETREAT_STOPPED -> w.count() + " of " + w.runs() + " runs backed away beyond " + w.value() + " times the reference distance and were stopped";
+            case SINGULAR -> w.count() + " runs hit a singular interaction matrix";
+            case LARGE_DEPTH_FACTOR -> "the depth error factor " + w.value() + " is large: the effective gain changes by that factor and the path bends";
+        };
+    }
+
+    /** Every warning of a rehearsal in plain words, in order. */
+    public static List<String> warnings(RehearsalResult r) {
+        return r.warnings().stream().map(Reasons::warning).toList();
+    }
+
+    /** Why a camera calibration could not be made, in one line. */
+    public static String calibrationFailure(Calibration.Failure f) {
+        return switch (f.kind()) {
+            case TOO_FEW_VIEWS -> "the board was found in " + f.found() + " of " + f.frames() + " frames; calibration needs at least " + f.minViews() + " views";
+            case NOT_CONVERGED -> "the calibration did not converge (" + f.detail() + "); add views with the board tilted and in different parts of the image";
+        };
     }
 
     private static String fmt(double v) {

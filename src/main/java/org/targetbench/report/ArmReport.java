@@ -5,7 +5,7 @@ import org.targetbench.arm.ArmModel;
 import org.targetbench.arm.ArmRehearsalResult;
 import org.targetbench.arm.ArmRunResult;
 import org.targetbench.arm.ArmRunTrace;
-import org.targetbench.arm.ArmWords;
+import org.targetbench.pipeline.ArmWords;
 import org.targetbench.arm.GainAdvice;
 import org.targetbench.export.AtomicOutput;
 import org.targetbench.export.Safety;
@@ -122,8 +122,9 @@ public final class ArmReport {
                     x.minManipulability(), x.minManipulabilityTimeS(), x.minLimitMarginDeg(), x.minLimitMarginJoint(), 100 * x.peakSpeedRatio(),
                     x.peakSpeedJoint(), x.dampedS(), x.speedScaledS(), esc(ArmWords.flags(x))));
         b.append("</table>\n<h2>Warnings</h2>\n<ul>\n");
-        for (String w : r.warnings()) b.append("<li>").append(esc(w)).append("</li>\n");
-        if (r.warnings().isEmpty()) b.append("<li>None. A run without flags is not a clearance.</li>\n");
+        List<String> warnings = ArmWords.warnings(r);
+        for (String w : warnings) b.append("<li>").append(esc(w)).append("</li>\n");
+        if (warnings.isEmpty()) b.append("<li>None. A run without flags is not a clearance.</li>\n");
         b.append("</ul>\n");
         if (r.advice().isPresent()) {
             GainAdvice a = r.advice().get();

@@ -133,7 +133,7 @@ public final class RehearsalReport {
         if (r.warnings().isEmpty()) b.append("<p>None.</p>\n");
         else {
             b.append("<ul>\n");
-            for (String w : r.warnings()) b.append("<li>").append(esc(w)).append("</li>\n");
+            for (String w : org.targetbench.pipeline.Reasons.warnings(r)) b.append("<li>").append(esc(w)).append("</li>\n");
             b.append("</ul>\n");
         }
         b.append("<h2>Charts</h2>\n");

@@ -15,14 +15,34 @@ import java.util.Optional;
  * @param sigmaMin   smallest singular value of the scaled L*
  * @param coverage   convex-hull area of the chosen points as a fraction of the image
  * @param objective  log10 cond(L*) - w · coverage
- * @param method     how the set was searched and how many sets were evaluated
+ * @param search     how the set was searched and how many sets were evaluated
  */
 public record Selection(Outcome outcome, int candidates, int passed, Optional<Refusal> refusal, List<Chosen> chosen,
                         List<Rejected> rejected, double condition, double sigmaMin, double coverage, double objective,
-                        String method) {
+                        Search search) {
     public Selection {
         chosen = List.copyOf(chosen);
         rejected = List.copyOf(rejected);
+    }
+
+    /**
+     * How the set was searched.
+     *
+     * @param combinations EXHAUSTIVE: the sets searched; else 0
+     * @param evaluations  sets whose objective was evaluated
+     */
+    public record Search(SearchKind kind, long combinations, long evaluations) {
+        /** No search ran (the selection was refused first). */
+        public static final Search NONE = new Search(SearchKind.NONE, 0, 0);
+    }
+
+    public enum SearchKind {
+        /** No search ran. */
+        NONE,
+        /** Every combination of the passing candidates. */
+        EXHAUSTIVE,
+        /** Greedy starts, then swaps while the objective improves. */
+        GREEDY_SWAP
     }
 
     public enum Outcome { SELECTED, NO_ACCEPTABLE_SET }

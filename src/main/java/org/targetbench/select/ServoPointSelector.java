@@ -52,18 +52,18 @@ public final class ServoPointSelector {
             return refuse(new Selection.Refusal(Selection.RefusalKind.TOO_FEW_PASS, n, pool.size(), k, why, c.minSeparationPx, Double.NaN, c.maxCondition), n, rejected, pool);
         Objective obj = new Objective(pool, width, height, c);
         int[] best;
-        String method;
+        Selection.SearchKind searchKind;
         long combos = binomial(pool.size(), k);
         if (combos <= c.exhaustiveLimit) {
             best = exhaustive(obj, k);
-            method = "exhaustive search over " + combos + " sets";
+            searchKind = Selection.SearchKind.EXHAUSTIVE;
         } else {
             int[] a = swapImprove(obj, greedy(obj, k, null));
             int[] b = swapImprove(obj, greedy(obj, k, corners(pool, width, height)));
             best = a == null ? b : (b == null || obj.value(a) <= obj.value(b) ? a : b);
-            method = "greedy + swap improvement";
+            searchKind = Selection.SearchKind.GREEDY_SWAP;
         }
-        method += ", " + obj.evaluations + " sets evaluated";
+        Selection.Search method = new Selection.Search(searchKind, searchKind == Selection.SearchKind.EXHAUSTIVE ? combos : 0, obj.evaluations);
         if (best == null)
             return refuse(new Selection.Refusal(Selection.RefusalKind.NOT_SEPARATED, n, pool.size(), k, why, c.minSeparationPx, Double.NaN, c.maxCondition), n, rejected, pool);
         InteractionMatrix.Conditioning cond = obj.conditioning(best);
@@ -138,7 +138,7 @@ public final class ServoPointSelector {
             all.add(new Selection.Rejected(c, Selection.Why.SET_REFUSED, Double.NaN, Double.NaN, -1, Double.NaN, Optional.of(refusal)));
         all.sort((a, b) -> Integer.compare(a.candidate().id(), b.candidate().id()));
         return new Selection(Selection.Outcome.NO_ACCEPTABLE_SET, candidates, pool.size(), Optional.of(refusal), List.of(), all,
-                Double.NaN, Double.NaN, Double.NaN, Double.NaN, "none");
+                Double.NaN, Double.NaN, Double.NaN, Double.NaN, Selection.Search.NONE);
     }
 
     static long binomial(int n, int k) {

@@ -1,8 +1,6 @@
 package org.targetbench.servo;
 
-import boofcv.struct.distort.Point2Transform2_F64;
 import georegression.geometry.ConvertRotation3D_F64;
-import georegression.struct.point.Point2D_F64;
 import georegression.struct.se.Se3_F64;
 import org.ejml.data.DMatrixRMaj;
 import org.targetbench.camera.CameraModel;
@@ -26,12 +24,9 @@ final class ClosedLoop {
     private final Scene s;
     private final RehearsalConfig c;
     private final int k;
-    private final boolean pinhole;
-    private final Point2Transform2_F64 toPixel;
-    private final Point2Transform2_F64 toNorm;
     private final ServoController controller;
     private final RigidMotion motion = new RigidMotion();
-    private final Point2D_F64 p2 = new Point2D_F64();
+    private final PointProjection projection;
     private final double[] u, v, x, y, z, xm, ym, zEst, vel = new double[6];
     private final int[] lossStep;
 
@@ -39,9 +34,7 @@ final class ClosedLoop {
         this.s = scene;
         this.c = config;
         this.k = scene.ids().length;
-        this.pinhole = !scene.camera().isDistorted();
-        this.toPixel = scene.camera().normalisedToPixel();
-        this.toNorm = scene.camera().pixelToNormalised();
+        this.projection = new PointProjection(scene.camera());
         double[] zStarEst = scene.zStar().clone();
         if (config.depthMode == DepthMode.SCALED) for (int i = 0; i < k; i++) zStarEst[i] *= config.depthErrorFactor;
         this.controller = new ServoController(scene.xStar(), scene.yStar(), zStarEst, config.lambda, config.law);
@@ -162,69 +155,17 @@ final class ClosedLoop {
 
     /** Projects the true points; returns the index of the first point out of view, or -1. */
     private int project(Se3_F64 g) {
-        double[] r = g.R.data;
-        double[][] pw = s.worldPoints();
-        CameraModel cam = s.camera();
-        for (int i = 0; i < k; i++) {
-            double dx = pw[i][0] - g.T.x, dy = pw[i][1] - g.T.y, dz = pw[i][2] - g.T.z;
-            double X = r[0] * dx + r[3] * dy + r[6] * dz, Y = r[1] * dx + r[4] * dy + r[7] * dz, Z = r[2] * dx + r[5] * dy + r[8] * dz;
-            if (!(Z > 0)) return i;
-            x[i] = X / Z;
-            y[i] = Y / Z;
-            z[i] = Z;
-            if (pinhole) {
-                u[i] = cam.fx() * x[i] + cam.cx();
-                v[i] = cam.fy() * y[i] + cam.cy();
-            } else {
-                toPixel.compute(x[i], y[i], p2);
-                u[i] = p2.x;
-                v[i] = p2.y;
-            }
-            if (!cam.inImage(u[i], v[i])) return i;
-        }
-        return -1;
+        return projection.project(s.worldPoints(), g.R.data, 3, g.T.x, g.T.y, g.T.z, x, y, z, u, v);
     }
 
     private double errorRms() {
-        double sum = 0;
-        for (int i = 0; i < k; i++) {
-            double du = u[i] - s.uStar()[i], dv = v[i] - s.vStar()[i];
-            sum += du * du + dv * dv;
-        }
-        return Math.sqrt(sum / k);
+        return PointProjection.errorRms(u, v, s.uStar(), s.vStar());
     }
 
     /** Noisy measurement of the features and the controller's depth estimates. */
     private void measure(SplittableRandom rng) {
-        CameraModel cam = s.camera();
-        for (int i = 0; i < k; i++) {
-            double sigma = s.noisePx()[i];
-            if (sigma > 0) {
-                double um = u[i] + sigma * gaussian(rng), vm = v[i] + sigma * gaussian(rng);
-                if (pinhole) {
-                    xm[i] = (um - cam.cx()) / cam.fx();
-                    ym[i] = (vm - cam.cy()) / cam.fy();
-                } else {
-                    toNorm.compute(um, vm, p2);
-                    xm[i] = p2.x;
-                    ym[i] = p2.y;
-                }
-            } else {
-                xm[i] = x[i];
-                ym[i] = y[i];
-            }
-            zEst[i] = switch (c.depthMode) {
-                case TRUE -> z[i];
-                case CONSTANT -> s.zStar()[i];
-                case SCALED -> s.zStar()[i] * c.depthErrorFactor;
-            };
-        }
+        projection.measure(rng, s.noisePx(), x, y, z, u, v, s.zStar(), c.depthMode, c.depthErrorFactor, xm, ym, zEst);
     }
 
     /** Standard normal deviate (Box-Muller, one of the pair). */
-    private static double gaussian(SplittableRandom rng) {
-        double a = rng.nextDouble();
-        double b = rng.nextDouble();
-        return Math.sqrt(-2 * Math.log(1 - a)) * Math.cos(2 * Math.PI * b);
-    }
 }

@@ -6,12 +6,7 @@ import org.targetbench.camera.PoseEstimation;
 
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Locale;
 import java.util.Optional;
-import java.util.concurrent.ExecutionException;
-import java.util.concurrent.ExecutorService;
-import java.util.concurrent.Executors;
-import java.util.concurrent.Future;
 
 /**
  * Rehearses a servo set in simulation before any robot moves: the closed loop v = -λ L̂⁺ (s - s*) with the camera
@@ -74,33 +69,11 @@ public final class Rehearsal {
         int n = c.starts;
         RunResult[] results = new RunResult[n];
         RunTrace[] traces = new RunTrace[Math.min(n, c.tracedRuns)];
-        ExecutorService pool = Executors.newFixedThreadPool(c.threads, r -> {
-            Thread t = new Thread(r, "targetbench-rehearse");
-            t.setDaemon(true);
-            return t;
+        ParallelRuns.run(n, c.threads, BLOCK, "targetbench-rehearse", () -> new ClosedLoop(scene, c), (loop, i) -> {
+            RunTrace[] slot = i < traces.length ? new RunTrace[1] : null;
+            results[i] = loop.run(i, slot, null);
+            if (slot != null) traces[i] = slot[0];
         });
-        try {
-            List<Future<?>> futures = new ArrayList<>();
-            ThreadLocal<ClosedLoop> loops = ThreadLocal.withInitial(() -> new ClosedLoop(scene, c));
-            for (int b = 0; b < n; b += BLOCK) {
-                int from = b, to = Math.min(n, b + BLOCK);
-                futures.add(pool.submit(() -> {
-                    ClosedLoop loop = loops.get();
-                    RunTrace[] slot = new RunTrace[1];
-                    for (int i = from; i < to; i++) {
-                        boolean traced = i < traces.length;
-                        results[i] = loop.run(i, traced ? slot : null, null);
-                        if (traced) traces[i] = slot[0];
-                    }
-                }));
-            }
-            for (Future<?> f : futures) f.get();
-        } catch (ExecutionException e) {
-            if (e.getCause() instanceof RuntimeException re) throw re;
-            throw new IllegalStateException(e.getCause());
-        } finally {
-            pool.shutdownNow();
-        }
         List<RunResult> runs = List.of(results);
         RehearsalResult.Summary summary = RehearsalResult.Summary.of(runs);
         return new RehearsalResult(c, poseMethod, runs, List.of(traces), summary, warnings(set, c, summary), scene.referenceDistanceM());
@@ -140,30 +113,20 @@ public final class Rehearsal {
         return new ClosedLoop.Scene(set.camera(), world, cameraToWorld, uS, vS, xS, yS, zS, ids, noise, surv, Math.abs(cameraToWorld.T.z));
     }
 
-    /** Known failure modes of this set, this envelope and these results, in plain words. */
-    static List<String> warnings(ServoSet set, RehearsalConfig c, RehearsalResult.Summary s) {
-        List<String> w = new ArrayList<>();
-        for (SetDiagnostics.Finding f : SetDiagnostics.check(set.points())) w.add(f.message());
-        if (c.envelopeDeg[2] >= OPTICAL_AXIS_WARN_DEG)
-            w.add(String.format(Locale.ROOT, "starts may be turned by up to %.0f deg about the optical axis: near 180 deg the current-L law "
-                    + "drives the camera back toward infinity (Chaumette 1998) and every law struggles; teach the reference closer to the start orientation",
-                    c.envelopeDeg[2]));
-        if (s.maxDepthRatio() > RETREAT_WARN_RATIO)
-            w.add(String.format(Locale.ROOT, "the camera retreated to %.2f times the reference distance from the target%s",
-                    s.maxDepthRatio(), c.law == ControlLaw.CURRENT ? " (the current-L law under rotation about the optical axis; the mean law avoids most of it)" : ""));
-        if (s.lostFieldOfView() > 0)
-            w.add(s.lostFieldOfView() + " of " + s.runs() + " runs lost a point out of the field of view: shrink the start envelope, "
-                    + "pick points nearer the image centre or use the current or mean law");
-        if (s.redrawnStarts() > s.runs())
-            w.add(s.redrawnStarts() + " drawn starts had a point out of view and were drawn again (more than one per run): the field of view, "
-                    + "not the envelope, limits the starts, so the results cover a smaller envelope than asked");
-        if (s.trackLost() > 0) w.add(s.trackLost() + " of " + s.runs() + " runs lost a track according to the measured survival");
-        if (s.timeouts() > 0) w.add(s.timeouts() + " of " + s.runs() + " runs had not converged after " + c.timeoutS + " s (too low a gain, noise or a local minimum)");
-        if (s.retreated() > 0)
-            w.add(s.retreated() + " of " + s.runs() + " runs backed away beyond " + c.retreatLimit + " times the reference distance and were stopped");
-        if (s.singular() > 0) w.add(s.singular() + " runs hit a singular interaction matrix");
+    /** Known failure modes of this set, this envelope and these results, with their numbers. */
+    static List<RehearsalWarning> warnings(ServoSet set, RehearsalConfig c, RehearsalResult.Summary s) {
+        List<RehearsalWarning> w = new ArrayList<>();
+        for (SetDiagnostics.Finding f : SetDiagnostics.check(set.points())) w.add(RehearsalWarning.of(f));
+        if (c.envelopeDeg[2] >= OPTICAL_AXIS_WARN_DEG) w.add(RehearsalWarning.value(RehearsalWarning.Kind.TURNED_ABOUT_AXIS, c.envelopeDeg[2], c.law));
+        if (s.maxDepthRatio() > RETREAT_WARN_RATIO) w.add(RehearsalWarning.value(RehearsalWarning.Kind.FAR_RETREAT, s.maxDepthRatio(), c.law));
+        if (s.lostFieldOfView() > 0) w.add(RehearsalWarning.runs(RehearsalWarning.Kind.LOST_VIEW, s.lostFieldOfView(), s.runs(), Double.NaN));
+        if (s.redrawnStarts() > s.runs()) w.add(RehearsalWarning.runs(RehearsalWarning.Kind.REDRAWN_STARTS, s.redrawnStarts(), s.runs(), Double.NaN));
+        if (s.trackLost() > 0) w.add(RehearsalWarning.runs(RehearsalWarning.Kind.TRACK_LOST, s.trackLost(), s.runs(), Double.NaN));
+        if (s.timeouts() > 0) w.add(RehearsalWarning.runs(RehearsalWarning.Kind.TIMED_OUT, s.timeouts(), s.runs(), c.timeoutS));
+        if (s.retreated() > 0) w.add(RehearsalWarning.runs(RehearsalWarning.Kind.RETREAT_STOPPED, s.retreated(), s.runs(), c.retreatLimit));
+        if (s.singular() > 0) w.add(RehearsalWarning.runs(RehearsalWarning.Kind.SINGULAR, s.singular(), s.runs(), Double.NaN));
         if (c.depthMode == DepthMode.SCALED && (c.depthErrorFactor < 0.5 || c.depthErrorFactor > 2))
-            w.add("the depth error factor " + c.depthErrorFactor + " is large: the effective gain changes by that factor and the path bends");
+            w.add(RehearsalWarning.value(RehearsalWarning.Kind.LARGE_DEPTH_FACTOR, c.depthErrorFactor, c.law));
         return w;
     }
 }

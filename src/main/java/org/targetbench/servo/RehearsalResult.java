@@ -9,10 +9,11 @@ import java.util.List;
  * The result of a rehearsal: every run, the kept traces, a summary and the warnings.
  *
  * @param poseMethod         how the reference pose used for the simulated target was obtained
+ * @param warnings           known failure modes met, typed ({@code pipeline.Reasons} renders them)
  * @param referenceDistanceM distance of the reference camera from the target plane, metres
  */
 public record RehearsalResult(RehearsalConfig config, String poseMethod, List<RunResult> runs, List<RunTrace> traces,
-                              Summary summary, List<String> warnings, double referenceDistanceM) {
+                              Summary summary, List<RehearsalWarning> warnings, double referenceDistanceM) {
     public RehearsalResult {
         config = config.copy();
         runs = List.copyOf(runs);

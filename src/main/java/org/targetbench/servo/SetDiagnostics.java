@@ -7,10 +7,10 @@ import org.ejml.interfaces.decomposition.SingularValueDecomposition_F64;
 
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Locale;
 
 /**
- * Known failure modes of a point set for image-based servoing, in plain words: too few points, (nearly) collinear
+ * Known failure modes of a point set for image-based servoing, as typed findings with their numbers (rendered by
+ * {@code pipeline.Reasons}): too few points, (nearly) collinear
  * points, (nearly) coincident points and a near-singular interaction matrix.
  *
  * <p>Background: three points give up to four camera poses with the same image (Fischler &amp; Bolles 1981, CACM
@@ -35,18 +35,52 @@ public final class SetDiagnostics {
     /** How bad a finding is: an ERROR set must not be used, a WARNING one deserves a look. */
     public enum Severity { ERROR, WARNING }
 
-    public enum Kind { TOO_FEW_POINTS, COLLINEAR, COINCIDENT, NEAR_SINGULAR }
+    /** What a finding is about. */
+    public enum Kind {
+        /** Fewer than {@link #MIN_POINTS} points ({@code count}). */
+        TOO_FEW_POINTS,
+        /** Fewer than {@link #MIN_POINTS} distinct points ({@code count}) once duplicates are set aside. */
+        TOO_FEW_DISTINCT,
+        /** Two points ({@code pointIds}) at one pixel ({@code uPx}, {@code vPx}). */
+        DUPLICATE,
+        /** The points ({@code pointIds}) lie on one line: minor/major spread {@code value} below {@code limit}. */
+        COLLINEAR,
+        /** Two points ({@code pointIds}) only {@code value} px apart. */
+        COINCIDENT,
+        /** cond(L*) {@code value} above {@code limit}. */
+        NEAR_SINGULAR
+    }
 
-    /** One finding with its plain-words message. */
-    public record Finding(Kind kind, Severity severity, String message) {}
+    /**
+     * One finding with its numbers; {@code pipeline.Reasons} renders it as a sentence.
+     *
+     * @param count    a number of points (TOO_FEW_POINTS, TOO_FEW_DISTINCT), else 0
+     * @param pointIds the points concerned (DUPLICATE, COLLINEAR, COINCIDENT), else empty
+     * @param value    the measured figure (spread ratio, distance in px, condition number), else NaN
+     * @param limit    the threshold it crossed, else NaN
+     * @param uPx      column of a duplicated point, px, else NaN
+     * @param vPx      row of a duplicated point, px, else NaN
+     */
+    public record Finding(Kind kind, Severity severity, int count, List<Integer> pointIds, double value, double limit, double uPx, double vPx) {
+        public Finding {
+            pointIds = List.copyOf(pointIds);
+        }
+
+        static Finding count(Kind kind, int count) {
+            return new Finding(kind, Severity.ERROR, count, List.of(), Double.NaN, MIN_POINTS, Double.NaN, Double.NaN);
+        }
+
+        static Finding points(Kind kind, Severity severity, List<Integer> ids, double value, double limit) {
+            return new Finding(kind, severity, 0, ids, value, limit, Double.NaN, Double.NaN);
+        }
+    }
 
     /** Checks a servo set's points. */
     public static List<Finding> check(List<ServoPoint> pts) {
         List<Finding> out = new ArrayList<>();
         int n = pts.size();
         if (n < MIN_POINTS) {
-            out.add(new Finding(Kind.TOO_FEW_POINTS, Severity.ERROR, "only " + n + " point" + (n == 1 ? "" : "s")
-                    + ": at least " + MIN_POINTS + " are needed (three points fit up to four camera poses, so the servo may settle at the wrong one)"));
+            out.add(Finding.count(Kind.TOO_FEW_POINTS, n));
             if (n < 2) return out;
         }
         // a duplicated point is reported as what it is, and the line test runs on the distinct points only
@@ -55,36 +89,27 @@ public final class SetDiagnostics {
             ServoPoint same = null;
             for (ServoPoint q : distinct) if (Math.hypot(p.u() - q.u(), p.v() - q.v()) < DUPLICATE_PX) same = q;
             if (same == null) distinct.add(p);
-            else out.add(new Finding(Kind.COINCIDENT, Severity.ERROR, String.format(Locale.ROOT,
-                    "points %d and %d are the same point (%.2f, %.2f) px: a duplicated point adds no information and makes L lose rank",
-                    same.id(), p.id(), p.u(), p.v())));
+            else out.add(new Finding(Kind.DUPLICATE, Severity.ERROR, 0, List.of(same.id(), p.id()), Double.NaN, DUPLICATE_PX, p.u(), p.v()));
         }
         if (distinct.size() < pts.size()) {
-            if (distinct.size() < MIN_POINTS && n >= MIN_POINTS)
-                out.add(new Finding(Kind.TOO_FEW_POINTS, Severity.ERROR, "only " + distinct.size() + " distinct points: at least " + MIN_POINTS + " are needed"));
+            if (distinct.size() < MIN_POINTS && n >= MIN_POINTS) out.add(Finding.count(Kind.TOO_FEW_DISTINCT, distinct.size()));
             if (distinct.size() < 3) return out;
             pts = distinct;
             n = pts.size();
         }
         double ratio = spreadRatio(pts);
         if (ratio < COLLINEAR_RATIO)
-            out.add(new Finding(Kind.COLLINEAR, Severity.ERROR, String.format(Locale.ROOT,
-                    "points %s lie on one line (minor/major spread %.4f < %.2f): the interaction matrix loses rank and the servo cannot control every motion",
-                    ids(pts), ratio, COLLINEAR_RATIO)));
+            out.add(Finding.points(Kind.COLLINEAR, Severity.ERROR, pts.stream().map(ServoPoint::id).toList(), ratio, COLLINEAR_RATIO));
         for (int i = 0; i < n; i++)
             for (int j = i + 1; j < n; j++) {
                 double d = Math.hypot(pts.get(i).u() - pts.get(j).u(), pts.get(i).v() - pts.get(j).v());
                 if (d < COINCIDENT_PX)
-                    out.add(new Finding(Kind.COINCIDENT, Severity.WARNING, String.format(Locale.ROOT,
-                            "points %d and %d are only %.1f px apart: a tracker can confuse them and L is close to losing rank",
-                            pts.get(i).id(), pts.get(j).id(), d)));
+                    out.add(Finding.points(Kind.COINCIDENT, Severity.WARNING, List.of(pts.get(i).id(), pts.get(j).id()), d, COINCIDENT_PX));
             }
         if (n >= 3 && ratio >= COLLINEAR_RATIO) {
             InteractionMatrix.Conditioning c = ServoSet.conditioning(pts);
             if (!(c.condition() <= NEAR_SINGULAR_COND))
-                out.add(new Finding(Kind.NEAR_SINGULAR, Severity.WARNING, String.format(Locale.ROOT,
-                        "cond(L*) = %.3g > %.0f: the interaction matrix is near singular; some camera motions barely move the points, so image noise becomes large velocity commands; spread the points wider",
-                        c.condition(), NEAR_SINGULAR_COND)));
+                out.add(Finding.points(Kind.NEAR_SINGULAR, Severity.WARNING, List.of(), c.condition(), NEAR_SINGULAR_COND));
         }
         return out;
     }
@@ -121,11 +146,5 @@ public final class SetDiagnostics {
         }
         if (k < 2) min = 0;
         return max == 0 ? 0 : min / max;
-    }
-
-    private static String ids(List<ServoPoint> pts) {
-        StringBuilder b = new StringBuilder();
-        for (ServoPoint p : pts) b.append(b.length() == 0 ? "" : ", ").append(p.id());
-        return b.toString();
     }
 }

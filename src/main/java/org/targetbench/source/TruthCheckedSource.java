@@ -14,17 +14,16 @@ import java.util.Optional;
  * keeps the correlation at 0.98 or more (also through 17 px of motion blur and a 20 % gain drift); another clip's truth
  * falls below 0.45 within 20 frames. The threshold between the two is our choice (no source).
  */
-public final class TruthCheckedSource implements FrameSource {
+public final class TruthCheckedSource extends ForwardingSource {
     /** Least correlation between a frame and the reference moved by its truth homography. */
     public static final double MIN_CORRELATION = 0.5;
     /** Frames between checks. */
     public static final int EVERY = 5;
 
-    private final FrameSource source;
     private GrayF32 reference;
     private int seen;
 
-    private TruthCheckedSource(FrameSource source) { this.source = source; }
+    private TruthCheckedSource(FrameSource source) { super(source); }
 
     /** {@code source}, checked when it carries truth. */
     public static FrameSource wrap(FrameSource source) {
@@ -50,12 +49,4 @@ public final class TruthCheckedSource implements FrameSource {
         return f;
     }
 
-    @Override public String description() { return source.description(); }
-    @Override public int width() { return source.width(); }
-    @Override public int height() { return source.height(); }
-    @Override public int frameCount() { return source.frameCount(); }
-    @Override public String referenceName() { return source.referenceName(); }
-    @Override public int skippedFrames() { return source.skippedFrames(); }
-    @Override public Optional<String> endNote() { return source.endNote(); }
-    @Override public void close() { source.close(); }
 }

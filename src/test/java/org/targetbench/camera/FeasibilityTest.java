@@ -12,7 +12,7 @@ import static org.junit.jupiter.api.Assertions.*;
  * the documented thresholds.
  */
 class FeasibilityTest {
-    /** Tolerance of the central-difference scale, px. */
+    /** Tolerance of the central-difference scale, px (derived: the pinhole scale is exact, so only rounding remains). */
     static final double PX_TOL = 1e-6;
     static final CameraModel CAM = CameraModel.pinhole(640, 480, 500, 500, 319.5, 239.5);
 

@@ -26,7 +26,7 @@ class ReferenceCalibrationTest {
     static final double REF_CX = 342.28315473308373, REF_CY = 235.57082909788173;
     /** Allowed relative deviation of fx and fy from the reference calibration (common practice, no source). */
     static final double F_TOL = 0.01;
-    /** Allowed deviation of cx and cy, px. */
+    /** Allowed deviation of cx and cy, px (common practice, no source). */
     static final double C_TOL_PX = 5;
     /** Largest acceptable RMS reprojection error, px (the reference reached 0.39 px). */
     static final double RMS_MAX_PX = 0.5;

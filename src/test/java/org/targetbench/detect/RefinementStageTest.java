@@ -30,7 +30,7 @@ class RefinementStageTest {
     static final double MAX_RMS_PX = 0.15;
     /** A detection within this of a true corner is its match, pixels. */
     static final double MATCH_PX = 1.5;
-    /** Least share of the designed corners that must be matched. */
+    /** Least share of the designed corners that must be matched (common practice, no source). */
     static final double MIN_MATCHED = 0.9;
 
     static SyntheticRenderer.Rendered render(double tiltX, double tiltY, double roll, boolean distorted) {

@@ -19,7 +19,7 @@ import static org.junit.jupiter.api.Assertions.*;
  * x-corner of a clean render within {@value #TOLERANCE_PX} px of its true, analytically projected position.
  */
 class RenderTruthTest {
-    /** Required localisation of each x-corner, pixels (requirement of the bench). */
+    /** Required localisation of each x-corner, pixels (common practice, no source: half a pixel, the usual bar for a sub-pixel corner). */
     static final double TOLERANCE_PX = 0.5;
 
     @ParameterizedTest(name = "tiltX={0} tiltY={1} roll={2} distorted={3}")

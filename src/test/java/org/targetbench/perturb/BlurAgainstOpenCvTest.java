@@ -19,7 +19,7 @@ import static org.junit.jupiter.api.Assertions.*;
  * fixed-point approximation that by itself strays up to 2 grey levels from the exact blur at σ = 5.
  */
 class BlurAgainstOpenCvTest {
-    /** Allowed difference, grey levels (requirement of the bench; both sides round to whole levels). */
+    /** Allowed difference, grey levels (derived: both sides round to whole levels, so they may differ by one level). */
     static final double MAX_DIFF_GREY = 1.0;
 
     @BeforeAll

@@ -15,6 +15,7 @@ import static org.junit.jupiter.api.Assertions.*;
 
 /** Live scoring: what repeatability is measured against, with and without the registration hook. */
 class LiveScoringTest {
+    /** Derived: the same figures computed twice by the same arithmetic, equal up to double rounding. */
     static final double TOL = 1e-9;
 
     static List<DetectorConfig> configs() {

@@ -16,6 +16,7 @@ import static org.junit.jupiter.api.Assertions.*;
 
 /** Survival, drift and jitter on hand-made tracker output whose answers are known. */
 class TrackingMetricsTest {
+    /** Derived: hand-made inputs with exact answers, equal up to double rounding. */
     static final double TOL = 1e-9;
     /** Streaming percentiles are exact to one bin of 0.001 px, plus rounding at the bin edge. */
     static final double BIN_TOL = 0.0015;

@@ -60,7 +60,8 @@ class ServoPointSelectorTest {
             Selection ex = ServoPointSelector.select(grid(5, 4), W, H, c);
             c.exhaustiveLimit = 0;
             Selection gr = ServoPointSelector.select(grid(5, 4), W, H, c);
-            assertTrue(ex.method().startsWith("exhaustive") && gr.method().startsWith("greedy"));
+            assertEquals(Selection.SearchKind.EXHAUSTIVE, ex.search().kind());
+            assertEquals(Selection.SearchKind.GREEDY_SWAP, gr.search().kind());
             assertTrue(gr.objective() >= ex.objective() - 1e-9, "exhaustive is optimal, k = " + k);
             assertTrue(gr.objective() <= ex.objective() + HEURISTIC_GAP, "k = " + k + ": greedy " + gr.objective() + " vs " + ex.objective());
         }

@@ -1,10 +1,20 @@
-package org.targetbench.arm;
+package org.targetbench.pipeline;
+
+import org.targetbench.arm.ArmFlag;
+import org.targetbench.arm.ArmModel;
+import org.targetbench.arm.ArmRehearsalResult;
+import org.targetbench.arm.ArmRunResult;
+import org.targetbench.arm.GainAdvice;
+import org.targetbench.arm.HandEyeCalibration;
 
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 
-/** Every sentence about an arm rehearsal, rendered from typed results in one place. */
+/**
+ * Every sentence about an arm rehearsal, rendered from its typed results (flags, outcomes, configuration, advice) in one
+ * place beside {@link Reasons}, for the console, the files and the workbench alike.
+ */
 public final class ArmWords {
     /** What the arm rehearsal does not model; shown beside the usual safety notice. */
     public static final String NOT_MODELLED = "This arm rehearsal is kinematic only: it models no dynamics, no payload, no collisions with "
@@ -26,7 +36,7 @@ public final class ArmWords {
         };
     }
 
-    /** Warnings over all runs. */
+    /** Warnings over all runs, derived from the runs' flags and the configuration. */
     public static List<String> warnings(ArmRehearsalResult r) {
         List<String> w = new ArrayList<>();
         int n = r.runs().size();
@@ -93,6 +103,19 @@ public final class ArmWords {
         return String.format(Locale.ROOT, "At latency %d periods of %.0f ms %s; the stability bound of the delayed loop is g < 2 cos(d pi/(2d+1)) = %.3f, "
                         + "lambda < %.3g 1/s (Levin & May 1976).", a.latencyFrames(), a.periodS() * 1000, best, GainAdvice.boundOnGain(a.latencyFrames()),
                 a.boundLambda());
+    }
+
+    /** Why a hand-eye calibration could not be made, in one line; {@code where} names the poses file, or null. */
+    public static String handEyeFailure(HandEyeCalibration.Outcome o, String where) {
+        return switch (o.failure()) {
+            case TOO_FEW_VIEWS -> "hand-eye calibration needs at least 3 views with flange poses and target poses, got " + o.views()
+                    + (where == null ? "" : " in " + where);
+            case ONE_ROTATION_AXIS -> "degenerate hand-eye views: every flange rotation between views is about one axis ("
+                    + (Double.isNaN(o.axisSpreadDeg()) ? "no view pair rotates more than " + HandEyeCalibration.MIN_ROTATION_DEG + " deg"
+                    : String.format(Locale.ROOT, "their axes spread by %.2f deg", o.axisSpreadDeg()))
+                    + "); tilt the flange about at least two different axes between views (Tsai & Lenz 1989)";
+            case NO_SOLUTION -> "hand-eye calibration failed: " + o.detail();
+        };
     }
 
     private static double norm(double[] v) { return Math.sqrt(v[0] * v[0] + v[1] * v[1] + v[2] * v[2]); }
