@@ -38,7 +38,7 @@ final class CornerPeaks {
                 if (isPeak(r, x, y, v, radius)) add(r, x, y, v, cut);
             }
         }
-        return strongest(Math.min(count, maxFeatures), scale);
+        return top(maxFeatures, scale);
     }
 
     private static boolean isPeak(GrayF32 r, int xc, int yc, float v, int radius) {
@@ -58,6 +58,30 @@ final class CornerPeaks {
         double ox = 0, oy = 0;
         if (x > 0 && x < r.width - 1) ox = Detectors.parabolaOffset(r.unsafe_get(x - 1, y), c, r.unsafe_get(x + 1, y));
         if (y > 0 && y < r.height - 1) oy = Detectors.parabolaOffset(r.unsafe_get(x, y - 1), c, r.unsafe_get(x, y + 1));
+        addPoint(x + ox, y + oy, v);
+    }
+
+    /** Drops the points whose response is not above 0 or is below {@code cut}, keeping the others in order. */
+    void keepAtLeast(double cut) {
+        int n = 0;
+        for (int i = 0; i < count; i++) {
+            double v = value[i];
+            if (!(v > 0) || v < cut) continue;
+            value[n] = value[i];
+            px[n] = px[i];
+            py[n] = py[i];
+            n++;
+        }
+        count = n;
+    }
+
+    /** Forgets the points of the previous frame. */
+    void reset() {
+        count = 0;
+    }
+
+    /** Adds one point with its response (for detectors that suppress on their own). */
+    void addPoint(double x, double y, float v) {
         if (count == value.length) {
             int n = 2 * count;
             value = Arrays.copyOf(value, n);
@@ -65,10 +89,12 @@ final class CornerPeaks {
             py = Arrays.copyOf(py, n);
         }
         value[count] = v;
-        px[count] = x + ox;
-        py[count] = y + oy;
+        px[count] = x;
+        py[count] = y;
         count++;
     }
+
+
 
     /** True when peak a comes before peak b: larger response, then smaller row, then smaller column. */
     private boolean before(int a, int b) {
@@ -77,8 +103,12 @@ final class CornerPeaks {
         return px[a] < px[b];
     }
 
-    /** The first n peaks in the order of {@link #before}: a heap holding the n best so far, its root the worst. */
-    private List<Detection> strongest(int n, double scale) {
+    /**
+     * The strongest {@code maxFeatures} points added since {@link #reset()}, in the order of {@link #before}: a heap
+     * holds the best so far with the worst at its root, so only the kept points are ever ordered.
+     */
+    List<Detection> top(int maxFeatures, double scale) {
+        int n = Math.min(count, maxFeatures);
         if (n == 0) return List.of();
         if (heap.length < n) heap = new int[Math.max(n, 2 * heap.length)];
         int size = 0;

@@ -55,12 +55,13 @@ final class FastSegmentTest {
 
     /**
      * Tests every pixel at least {@link #RADIUS} from the edge, fills {@link #negative} and {@link #positive} and
-     * writes each tested pixel's signed score into {@code score} (0 for no corner). Pixels nearer the edge are left
-     * untouched.
+     * writes the signed score of each corner into {@code score}. Only corners are written: every other pixel must
+     * already read 0 (a fresh image, or one whose corners {@link #clear} has reset).
      *
      * @param score same size as {@code image}
      */
     void process(GrayU8 image, GrayF32 score) {
+        writtenCount = 0;
         negative.configure(image.width, image.height);
         positive.configure(image.width, image.height);
         if (ringStride != image.stride) {
@@ -75,7 +76,6 @@ final class FastSegmentTest {
         for (int y = RADIUS; y < image.height - RADIUS; y++) {
             int index = image.startIndex + y * image.stride + RADIUS;
             int scoreIndex = score.startIndex + y * score.stride + RADIUS;
-            if (image.width > 2 * RADIUS) Arrays.fill(out, scoreIndex, scoreIndex + image.width - 2 * RADIUS, 0f);
             for (int x = RADIUS; x < image.width - RADIUS; x++, index++, scoreIndex++) {
                 int c = data[index] & 0xFF, upper = c + t, lower = c - t;
                 int e = data[index + east] & 0xFF, w = data[index + west] & 0xFF;
@@ -88,11 +88,28 @@ final class FastSegmentTest {
                 if (result < 0) {
                     out[scoreIndex] = tree.scoreLower(index);
                     negative.add(x, y);
+                    written(scoreIndex);
                 } else if (result > 0) {
                     out[scoreIndex] = tree.scoreUpper(index);
                     positive.add(x, y);
+                    written(scoreIndex);
                 }
             }
         }
+    }
+
+    private int[] writtenAt = new int[1024];
+    private int writtenCount;
+
+    private void written(int scoreIndex) {
+        if (writtenCount == writtenAt.length) writtenAt = Arrays.copyOf(writtenAt, 2 * writtenCount);
+        writtenAt[writtenCount++] = scoreIndex;
+    }
+
+    /** Resets to 0 every score the last {@link #process} wrote, so the score image can be reused without a fill. */
+    void clear(GrayF32 score) {
+        float[] out = score.data;
+        for (int i = 0; i < writtenCount; i++) out[writtenAt[i]] = 0f;
+        writtenCount = 0;
     }
 }
