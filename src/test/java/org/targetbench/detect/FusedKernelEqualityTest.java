@@ -68,10 +68,10 @@ class FusedKernelEqualityTest {
     @Test
     void fastMatchesTheReference() throws Exception {
         for (GrayF32 frame : frames()) {
-            for (int tolerance : new int[]{10, 20, 40}) {
+            for (int tolerance : new int[]{10, 40}) {
                 FastConfig c = new FastConfig();
                 c.pixelTolerance = tolerance;
-                for (int max : new int[]{100, 500, 100_000}) {
+                for (int max : new int[]{100, 100_000}) {
                     c.maxFeatures = max;
                     List<Detection> expected = new ReferenceFastDetector(c).detect(frame);
                     List<Detection> actual = Detectors.create(c).detect(frame);
