@@ -24,6 +24,11 @@ import java.util.List;
  * moved by a three-point parabola fit of R; strongest {@code maxFeatures} kept. Sub-pixel refinement is a stage of
  * its own ({@link SubpixelRefiner}, applied by {@link Detectors#create}).
  *
+ * <p>Speed without changing the result: with the Gaussian window (the default) the gradient, tensor window and
+ * response run as one streaming pass ({@link CornerResponse}, the same floats as BoofCV's pipeline bit for bit),
+ * suppression visits only the pixels at or above the threshold and only the kept points are ordered
+ * ({@link CornerPeaks}). The box window and frames smaller than the window stay on BoofCV's pipeline.
+ *
  * <p>Caveat: single scale. Points near the border (window radius plus one pixel) are never reported.
  *
  * <p>References: [1] C. Harris, M. Stephens, "A combined corner and edge detector", Alvey Vision Conf. 1988.

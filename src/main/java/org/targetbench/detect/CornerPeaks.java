@@ -45,6 +45,10 @@ final class CornerPeaks {
         int x0 = Math.max(0, xc - radius), x1 = Math.min(r.width - 1, xc + radius);
         int y0 = Math.max(0, yc - radius), y1 = Math.min(r.height - 1, yc + radius);
         float[] d = r.data;
+        // most pixels above the threshold sit on the flank of a peak: a larger 4-neighbour rejects them at once
+        int c = r.startIndex + yc * r.stride + xc;
+        if ((xc > 0 && d[c - 1] > v) || (xc < r.width - 1 && d[c + 1] > v)
+                || (yc > 0 && d[c - r.stride] > v) || (yc < r.height - 1 && d[c + r.stride] > v)) return false;
         for (int y = y0; y <= y1; y++) {
             int i = r.startIndex + y * r.stride + x0;
             for (int x = x0; x <= x1; x++, i++) if (d[i] > v) return false;
