@@ -20,7 +20,8 @@ import java.util.List;
  * ({@link FastSegmentTest}), and non-maximum suppression (strict: a point must beat every other score within
  * {@code nmsRadius}) visits only the pixels that passed the segment test rather than the whole score image. Every
  * other pixel scores exactly 0 and is never reported, so both shortcuts find the same points as BoofCV's general
- * FAST detector. The score image is reused: only corners are written and only they are reset after the frame, and
+ * FAST detector. The compass scan skips eight pixels at a time when none of their E and W pixels is beyond the
+ * tolerance (bytes compared eight at a time in a long, exactly). The score image is reused: only corners are written and only they are reset after the frame, and
  * only the strongest {@code maxFeatures} are ordered ({@link CornerPeaks}).
  *
  * <p>Caveats: integer-pixel positions (the segment test gives no sub-pixel information); no smoothing, so noise

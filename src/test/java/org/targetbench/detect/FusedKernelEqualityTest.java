@@ -81,6 +81,19 @@ class FusedKernelEqualityTest {
         }
     }
 
+    /** The eight-lane saturating subtraction of the FAST scan, for every pair of bytes in every lane (derived). */
+    @Test
+    void laneSubtractionSaturatesAtZero() {
+        Random random = new Random(11);
+        for (int a = 0; a < 256; a++)
+            for (int b = 0; b < 256; b++) {
+                int lane = (a * 256 + b) % 8, shift = 8 * lane;
+                long la = (random.nextLong() & ~(0xFFL << shift)) | ((long) a << shift);
+                long lb = (random.nextLong() & ~(0xFFL << shift)) | ((long) b << shift);
+                assertEquals(Math.max(a - b, 0), (int) ((FastSegmentTest.subSat(la, lb) >>> shift) & 0xFF), a + " - " + b);
+            }
+    }
+
     private static List<CornerConfig> cornerConfigs() {
         List<CornerConfig> out = new ArrayList<>();
         out.add(new HarrisConfig());
