@@ -24,6 +24,11 @@ import java.util.List;
  * moved by a three-point parabola fit of R; strongest {@code maxFeatures} kept. Sub-pixel refinement is a stage of
  * its own ({@link SubpixelRefiner}, applied by {@link Detectors#create}).
  *
+ * <p>Speed without changing the result: with the Gaussian window (the default) the gradient, tensor window and
+ * response run as one streaming pass ({@link CornerResponse}, the same floats as BoofCV's pipeline bit for bit),
+ * suppression visits only the pixels at or above the threshold and only the kept points are ordered
+ * ({@link CornerPeaks}). The box window and frames smaller than the window stay on BoofCV's pipeline.
+ *
  * <p>Caveat: single scale. Points near the border (window radius plus one pixel) are never reported.
  *
  * <p>References: [1] C. Harris, M. Stephens, "A combined corner and edge detector", Alvey Vision Conf. 1988.
@@ -36,6 +41,10 @@ final class CornerDetector implements PointDetector {
     private final ImageGradient<GrayF32, GrayF32> gradient = FactoryDerivative.sobel(GrayF32.class, GrayF32.class);
     private final GrayF32 dx = new GrayF32(1, 1), dy = new GrayF32(1, 1), response = new GrayF32(1, 1);
     private final QueueCorner peaks = new QueueCorner();
+    /** The fused streaming response (Gaussian window only); null for the box window, which stays on the library. */
+    private final CornerResponse fused;
+    private final int ignoreBorder;
+    private final CornerPeaks peakFinder = new CornerPeaks();
 
     CornerDetector(CornerConfig config) {
         this.config = config;
@@ -45,12 +54,16 @@ final class CornerDetector implements PointDetector {
         // non-strict, so flat-topped peaks are kept; maxima only; the border the window cannot see is skipped
         nonMax = FactoryFeatureExtractor.nonmax(new ConfigExtract(config.nmsRadius, 0f,
                 Math.max(config.nmsRadius, intensity.getIgnoreBorder()), false, false, true));
+        ignoreBorder = Math.max(config.nmsRadius, intensity.getIgnoreBorder());
+        fused = config.weighted ? new CornerResponse(config.windowRadius, config instanceof HarrisConfig,
+                config instanceof HarrisConfig h ? h.kappa : 0) : null;
     }
 
     @Override public DetectorType type() { return config.type(); }
 
     @Override
     public List<Detection> detect(GrayF32 image) {
+        if (fused != null && fused.handles(image.width, image.height)) return detectFused(image);
         dx.reshape(image.width, image.height);
         dy.reshape(image.width, image.height);
         gradient.process(image, dx, dy);
@@ -75,5 +88,19 @@ final class CornerDetector implements PointDetector {
             candidates.add(new Detection(p.x + ox, p.y + oy, c, config.windowRadius));
         }
         return Detectors.select(candidates, config, strongest);
+    }
+
+    /**
+     * The same steps as {@link #detect} on the fused response: non-maximum suppression visits only the pixels at or
+     * above the threshold (the library's relaxed block search keeps exactly those that no pixel within the radius
+     * exceeds), and only the strongest {@code maxFeatures} are ordered.
+     */
+    private List<Detection> detectFused(GrayF32 image) {
+        double strongest = fused.process(image, response);
+        double cut = Math.max(config.minResponse,
+                config.thresholdMode == ThresholdMode.RELATIVE ? config.threshold * strongest : config.threshold);
+        float threshold = (float) Math.max(cut, Float.MIN_VALUE);
+        return peakFinder.find(response, threshold, cut, config.nmsRadius, ignoreBorder, config.windowRadius,
+                config.maxFeatures);
     }
 }

@@ -1,13 +1,11 @@
 package org.targetbench.detect;
 
-import boofcv.alg.feature.detect.extract.NonMaxCandidate;
 import boofcv.alg.misc.ImageMiscOps;
-import boofcv.struct.QueueCorner;
+import boofcv.struct.ListIntPoint2D;
 import boofcv.struct.image.GrayF32;
 import boofcv.struct.image.GrayU8;
 import georegression.struct.point.Point2D_I16;
 
-import java.util.ArrayList;
 import java.util.List;
 
 /**
@@ -22,7 +20,9 @@ import java.util.List;
  * ({@link FastSegmentTest}), and non-maximum suppression (strict: a point must beat every other score within
  * {@code nmsRadius}) visits only the pixels that passed the segment test rather than the whole score image. Every
  * other pixel scores exactly 0 and is never reported, so both shortcuts find the same points as BoofCV's general
- * FAST detector.
+ * FAST detector. The compass scan skips eight pixels at a time when none of their E and W pixels is beyond the
+ * tolerance (bytes compared eight at a time in a long, exactly). The score image is reused: only corners are written and only they are reset after the frame, and
+ * only the strongest {@code maxFeatures} are ordered ({@link CornerPeaks}).
  *
  * <p>Caveats: integer-pixel positions (the segment test gives no sub-pixel information); no smoothing, so noise
  * creates corners. Works on the 8-bit rounding of the frame. Single threaded.
@@ -35,20 +35,15 @@ final class FastDetector implements PointDetector {
 
     private final FastConfig config;
     private final FastSegmentTest segmentTest;
-    private final NonMaxCandidate nonMax = new NonMaxCandidate(new NonMaxCandidate.Strict());
+    private final CornerPeaks peaks = new CornerPeaks();
+    private final Point2D_I16 point = new Point2D_I16();
     private final GrayU8 bytes = new GrayU8(1, 1);
     /** Signed FAST score per pixel: negative for the one polarity, positive for the other, 0 for no corner. */
     private final GrayF32 score = new GrayF32(1, 1);
-    private final QueueCorner negativePeaks = new QueueCorner(), positivePeaks = new QueueCorner();
 
     FastDetector(FastConfig config) {
         this.config = config;
         segmentTest = new FastSegmentTest(config.pixelTolerance, config.minContinuous);
-        nonMax.setSearchRadius(config.nmsRadius);
-        nonMax.setThresholdMin(0f);
-        nonMax.setThresholdMax(0f);
-        // peaks closer to the edge than the search radius or the circle are ignored, as in BoofCV's general detector
-        nonMax.setBorder(Math.max(config.nmsRadius, FastSegmentTest.RADIUS));
     }
 
     @Override public DetectorType type() { return DetectorType.FAST; }
@@ -58,20 +53,51 @@ final class FastDetector implements PointDetector {
         GrayU8 u8 = Detectors.toU8(image, bytes);
         if (score.width != u8.width || score.height != u8.height) {
             score.reshape(u8.width, u8.height);
-            ImageMiscOps.fill(score, 0); // the segment test never writes the border; it must read as "no corner"
+            ImageMiscOps.fill(score, 0); // the segment test writes only corners; everything else must read 0
         }
         segmentTest.process(u8, score);
-        nonMax.process(score, segmentTest.negative, segmentTest.positive, negativePeaks, positivePeaks);
-        List<Detection> candidates = new ArrayList<>(negativePeaks.size + positivePeaks.size);
-        double strongest = 0;
-        for (QueueCorner set : new QueueCorner[]{negativePeaks, positivePeaks}) {
-            for (int i = 0; i < set.size; i++) {
-                Point2D_I16 p = set.get(i);
-                double s = Math.abs(score.unsafe_get(p.x, p.y));
-                strongest = Math.max(strongest, s);
-                candidates.add(new Detection(p.x, p.y, s, CIRCLE_RADIUS));
+        peaks.reset();
+        float strongest = 0;
+        int border = Math.max(config.nmsRadius, FastSegmentTest.RADIUS);
+        strongest = suppress(segmentTest.negative, -1, border, strongest);
+        strongest = suppress(segmentTest.positive, +1, border, strongest);
+        segmentTest.clear(score);
+        double cut = Math.max(config.minResponse,
+                config.thresholdMode == ThresholdMode.RELATIVE ? config.threshold * (double) strongest : config.threshold);
+        peaks.keepAtLeast(cut);
+        return peaks.top(config.maxFeatures, CIRCLE_RADIUS);
+    }
+
+    /**
+     * Strict non-maximum suppression of one polarity's candidates (as BoofCV's candidate search: a candidate at least
+     * {@code border} from the edges, of the right sign, beating every other score within {@code nmsRadius}, the window
+     * clipped to the frame); adds each survivor with its |score| and returns the largest |score| so far.
+     */
+    private float suppress(ListIntPoint2D candidates, int sign, int border, float strongest) {
+        int w = score.width, h = score.height, radius = config.nmsRadius;
+        float[] d = score.data;
+        for (int i = 0; i < candidates.size(); i++) {
+            candidates.get(i, point);
+            int x = point.x, y = point.y;
+            if (x < border || y < border || x >= w - border || y >= h - border) continue;
+            int centre = score.startIndex + y * score.stride + x;
+            float v = d[centre];
+            if (sign < 0 ? (v > 0f || v == -Float.MAX_VALUE) : (v < 0f || v == Float.MAX_VALUE)) continue;
+            int x0 = Math.max(0, x - radius), x1 = Math.min(w, x + radius + 1);
+            int y0 = Math.max(0, y - radius), y1 = Math.min(h, y + radius + 1);
+            boolean peak = true;
+            for (int yy = y0; yy < y1 && peak; yy++) {
+                int index = score.startIndex + yy * score.stride + x0;
+                for (int xx = x0; xx < x1; xx++, index++) {
+                    if (index == centre) continue;
+                    if (sign < 0 ? v >= d[index] : v <= d[index]) { peak = false; break; }
+                }
             }
+            if (!peak) continue;
+            float s = Math.abs(v);
+            strongest = Math.max(strongest, s);
+            peaks.addPoint(x, y, s);
         }
-        return Detectors.select(candidates, config, strongest);
+        return strongest;
     }
 }
