@@ -103,14 +103,38 @@ final class TranslationLk {
         float gxx = 0, gyy = 0, gxy = 0;
         if (x >= radius && x <= w - radius - 1 && y >= radius && y <= h - radius - 1) {
             float tlx = x - radius, tly = y - radius;
-            region(img, tlx, tly, width, width, t, 0);
-            region(dx, tlx, tly, width, width, tx, 0);
-            region(dy, tlx, tly, width, width, ty, 0);
-            for (int i = 0; i < length; i++) {
-                float gx = tx[i], gy = ty[i];
-                gxx += gx * gx;
-                gyy += gy * gy;
-                gxy += gx * gy;
+            int xt = (int) tlx, yt = (int) tly;
+            if (xt + width < w && yt + width < h && img.stride == dx.stride && img.stride == dy.stride
+                    && img.startIndex == dx.startIndex && img.startIndex == dy.startIndex) {
+                // one pass over the image and both gradients (same weights, same positions), G summed on the way
+                float ax = tlx - xt, ay = tly - yt, bx = 1.0f - ax, by = 1.0f - ay;
+                float a0 = bx * by, a1 = ax * by, a2 = ax * ay, a3 = bx * ay;
+                float[] pi = img.data, px = dx.data, py = dy.data;
+                int stride = img.stride, k = 0;
+                for (int i = 0; i < width; i++) {
+                    int index = img.startIndex + (yt + i) * stride + xt;
+                    for (int end = index + width; index < end; index++, k++) {
+                        int d = index + stride;
+                        t[k] = a0 * pi[index] + a1 * pi[index + 1] + a2 * pi[d + 1] + a3 * pi[d];
+                        float gx = a0 * px[index] + a1 * px[index + 1] + a2 * px[d + 1] + a3 * px[d];
+                        float gy = a0 * py[index] + a1 * py[index + 1] + a2 * py[d + 1] + a3 * py[d];
+                        tx[k] = gx;
+                        ty[k] = gy;
+                        gxx += gx * gx;
+                        gyy += gy * gy;
+                        gxy += gx * gy;
+                    }
+                }
+            } else {
+                region(img, tlx, tly, width, width, t, 0);
+                region(dx, tlx, tly, width, width, tx, 0);
+                region(dy, tlx, tly, width, width, ty, 0);
+                for (int i = 0; i < length; i++) {
+                    float gx = tx[i], gy = ty[i];
+                    gxx += gx * gx;
+                    gyy += gy * gy;
+                    gxy += gx * gy;
+                }
             }
             f.gxx[l] = gxx; f.gyy[l] = gyy; f.gxy[l] = gxy;
             f.complete[l] = true;
