@@ -158,9 +158,9 @@ final class AffineAnchor {
             double bias = sw / n, gain = swt / stt;
             if (!(gain > MIN_GAIN)) return Status.SINGULAR;
             double b0 = 0, b1 = 0, b2 = 0, b3 = 0, b4 = 0, b5 = 0;
-            double abs = 0;
+            double abs = 0, inverseGain = 1 / gain;
             for (int k = 0, o = 0; k < n; k++, o += 6) {
-                double e = (window[k] - bias) / gain - template[k];
+                double e = (window[k] - bias) * inverseGain - template[k];
                 abs += Math.abs(e);
                 b0 += sd[o] * e; b1 += sd[o + 1] * e; b2 += sd[o + 2] * e;
                 b3 += sd[o + 3] * e; b4 += sd[o + 4] * e; b5 += sd[o + 5] * e;

@@ -52,7 +52,7 @@ import java.util.List;
 public final class KltTracker {
     /** Gaussian kernel radius of the pyramid (5 taps, as in [2]); the sigma is derived from it by BoofCV. */
     private static final int PYRAMID_KERNEL_RADIUS = 2;
-    /** BoofCV's own singularity guard on det G per pixel; texture is judged by {@link KltConfig#minEigenvalue}. */
+    /** Singularity guard on det G per window pixel (as in BoofCV, the earlier engine); texture is judged by {@link KltConfig#minEigenvalue}. */
     private static final float MIN_DETERMINANT = 1e-6f;
     /**
      * Most iterations of the drift correction: it starts from the frame-to-frame answer, a few hundredths of a pixel

@@ -55,7 +55,7 @@ import java.util.List;
  * T. Ishikawa, S. Baker, "The template update problem", IEEE PAMI 26(6), 2004. [6] S. Baker, I. Matthews,
  * "Lucas-Kanade 20 years on: a unifying framework", IJCV 56(3), 2004.
  */
-final class BoofKltReference {
+public final class BoofKltReference {
     /** Gaussian kernel radius of the pyramid (5 taps, as in [2]); the sigma is derived from it by BoofCV. */
     private static final int PYRAMID_KERNEL_RADIUS = 2;
     /** BoofCV's own singularity guard on det G per pixel; texture is judged by {@link KltConfig#minEigenvalue}. */
@@ -102,7 +102,7 @@ final class BoofKltReference {
      * @param seeding detector that picks the points to track, or null when points are always given to
      *                {@link #start(GrayF32, int, List)}
      */
-    BoofKltReference(KltConfig config, DetectorConfig seeding) {
+    public BoofKltReference(KltConfig config, DetectorConfig seeding) {
         config.checkValidity();
         this.config = config.copy();
         if (seeding != null) {
