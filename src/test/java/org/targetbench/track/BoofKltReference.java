@@ -38,7 +38,7 @@ import java.util.List;
  * away from the feature over many frames, because every re-taken template carries the last frame's error. So each
  * track also keeps the template of the frame it was born in, and after the frame-to-frame step that template is
  * aligned with the full-resolution frame under an affine warp with gain and bias, inverse compositional
- * ({@link AffineAnchor}; [6] sec. 3.2), starting from the frame-to-frame position and the warp of the previous frame;
+ * ({@link AffineAnchorReference}; [6] sec. 3.2), starting from the frame-to-frame position and the warp of the previous frame;
  * when it converges within {@link KltConfig#maxCorrection} of the frame-to-frame position its answer replaces it
  * ([5] sec. 2.4, strategy 3). The affine warp follows the roll, zoom and local lens distortion of an approach that a
  * translation-only window cannot. The residual check is made against that first template, warped (a window whose
@@ -84,10 +84,10 @@ public final class BoofKltReference {
         final PyramidKltFeature feature;
         final boolean initial;
         /** Drift correction against the first template; null when off or the first window was incomplete. */
-        final AffineAnchor anchor;
+        final AffineAnchorReference anchor;
         float x, y;
 
-        Live(int id, PyramidKltFeature feature, AffineAnchor anchor, boolean initial, float x, float y) {
+        Live(int id, PyramidKltFeature feature, AffineAnchorReference anchor, boolean initial, float x, float y) {
             this.id = id;
             this.anchor = anchor;
             this.feature = feature;
@@ -235,7 +235,7 @@ public final class BoofKltReference {
                 outcome[i] = TrackOutcome.LEFT_IMAGE;
                 continue;
             }
-            if (t.anchor != null && t.anchor.align(current.getLayer(0), fx[i], fy[i], Math.min(config.maxIterations, ANCHOR_ITERATIONS), config.epsilon) == AffineAnchor.Status.CONVERGED) {
+            if (t.anchor != null && t.anchor.align(current.getLayer(0), fx[i], fy[i], Math.min(config.maxIterations, ANCHOR_ITERATIONS), config.epsilon) == AffineAnchorReference.Status.CONVERGED) {
                 // [5] strategy 3: keep the first template's answer when it lies close to the frame-to-frame one
                 if (t.anchor.residual > config.maxResidual) {
                     outcome[i] = TrackOutcome.RESIDUAL_TOO_LARGE;
@@ -307,9 +307,9 @@ public final class BoofKltReference {
                 spare.add(f);
                 continue;
             }
-            AffineAnchor anchor = null;
+            AffineAnchorReference anchor = null;
             if (config.driftCorrection) {
-                anchor = new AffineAnchor(config.windowRadius);
+                anchor = new AffineAnchorReference(config.windowRadius);
                 if (!anchor.init(current.getLayer(0), currentDx[0], currentDy[0], x, y)) anchor = null;
             }
             Live t = new Live(nextId++, f, anchor, initial, x, y);
