@@ -2,7 +2,6 @@ package org.targetbench.track;
 
 import boofcv.struct.image.GrayF32;
 
-import java.util.Arrays;
 
 /**
  * Drift correction of one track against the template taken where the track was born: an affine inverse-compositional
@@ -56,7 +55,7 @@ final class AffineAnchor {
     /** Steepest-descent images, 6 per pixel. */
     private final double[] sd;
     /** Damped Hessian and scratch for the one with the shape prior, 6 x 6 row-major. */
-    private final double[] hess = new double[36], hAug = new double[36], hInvAug = new double[36], hInv = new double[36];
+    private final double[] scratch = new double[36], hess = new double[36], hAug = new double[36], hInvAug = new double[36], hInv = new double[36];
     /** Mean diagonal of the Hessian's linear block, the scale of the shape prior. */
     private double linScale;
     /** Scratch: samples of the current window, the right-hand side and the step. */
@@ -118,7 +117,7 @@ final class AffineAnchor {
         for (int i = 0; i < 4; i++) h[7 * i] += DAMPING * lin;
         linScale = lin;
         System.arraycopy(h, 0, hess, 0, 36);
-        if (!(stt > 0) || !invert6(h, hInv)) return false;
+        if (!(stt > 0) || !invert6(h, hInv, scratch)) return false;
         a11 = 1; a12 = 0; a21 = 0; a22 = 1;
         return true;
     }
@@ -139,7 +138,7 @@ final class AffineAnchor {
             hAug[0] += lam * q11; hAug[2] += lam * q12; hAug[12] += lam * q12; hAug[14] += lam * q22;
             hAug[7] += lam * q11; hAug[9] += lam * q12; hAug[19] += lam * q12; hAug[21] += lam * q22;
         }
-        if (!invert6(hAug, hInvAug)) return Status.SINGULAR;
+        if (!invert6(hAug, hInvAug, scratch)) return Status.SINGULAR;
         double[] hAug = hInvAug;
         for (int it = 0; it < maxIterations; it++) {
             // every bilinear sample of the window must lie inside the image
@@ -158,14 +157,15 @@ final class AffineAnchor {
             }
             double bias = sw / n, gain = swt / stt;
             if (!(gain > MIN_GAIN)) return Status.SINGULAR;
-            Arrays.fill(b, 0);
-            double abs = 0;
-            for (int k = 0; k < n; k++) {
-                double e = (window[k] - bias) / gain - template[k];
+            double b0 = 0, b1 = 0, b2 = 0, b3 = 0, b4 = 0, b5 = 0;
+            double abs = 0, inverseGain = 1 / gain;
+            for (int k = 0, o = 0; k < n; k++, o += 6) {
+                double e = (window[k] - bias) * inverseGain - template[k];
                 abs += Math.abs(e);
-                int o = 6 * k;
-                for (int i = 0; i < 6; i++) b[i] += sd[o + i] * e;
+                b0 += sd[o] * e; b1 += sd[o + 1] * e; b2 += sd[o + 2] * e;
+                b3 += sd[o + 3] * e; b4 += sd[o + 4] * e; b5 += sd[o + 5] * e;
             }
+            b[0] = b0; b[1] = b1; b[2] = b2; b[3] = b3; b[4] = b4; b[5] = b5;
             residual = abs * gain / n;
             if (lam > 0) {
                 // prior's right-hand side: λ Kᵀ vec(C - P)
@@ -219,9 +219,9 @@ final class AffineAnchor {
         return top + fy * (bot - top);
     }
 
-    /** Gauss-Jordan inversion with partial pivoting of a 6 x 6 row-major matrix; false when singular. */
-    static boolean invert6(double[] m, double[] out) {
-        double[] a = m.clone();
+    /** Gauss-Jordan inversion with partial pivoting of a 6 x 6 row-major matrix ({@code a}: 36 scratch); false when singular. */
+    static boolean invert6(double[] m, double[] out, double[] a) {
+        System.arraycopy(m, 0, a, 0, 36);
         for (int i = 0; i < 36; i++) out[i] = (i % 7 == 0) ? 1 : 0;
         for (int c = 0; c < 6; c++) {
             int p = c;

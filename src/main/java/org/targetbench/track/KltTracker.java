@@ -1,11 +1,5 @@
 package org.targetbench.track;
 
-import boofcv.alg.tracker.klt.ConfigKlt;
-import boofcv.alg.tracker.klt.KltFeature;
-import boofcv.alg.tracker.klt.KltTrackFault;
-import boofcv.alg.tracker.klt.PyramidKltFeature;
-import boofcv.alg.tracker.klt.PyramidKltTracker;
-import boofcv.factory.interpolate.FactoryInterpolation;
 import boofcv.factory.transform.pyramid.FactoryPyramid;
 import boofcv.struct.image.GrayF32;
 import boofcv.struct.image.ImageType;
@@ -20,7 +14,8 @@ import java.util.ArrayList;
 import java.util.List;
 
 /**
- * Pyramidal Kanade-Lucas-Tomasi point tracker with a forward-backward check, on BoofCV's float KLT.
+ * Pyramidal Kanade-Lucas-Tomasi point tracker with a forward-backward check, on its own translation Lucas-Kanade step
+ * ({@link TranslationLk}: inverse compositional, template, gradient and Hessian once per feature and level).
  *
  * <p>Each frame: a Gaussian pyramid (5-tap kernel, factor 2 per level) and the normalised Scharr gradient of every level
  * ({@link ScharrGradient}); every live track is located in the new frame from the coarsest level down, each level
@@ -41,6 +36,9 @@ import java.util.List;
  * aligned residual exceeds {@link KltConfig#maxResidual} ends as {@link TrackOutcome#RESIDUAL_TOO_LARGE}), and the
  * forward-backward check starts from the corrected position with the re-taken template.
  *
+ * <p>Each frame's pyramid and gradients are built once and serve the forward pass, the new templates, seeding and,
+ * as the previous frame's, the next frame's backward pass; nothing is allocated per frame but the result rows.
+ *
  * <p>Caveats: an alignment that does not converge leaves the frame-to-frame position uncorrected for that frame;
  * the tracker is single threaded and not thread safe; every frame of a run must have the same size.
  *
@@ -54,7 +52,7 @@ import java.util.List;
 public final class KltTracker {
     /** Gaussian kernel radius of the pyramid (5 taps, as in [2]); the sigma is derived from it by BoofCV. */
     private static final int PYRAMID_KERNEL_RADIUS = 2;
-    /** BoofCV's own singularity guard on det G per pixel; texture is judged by {@link KltConfig#minEigenvalue}. */
+    /** Singularity guard on det G per window pixel (as in BoofCV, the earlier engine); texture is judged by {@link KltConfig#minEigenvalue}. */
     private static final float MIN_DETERMINANT = 1e-6f;
     /**
      * Most iterations of the drift correction: it starts from the frame-to-frame answer, a few hundredths of a pixel
@@ -65,11 +63,15 @@ public final class KltTracker {
 
     private final KltConfig config;
     private final PointDetector seeder;
-    private final PyramidKltTracker<GrayF32, GrayF32> klt;
+    private final TranslationLk klt;
     private PyramidDiscrete<GrayF32> current, previous;
-    private GrayF32[] currentDx, currentDy, previousDx, previousDy;
+    private GrayF32[] currentDx, currentDy, previousDx, previousDy, currentLevels, previousLevels;
     private final List<Live> live = new ArrayList<>();
-    private final List<PyramidKltFeature> spare = new ArrayList<>();
+    private final List<TranslationLk.Feature> spare = new ArrayList<>();
+    /** Per-frame scratch, grown as needed. */
+    private TrackOutcome[] outcome = new TrackOutcome[0];
+    private float[] fx = new float[0], fy = new float[0];
+    private double[] fb = new double[0];
     private int width = -1, height = -1;
     private int nextId;
     private boolean started;
@@ -77,13 +79,13 @@ public final class KltTracker {
     /** A live track. */
     private static final class Live {
         final int id;
-        final PyramidKltFeature feature;
+        final TranslationLk.Feature feature;
         final boolean initial;
         /** Drift correction against the first template; null when off or the first window was incomplete. */
         final AffineAnchor anchor;
         float x, y;
 
-        Live(int id, PyramidKltFeature feature, AffineAnchor anchor, boolean initial, float x, float y) {
+        Live(int id, TranslationLk.Feature feature, AffineAnchor anchor, boolean initial, float x, float y) {
             this.id = id;
             this.anchor = anchor;
             this.feature = feature;
@@ -109,14 +111,8 @@ public final class KltTracker {
         } else {
             this.seeder = null;
         }
-        ConfigKlt k = new ConfigKlt();
-        k.maxIterations = this.config.maxIterations;
-        k.minPositionDelta = (float) this.config.epsilon;
-        k.maxPerPixelError = (float) this.config.maxResidual;
-        k.minDeterminant = MIN_DETERMINANT;
-        k.driftFracTol = 1.0f;
-        klt = new PyramidKltTracker<>(new CornerCheckedKlt(FactoryInterpolation.bilinearRectangle(GrayF32.class),
-                FactoryInterpolation.bilinearRectangle(GrayF32.class), k));
+        klt = new TranslationLk(this.config.windowRadius, this.config.maxIterations, this.config.epsilon,
+                this.config.maxResidual, MIN_DETERMINANT);
         current = pyramid();
         previous = pyramid();
     }
@@ -188,11 +184,15 @@ public final class KltTracker {
         PyramidDiscrete<GrayF32> p = previous;
         previous = current;
         current = p;
-        GrayF32[] dx = previousDx, dy = previousDy;
+        GrayF32[] dx = previousDx, dy = previousDy, lv = previousLevels;
         previousDx = currentDx;
         previousDy = currentDy;
+        previousLevels = currentLevels;
         current.process(image);
         int n = current.getNumLayers();
+        if (lv == null || lv.length != n) lv = new GrayF32[n];
+        for (int i = 0; i < n; i++) lv[i] = current.getLayer(i);
+        currentLevels = lv;
         if (dx == null || dx.length != n) {
             dx = new GrayF32[n];
             dy = new GrayF32[n];
@@ -209,29 +209,35 @@ public final class KltTracker {
     private TrackFrame track(GrayF32 image, int frame) {
         setFrame(image);
         int n = live.size();
-        TrackOutcome[] outcome = new TrackOutcome[n];
-        float[] fx = new float[n], fy = new float[n];
-        double[] fb = new double[n];
+        if (outcome.length < n) {
+            int m = Math.max(n, 2 * outcome.length);
+            outcome = new TrackOutcome[m];
+            fx = new float[m];
+            fy = new float[m];
+            fb = new double[m];
+        }
+        GrayF32 full = currentLevels[0];
         // forward: previous frame's templates into the current frame, then new templates at the new positions
-        klt.setImage(current, currentDx, currentDy);
         for (int i = 0; i < n; i++) {
             Live t = live.get(i);
+            TranslationLk.Feature f = t.feature;
             fb[i] = Double.NaN;
-            t.feature.setPosition(t.x, t.y);
-            KltTrackFault fault = klt.track(t.feature);
-            if (fault != KltTrackFault.SUCCESS) {
+            f.x = t.x;
+            f.y = t.y;
+            TranslationLk.Fault fault = klt.track(f, currentLevels);
+            if (fault != TranslationLk.Fault.SUCCESS) {
                 outcome[i] = outcome(fault);
                 fx[i] = t.x;
                 fy[i] = t.y;
                 continue;
             }
-            fx[i] = t.feature.x;
-            fy[i] = t.feature.y;
+            fx[i] = f.x;
+            fy[i] = f.y;
             if (!inImage(fx[i], fy[i])) {
                 outcome[i] = TrackOutcome.LEFT_IMAGE;
                 continue;
             }
-            if (t.anchor != null && t.anchor.align(current.getLayer(0), fx[i], fy[i], Math.min(config.maxIterations, ANCHOR_ITERATIONS), config.epsilon) == AffineAnchor.Status.CONVERGED) {
+            if (t.anchor != null && t.anchor.align(full, fx[i], fy[i], Math.min(config.maxIterations, ANCHOR_ITERATIONS), config.epsilon) == AffineAnchor.Status.CONVERGED) {
                 // [5] strategy 3: keep the first template's answer when it lies close to the frame-to-frame one
                 if (t.anchor.residual > config.maxResidual) {
                     outcome[i] = TrackOutcome.RESIDUAL_TOO_LARGE;
@@ -241,48 +247,48 @@ public final class KltTracker {
                     t.anchor.commit();
                     fx[i] = (float) t.anchor.rx;
                     fy[i] = (float) t.anchor.ry;
-                    t.feature.setPosition(fx[i], fy[i]);
                 }
             }
-            if (!klt.setDescription(t.feature) || minEigenvalue(t.feature.desc[0]) < config.minEigenvalue) outcome[i] = TrackOutcome.TOO_FLAT;
+            f.x = fx[i];
+            f.y = fy[i];
+            if (!klt.describe(f, currentLevels, currentDx, currentDy) || f.minEigenvalue(config.windowRadius) < config.minEigenvalue) outcome[i] = TrackOutcome.TOO_FLAT;
             else outcome[i] = TrackOutcome.TRACKED;
         }
         // backward: the new templates into the previous frame must land where the track came from
         if (config.forwardBackward) {
-            klt.setImage(previous, previousDx, previousDy);
             for (int i = 0; i < n; i++) {
                 if (outcome[i] != TrackOutcome.TRACKED) continue;
                 Live t = live.get(i);
-                t.feature.setPosition(fx[i], fy[i]);
-                KltTrackFault fault = klt.track(t.feature);
-                if (fault == KltTrackFault.SUCCESS) {
-                    fb[i] = Math.hypot(t.feature.x - t.x, t.feature.y - t.y);
+                TranslationLk.Feature f = t.feature;
+                f.x = fx[i];
+                f.y = fy[i];
+                TranslationLk.Fault fault = klt.track(f, previousLevels);
+                if (fault == TranslationLk.Fault.SUCCESS) {
+                    fb[i] = Math.hypot(f.x - t.x, f.y - t.y);
                     if (!(fb[i] <= config.fbThreshold)) outcome[i] = TrackOutcome.LOST_FORWARD_BACKWARD;
                 } else {
                     outcome[i] = TrackOutcome.LOST_FORWARD_BACKWARD;
                 }
-                t.feature.setPosition(fx[i], fy[i]);
+                f.x = fx[i];
+                f.y = fy[i];
             }
         }
         List<TrackPoint> rows = new ArrayList<>(n + 8);
-        List<Live> kept = new ArrayList<>(n);
-        int initial = 0;
+        int initial = 0, kept = 0;
         for (int i = 0; i < n; i++) {
             Live t = live.get(i);
             rows.add(new TrackPoint(t.id, frame, fx[i], fy[i], outcome[i], fb[i]));
             if (outcome[i] == TrackOutcome.TRACKED) {
                 t.x = fx[i];
                 t.y = fy[i];
-                kept.add(t);
+                live.set(kept++, t);
                 if (t.initial) initial++;
             } else {
                 spare.add(t.feature);
             }
         }
-        live.clear();
-        live.addAll(kept);
+        live.subList(kept, n).clear();
         if (config.respawn == RespawnPolicy.TOP_UP && live.size() < config.maxTracks && seeder != null) {
-            klt.setImage(current, currentDx, currentDy);
             seed(frame, candidates(image), false, rows);
         }
         return new TrackFrame(frame, rows, live.size(), initial);
@@ -290,16 +296,16 @@ public final class KltTracker {
 
     /** Starts tracks at candidate points on the current frame, strongest first, until there are maxTracks. */
     private void seed(int frame, List<double[]> points, boolean initial, List<TrackPoint> rows) {
-        klt.setImage(current, currentDx, currentDy);
         SpacingGrid grid = new SpacingGrid(config.minSpacing);
         for (Live t : live) grid.add(t.x, t.y);
         for (double[] p : points) {
             if (live.size() >= config.maxTracks) break;
             float x = (float) p[0], y = (float) p[1];
             if (!inImage(x, y) || grid.near(x, y)) continue;
-            PyramidKltFeature f = spare.isEmpty() ? new PyramidKltFeature(config.pyramidLevels, config.windowRadius) : spare.remove(spare.size() - 1);
-            f.setPosition(x, y);
-            if (!klt.setDescription(f) || minEigenvalue(f.desc[0]) < config.minEigenvalue) {
+            TranslationLk.Feature f = spare.isEmpty() ? new TranslationLk.Feature(config.pyramidLevels, config.windowRadius) : spare.remove(spare.size() - 1);
+            f.x = x;
+            f.y = y;
+            if (!klt.describe(f, currentLevels, currentDx, currentDy) || f.minEigenvalue(config.windowRadius) < config.minEigenvalue) {
                 spare.add(f);
                 continue;
             }
@@ -319,15 +325,7 @@ public final class KltTracker {
         return x >= 0 && y >= 0 && x <= width - 1 && y <= height - 1;
     }
 
-    /** Smaller eigenvalue of the template's gradient matrix per window pixel, (grey levels / px)² ([3] eq. 7). */
-    private double minEigenvalue(KltFeature f) {
-        double gxx = f.Gxx, gyy = f.Gyy, gxy = f.Gxy;
-        double half = (gxx + gyy) / 2, root = Math.sqrt((gxx - gyy) * (gxx - gyy) / 4 + gxy * gxy);
-        int side = 2 * f.radius + 1;
-        return (half - root) / (side * side);
-    }
-
-    private static TrackOutcome outcome(KltTrackFault fault) {
+    private static TrackOutcome outcome(TranslationLk.Fault fault) {
         return switch (fault) {
             case OUT_OF_BOUNDS -> TrackOutcome.LEFT_IMAGE;
             case DRIFTED -> TrackOutcome.DIVERGED;

@@ -24,6 +24,7 @@ import org.targetbench.pipeline.TrackRun;
 import org.targetbench.perturb.MotionConfig;
 import org.targetbench.perturb.MotionSource;
 import org.targetbench.target.TargetDesign;
+import org.targetbench.track.BoofKltReference;
 import org.targetbench.track.KltConfig;
 import org.targetbench.track.KltTracker;
 import org.targetbench.track.RespawnPolicy;
@@ -56,7 +57,7 @@ import java.util.SplittableRandom;
  * <pre>
  * mvn -q -DskipTests test-compile dependency:build-classpath -Dmdep.outputFile=target/cp.txt -Dmdep.includeScope=test
  * MALLOC_MMAP_THRESHOLD_=268435456 MALLOC_TRIM_THRESHOLD_=268435456 \
- *   java -cp target/classes:target/test-classes:$(cat target/cp.txt) org.targetbench.bench.TrackBench [--frames N] [--no-heap]
+ *   java -cp target/classes:target/test-classes:$(cat target/cp.txt) org.targetbench.bench.TrackBench [--frames N] [--no-heap] [--engines]
  * </pre>
  */
 public final class TrackBench {
@@ -64,16 +65,18 @@ public final class TrackBench {
 
     public static void main(String[] args) throws Exception {
         int heapFrames = 10_000;
-        boolean heap = true;
+        boolean heap = true, engines = false;
         for (int i = 0; i < args.length; i++) {
             if (args[i].equals("--frames")) heapFrames = Integer.parseInt(args[++i]);
             else if (args[i].equals("--no-heap")) heap = false;
+            else if (args[i].equals("--engines")) engines = true;
         }
         if (System.getenv("MALLOC_MMAP_THRESHOLD_") == null || System.getenv("MALLOC_TRIM_THRESHOLD_") == null)
             System.out.println("note: MALLOC_MMAP_THRESHOLD_ / MALLOC_TRIM_THRESHOLD_ not set; OpenCV will look slower than it is");
         nu.pattern.OpenCV.loadLocally();
         Core.setNumThreads(1);
-        speed();
+        if (engines) engines();
+        else speed();
         if (heap) heap(heapFrames);
     }
 
@@ -115,7 +118,15 @@ public final class TrackBench {
         System.out.println("  row                                   ours p10 / p50 / p90 ms     OpenCV p10 / p50 / p90 ms    ratio of medians");
         for (boolean fb : new boolean[]{false, true})
             for (boolean corrected : new boolean[]{false, true}) {
-                double[] ours = ours(frames, seeds, fb, corrected), cv = opencv(mats, seeds, fb);
+                // rounds alternate between the two so that a change of machine load hits both alike
+                List<Double> o = new ArrayList<>(), c = new ArrayList<>();
+                for (int round = 0; round < ROUNDS; round++) {
+                    double[] a = ours(frames, seeds, fb, corrected), b = opencv(mats, seeds, fb);
+                    if (round < 2) continue; // warm-up
+                    for (double v : a) o.add(v);
+                    for (double v : b) c.add(v);
+                }
+                double[] ours = o.stream().mapToDouble(Double::doubleValue).toArray(), cv = c.stream().mapToDouble(Double::doubleValue).toArray();
                 row((fb ? "KLT forward-backward" : "KLT forward only") + (corrected ? ", drift corr." : ", no drift corr."), ours, cv);
             }
         refinement(frames.get(0), mats.get(0));
@@ -225,6 +236,54 @@ public final class TrackBench {
                 cv.stream().mapToDouble(Double::doubleValue).toArray());
     }
 
+    /**
+     * {@code --engines}: the tracker against the engine it replaced ({@link BoofKltReference}, BoofCV's float KLT, same
+     * rows to the bit: {@code KltEqualityTest}) on the speed rows' frames and points, rounds alternating; no OpenCV.
+     */
+    static void engines() {
+        List<GrayF32> frames = frames();
+        ShiTomasiConfig st = new ShiTomasiConfig();
+        st.maxFeatures = 2000;
+        List<double[]> seeds = new ArrayList<>();
+        for (Detection d : Detectors.create(st).detect(frames.get(0))) {
+            boolean far = d.x() > 40 && d.y() > 40 && d.x() < W - 40 && d.y() < H - 40;
+            for (double[] s : seeds) far &= Math.hypot(s[0] - d.x(), s[1] - d.y()) >= 8;
+            if (far) seeds.add(new double[]{d.x(), d.y()});
+            if (seeds.size() == POINTS) break;
+        }
+        System.out.printf(Locale.ROOT, "KLT engines: %d points, %dx%d, load average %s%n", seeds.size(), W, H, loadAverage());
+        System.out.println("  row                                   ours p10 / p50 / p90 ms     BoofCV engine p10 / p50 / p90   ratio of medians");
+        for (boolean fb : new boolean[]{false, true})
+            for (boolean corrected : new boolean[]{false, true}) {
+                KltConfig k = new KltConfig();
+                k.driftCorrection = corrected;
+                k.maxTracks = POINTS;
+                k.minSpacing = 0;
+                k.forwardBackward = fb;
+                List<Double> o = new ArrayList<>(), c = new ArrayList<>();
+                for (int round = 0; round < ROUNDS; round++) {
+                    KltTracker a = new KltTracker(k, null);
+                    BoofKltReference b = new BoofKltReference(k, null);
+                    a.start(frames.get(0), 0, seeds);
+                    b.start(frames.get(0), 0, seeds);
+                    for (int i = 1; i < frames.size(); i++) {
+                        long t0 = System.nanoTime();
+                        a.process(frames.get(i), i);
+                        long t1 = System.nanoTime();
+                        b.process(frames.get(i), i);
+                        long t2 = System.nanoTime();
+                        if (round >= 2) {
+                            o.add((t1 - t0) / 1e6);
+                            c.add((t2 - t1) / 1e6);
+                        }
+                    }
+                }
+                row((fb ? "KLT forward-backward" : "KLT forward only") + (corrected ? ", drift corr." : ", no drift corr."),
+                        o.stream().mapToDouble(Double::doubleValue).toArray(), c.stream().mapToDouble(Double::doubleValue).toArray());
+            }
+    }
+
+    /** One round of our tracker over the sequence: ms per frame. */
     static double[] ours(List<GrayF32> frames, List<double[]> seeds, boolean fb, boolean corrected) {
         KltConfig k = new KltConfig();
         k.driftCorrection = corrected;
@@ -233,26 +292,27 @@ public final class TrackBench {
         k.forwardBackward = fb;
         List<Double> ms = new ArrayList<>();
         int alive = 0;
-        for (int round = 0; round < ROUNDS; round++) {
+        {
             KltTracker t = new KltTracker(k, null);
             t.start(frames.get(0), 0, seeds);
             for (int i = 1; i < frames.size(); i++) {
                 long t0 = System.nanoTime();
                 TrackFrame f = t.process(frames.get(i), i);
                 long dt = System.nanoTime() - t0;
-                if (round >= 2) ms.add(dt / 1e6);
+                ms.add(dt / 1e6);
                 alive = f.alive();
             }
         }
         return ms.stream().mapToDouble(Double::doubleValue).toArray();
     }
 
+    /** One round of OpenCV over the sequence: ms per frame. */
     static double[] opencv(List<Mat> mats, List<double[]> seeds, boolean fb) {
         TermCriteria crit = new TermCriteria(TermCriteria.COUNT + TermCriteria.EPS, 20, 0.01);
         Size win = new Size(15, 15);
         List<Double> ms = new ArrayList<>();
         Point[] start = seeds.stream().map(s -> new Point(s[0], s[1])).toArray(Point[]::new);
-        for (int round = 0; round < ROUNDS; round++) {
+        {
             MatOfPoint2f prev = new MatOfPoint2f(start);
             for (int i = 1; i < mats.size(); i++) {
                 MatOfPoint2f next = new MatOfPoint2f(), back = new MatOfPoint2f();
@@ -262,7 +322,7 @@ public final class TrackBench {
                 Video.calcOpticalFlowPyrLK(mats.get(i - 1), mats.get(i), prev, next, status, err, win, 3, crit, 0, 1e-4);
                 if (fb) Video.calcOpticalFlowPyrLK(mats.get(i), mats.get(i - 1), next, back, status2, err2, win, 3, crit, 0, 1e-4);
                 long dt = System.nanoTime() - t0;
-                if (round >= 2) ms.add(dt / 1e6);
+                ms.add(dt / 1e6);
                 prev = next;
             }
         }
