@@ -91,7 +91,7 @@ final class ExportView extends JPanel implements Session.Listener {
         try (AtomicOutput out = AtomicOutput.open(dir)) {
             files.addAll(List.of(ServoSetFiles.write(set, out, "servo-set")));
             if (session.pick() != null) {
-                ServoWriters.writeSelection(session.pick().selection(), out.file("servo-set-selection.csv"));
+                ServoWriters.writeSelection(session.pick().selection(), set, out.file("servo-set-selection.csv"));
                 files.add("servo-set-selection.csv");
             }
             if (session.rehearsal() != null)

@@ -94,6 +94,8 @@ public final class Session {
         pick = null;
         servoSet = null;
         rehearsal = null;
+        undo.clear();
+        redo.clear();
         fire(Change.SOURCE);
         fire(Change.FRAME);
     }
@@ -170,14 +172,44 @@ public final class Session {
         pick = p;
         servoSet = p.set().orElse(null);
         rehearsal = null;
+        undo.clear();
+        redo.clear();
         fire(Change.SERVO);
     }
 
-    /** Replaces the set (after a hand edit); an older rehearsal no longer applies. */
+    /** Sets before and after hand edits of the current choice, newest last. */
+    private final java.util.ArrayDeque<org.targetbench.servo.ServoSet> undo = new java.util.ArrayDeque<>(), redo = new java.util.ArrayDeque<>();
+
+    /** Replaces the set (after a hand edit, which can be undone); an older rehearsal no longer applies. */
     public void setServoSet(org.targetbench.servo.ServoSet set) {
+        if (servoSet != null) undo.push(servoSet);
+        redo.clear();
         servoSet = set;
         rehearsal = null;
         fire(Change.SERVO);
+    }
+
+    public boolean canUndo() { return !undo.isEmpty(); }
+    public boolean canRedo() { return !redo.isEmpty(); }
+
+    /** Takes back the latest hand edit of the set; false when there is none. */
+    public boolean undoServoEdit() {
+        if (undo.isEmpty()) return false;
+        redo.push(servoSet);
+        servoSet = undo.pop();
+        rehearsal = null;
+        fire(Change.SERVO);
+        return true;
+    }
+
+    /** Does again the latest undone hand edit; false when there is none. */
+    public boolean redoServoEdit() {
+        if (redo.isEmpty()) return false;
+        undo.push(servoSet);
+        servoSet = redo.pop();
+        rehearsal = null;
+        fire(Change.SERVO);
+        return true;
     }
 
     public void setRehearsal(org.targetbench.servo.RehearsalResult r) {

@@ -211,6 +211,24 @@ class WorkbenchGuiTest {
         robot.click(workbench.servo().canvas(), at);
         waitFor("point back", () -> workbench.session().servoSet().points().size() == 4);
         assertEquals(set.condition(), GuiActionRunner.execute(() -> workbench.session().servoSet().condition()), 1e-9);
+        // Ctrl+Z takes the click back, Ctrl+Shift+Z does it again; the points spinner follows the set
+        robot.focusAndWaitForFocusGain(workbench.servo().canvas());
+        robot.pressAndReleaseKey(java.awt.event.KeyEvent.VK_Z, java.awt.event.InputEvent.CTRL_MASK);
+        waitFor("click undone", () -> workbench.session().servoSet().points().size() == 3);
+        window.spinner("servo.count").requireValue(3);
+        robot.pressAndReleaseKey(java.awt.event.KeyEvent.VK_Z, java.awt.event.InputEvent.CTRL_MASK | java.awt.event.InputEvent.SHIFT_MASK);
+        waitFor("click redone", () -> workbench.session().servoSet().points().size() == 4);
+        window.spinner("servo.count").requireValue(4);
+        // a hand-added point that failed a filter is kept, with a warning; the spinner shows 5
+        var pick = GuiActionRunner.execute(() -> workbench.session().pick());
+        var failing = pick.selection().rejected().stream().filter(r -> r.why().isFilter()).findFirst();
+        int added = failing.map(r -> r.candidate().id()).orElseGet(() -> pick.selection().rejected().get(0).candidate().id());
+        GuiActionRunner.execute(() -> workbench.servo().toggle(added));
+        waitFor("point added by hand", () -> workbench.session().servoSet().points().size() == 5);
+        window.spinner("servo.count").requireValue(5);
+        if (failing.isPresent())
+            window.label("servo.findings").requireText(java.util.regex.Pattern.compile(".*point #" + added + " was added by hand and failed a filter.*"));
+        shot("servo-set-edited");
 
         window.list("nav").selectItem("Rehearse");
         window.spinner("rehearse.starts").enterTextAndCommit("20");
@@ -249,6 +267,14 @@ class WorkbenchGuiTest {
         assertEquals(current, ServoSetReader.read(dir.resolve("servo-set.json")));
         assertEquals(current, ServoSetReader.read(dir.resolve("servo-set.csv")));
         assertTrue(Files.exists(dir.resolve("rehearsal/rehearsal.html")));
+        // the selection file says exactly what the set holds: its chosen rows are the set's points
+        java.util.List<String> rows = Files.readAllLines(dir.resolve("servo-set-selection.csv"));
+        java.util.Set<Integer> chosenIds = new java.util.TreeSet<>(), setIds = new java.util.TreeSet<>();
+        for (String r : rows.subList(1, rows.size())) if (r.split(",")[3].equals("chosen")) chosenIds.add(Integer.parseInt(r.split(",")[0]));
+        for (var q : current.points()) setIds.add(q.id());
+        assertEquals(setIds, chosenIds);
+        assertTrue(setIds.contains(added), "the hand-added point is in both");
+        assertEquals(pick.candidates().size(), rows.size() - 1, "every candidate has one row");
     }
 
     @Test
