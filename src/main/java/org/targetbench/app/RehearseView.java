@@ -80,13 +80,14 @@ final class RehearseView extends JPanel implements Session.Listener {
         c.law = (ControlLaw) law.getSelectedItem();
         run.setEnabled(false);
         ctx.status().accept("Rehearsing " + c.starts + " starts...");
+        long t0 = System.nanoTime();
         new SwingWorker<RehearsalResult, Void>() {
             @Override protected RehearsalResult doInBackground() throws Exception { return Rehearsal.run(set, c); }
             @Override protected void done() {
                 run.setEnabled(true);
                 try {
                     RehearsalResult r = get();
-                    if (session.servoSet() == set) session.setRehearsal(r);
+                    if (session.servoSet() == set) session.setRehearsal(r, (System.nanoTime() - t0) / 1e9);
                     ctx.status().accept(String.format(Locale.ROOT, "Rehearsal: %d of %d converged", r.summary().converged(), r.summary().runs()));
                 } catch (ExecutionException e) {
                     ctx.status().accept("Rehearsal failed: " + e.getCause().getMessage());

@@ -94,6 +94,8 @@ public final class Session {
         pick = null;
         servoSet = null;
         rehearsal = null;
+        rehearsedSet = null;
+        lastRehearsal = null;
         undo.clear();
         redo.clear();
         fire(Change.SOURCE);
@@ -172,6 +174,8 @@ public final class Session {
         pick = p;
         servoSet = p.set().orElse(null);
         rehearsal = null;
+        rehearsedSet = null;
+        lastRehearsal = null;
         undo.clear();
         redo.clear();
         fire(Change.SERVO);
@@ -185,7 +189,7 @@ public final class Session {
         if (servoSet != null) undo.push(servoSet);
         redo.clear();
         servoSet = set;
-        rehearsal = null;
+        rehearsal = rehearsalOf(set);
         fire(Change.SERVO);
     }
 
@@ -197,7 +201,7 @@ public final class Session {
         if (undo.isEmpty()) return false;
         redo.push(servoSet);
         servoSet = undo.pop();
-        rehearsal = null;
+        rehearsal = rehearsalOf(servoSet);
         fire(Change.SERVO);
         return true;
     }
@@ -207,15 +211,39 @@ public final class Session {
         if (redo.isEmpty()) return false;
         undo.push(servoSet);
         servoSet = redo.pop();
-        rehearsal = null;
+        rehearsal = rehearsalOf(servoSet);
         fire(Change.SERVO);
         return true;
     }
 
     public void setRehearsal(org.targetbench.servo.RehearsalResult r) {
+        setRehearsal(r, 0);
+    }
+
+    /** The rehearsal of the current set, and how long it took, seconds. */
+    public void setRehearsal(org.targetbench.servo.RehearsalResult r, double elapsedS) {
         rehearsal = r;
+        rehearsedSet = r == null ? null : servoSet;
+        lastRehearsal = r;
+        rehearsalElapsedS = elapsedS;
         fire(Change.SERVO);
     }
+
+    /** The set the latest rehearsal ran on (it applies to the current set only when equal to it), or null. */
+    private org.targetbench.servo.ServoSet rehearsedSet;
+    private double rehearsalElapsedS;
+
+    private org.targetbench.servo.RehearsalResult lastRehearsal;
+
+    private org.targetbench.servo.RehearsalResult rehearsalOf(org.targetbench.servo.ServoSet set) {
+        return set != null && set.equals(rehearsedSet) ? lastRehearsal : null;
+    }
+
+    /** True when a rehearsal was run on an earlier state of the set, which has changed since. */
+    public boolean changedSinceRehearsal() { return rehearsal == null && rehearsedSet != null; }
+
+    /** Seconds the current rehearsal took. */
+    public double rehearsalElapsedS() { return rehearsalElapsedS; }
 
     /** Called by the detection runner with results for the current state. */
     void setDetections(FrameDetections d) {

@@ -275,6 +275,42 @@ class WorkbenchGuiTest {
         assertEquals(setIds, chosenIds);
         assertTrue(setIds.contains(added), "the hand-added point is in both");
         assertEquals(pick.candidates().size(), rows.size() - 1, "every candidate has one row");
+        // the JSON records the rehearsal of exactly this set, and the files its report links to are beside it
+        var json = new com.fasterxml.jackson.databind.ObjectMapper().readTree(dir.resolve("servo-set.json").toFile());
+        var rehearsed = GuiActionRunner.execute(() -> workbench.session().rehearsal());
+        assertEquals(rehearsed.summary().runs(), json.at("/rehearsal/summary/runs").asInt());
+        assertEquals(rehearsed.config().starts, json.at("/rehearsal/settings/starts").asInt());
+        assertTrue(Files.exists(dir.resolve("rehearsal/rehearsal.csv")) && Files.exists(dir.resolve("rehearsal/rehearsal-summary.json")));
+
+        // a set changed since its rehearsal: export asks first; cancelled, nothing is written; accepted, it says "not rehearsed"
+        window.list("nav").selectItem("Servo set");
+        window.button("servo.undo").click();
+        waitFor("set changed", () -> workbench.session().servoSet().points().size() == 4 && workbench.session().changedSinceRehearsal());
+        window.list("nav").selectItem("Export");
+        Path dir2 = tmp.resolve("unrehearsed");
+        Files.createDirectories(dir2);
+        window.button("export.write").click();
+        press(window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).requireTitle(ExportView.UNREHEARSED_TITLE)
+                .requireMessage(java.util.regex.Pattern.compile(".*changed since it was rehearsed.*", java.util.regex.Pattern.DOTALL)).cancelButton());
+        awaitDialogsClosed();
+        assertEquals(0, GuiActionRunner.execute(() -> (int) java.util.Arrays.stream(java.awt.Window.getWindows())
+                .filter(w -> w instanceof javax.swing.JDialog && w.isShowing()).count()), "no file chooser after cancelling");
+        window.button("export.write").click();
+        press(window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).requireTitle(ExportView.UNREHEARSED_TITLE).okButton());
+        var chooser2 = window.fileChooser(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).target();
+        GuiActionRunner.execute(() -> {
+            chooser2.setCurrentDirectory(tmp.toFile());
+            chooser2.setSelectedFile(dir2.toFile());
+            chooser2.approveSelection();
+        });
+        waitFor("exported unrehearsed", () -> Files.exists(dir2.resolve("servo-set.json")));
+        assertEquals(org.targetbench.export.ServoSetJson.NOT_REHEARSED,
+                new com.fasterxml.jackson.databind.ObjectMapper().readTree(dir2.resolve("servo-set.json").toFile()).get("rehearsal").asText());
+        assertFalse(Files.exists(dir2.resolve("rehearsal")));
+        // redo brings back the rehearsed set, and its rehearsal with it
+        window.list("nav").selectItem("Servo set");
+        window.button("servo.redo").click();
+        waitFor("rehearsed set back", () -> workbench.session().rehearsal() == rehearsed);
     }
 
     @Test
