@@ -181,6 +181,21 @@ public final class Session {
         fire(Change.SERVO);
     }
 
+    /**
+     * A servo set read from a file (to rehearse or re-export it): there is no choice behind it, so no candidates and no
+     * selection reasons; its hand-edit history starts empty.
+     */
+    public void loadServoSet(org.targetbench.servo.ServoSet set) {
+        pick = null;
+        servoSet = set;
+        rehearsal = null;
+        rehearsedSet = null;
+        lastRehearsal = null;
+        undo.clear();
+        redo.clear();
+        fire(Change.SERVO);
+    }
+
     /** Sets before and after hand edits of the current choice, newest last. */
     private final java.util.ArrayDeque<org.targetbench.servo.ServoSet> undo = new java.util.ArrayDeque<>(), redo = new java.util.ArrayDeque<>();
 

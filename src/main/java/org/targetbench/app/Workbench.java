@@ -67,7 +67,7 @@ public final class Workbench extends JFrame {
         views.put("Stress", new StressView(ctx));
         views.put("Track", new TrackView(ctx));
         views.put("Servo set", servo = new ServoView(ctx));
-        views.put("Rehearse", new RehearseView(ctx));
+        views.put("Rehearse", rehearseView = new RehearseView(ctx));
         views.put("Export", exportView = new ExportView(ctx));
         views.put("Targets", new DesignsView(ctx));
         for (var e : views.entrySet()) center.add(e.getValue(), e.getKey());
@@ -172,6 +172,10 @@ public final class Workbench extends JFrame {
     CameraView camera() { return camera; }
 
     ServoView servo() { return servo; }
+
+    private RehearseView rehearseView;
+
+    RehearseView rehearseView() { return rehearseView; }
 
     ExportView exportView() { return exportView; }
 

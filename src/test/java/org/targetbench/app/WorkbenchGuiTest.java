@@ -311,6 +311,25 @@ class WorkbenchGuiTest {
         window.list("nav").selectItem("Servo set");
         window.button("servo.redo").click();
         waitFor("rehearsed set back", () -> workbench.session().rehearsal() == rehearsed);
+
+        // the exported set loads back to be rehearsed again, with the command line's controls; runs stay side by side
+        window.list("nav").selectItem("Rehearse");
+        assertTrue(GuiActionRunner.execute(() -> workbench.rehearseView().loadSet(dir2.resolve("servo-set.json"))));
+        waitFor("loaded set", () -> workbench.session().servoSet() != null && workbench.session().servoSet().points().size() == 4
+                && workbench.session().pick() == null && workbench.session().rehearsal() == null);
+        window.comboBox("rehearse.depth").selectItem("scaled");
+        window.spinner("rehearse.depth.error").enterTextAndCommit("1.2");
+        window.checkBox("rehearse.noise.measured").uncheck();
+        window.spinner("rehearse.noise").enterTextAndCommit("0.2");
+        window.button("rehearse.run").click();
+        waitFor("second rehearsal", () -> workbench.session().rehearsal() != null && workbench.rehearseView().runCount() == 2);
+        var second = GuiActionRunner.execute(() -> workbench.session().rehearsal().config());
+        assertEquals(1.2, second.depthErrorFactor, 1e-12);
+        assertEquals(0.2, second.noiseSigmaPx, 1e-12);
+        assertEquals(org.targetbench.servo.DepthMode.SCALED, second.depthMode);
+        assertEquals("scaled x1.20", GuiActionRunner.execute(() -> window.table("rehearse.runs").target().getValueAt(1, 4)));
+        pause(300);
+        shot("rehearse-two-runs");
     }
 
     @Test
