@@ -95,9 +95,15 @@ final class DesignsView extends JPanel {
                 Ui.button("designs.use", "Use in live view", "Render this target from the arm positions of the demo and look at it live", this::useLive)),
                 BorderLayout.NORTH);
         JTable t = Ui.named(new JTable(checks), "designs.checks", null);
+        DetailPane.columnTips(t, "What is checked", "PASS, WARN or FAIL against the threshold (coloured, and always in words)",
+                "The measured or computed figure, with its unit", "The limit it is held against, with its unit",
+                "Where the threshold comes from: a published source, derived, or common practice");
         JScrollPane ts = new JScrollPane(t);
         ts.setPreferredSize(new Dimension(800, 140));
         bottom.add(ts, BorderLayout.CENTER);
+        DetailPane detail = new DetailPane("designs.detail", "Select a check line to read it in full.", t);
+        detail.setPreferredSize(new Dimension(380, 140));
+        bottom.add(detail, BorderLayout.EAST);
         add(bottom, BorderLayout.SOUTH);
         updateCameraLabel();
         loadFolder();

@@ -52,7 +52,7 @@ final class RehearseView extends JPanel implements Session.Listener {
             "Pixel noise: each point's measured jitter (0 where not measured); untick to give one figure (--noise)");
     private final JSpinner noise = Ui.named(new JSpinner(new SpinnerNumberModel(0.1, 0.0, 10.0, 0.05)), "rehearse.noise",
             "Pixel noise standard deviation, px (--noise)");
-    private final JSpinner seed = Ui.named(new JSpinner(new SpinnerNumberModel(1, 0, Integer.MAX_VALUE, 1)), "rehearse.seed", "Random seed of the start poses and noise (--seed)");
+    private final JSpinner seed = Ui.named(new JSpinner(new SpinnerNumberModel(1, 0, 999_999, 1)), "rehearse.seed", "Random seed of the start poses and noise (--seed)");
     /** One row per rehearsal of this session, side by side: what was run and its headline figures. */
     private final DefaultTableModel runs = new DefaultTableModel(new Object[]{"Run", "Set", "Law", "Lambda 1/s", "Depth", "Noise px",
             "Envelope mm, deg", "Converged", "Median time s", "Median final error px", "Largest retreat mm"}, 0) {
@@ -90,6 +90,11 @@ final class RehearseView extends JPanel implements Session.Listener {
                 new JLabel("depth error x"), depthError, new JLabel("Noise"), measuredNoise, noise, new JLabel("px")));
         add(controls, BorderLayout.NORTH);
         JTable runsTable = Ui.named(new JTable(runs), "rehearse.runs", null);
+        DetailPane.columnTips(runsTable, "Order of the rehearsal in this session", "Points and cond(L*) of the set rehearsed",
+                "Control law: which interaction matrix it inverts", "Gain lambda, 1/s", "Depths the controller believes",
+                "Pixel noise standard deviation, px, or each point's measured jitter", "Start envelope: +- mm on each axis, +- deg about x,y / about z",
+                "Runs that converged below the threshold (0.5 px RMS by default)", "Median time to converge, s",
+                "Median final image error, px RMS over points", "Largest retreat along the optical axis, mm");
         JScrollPane runsPane = new JScrollPane(runsTable);
         runsPane.setPreferredSize(new Dimension(600, 120));
         runsPane.setBorder(javax.swing.BorderFactory.createTitledBorder("Runs of this session, side by side"));
@@ -99,7 +104,10 @@ final class RehearseView extends JPanel implements Session.Listener {
         JScrollPane sp = new JScrollPane(t);
         sp.setPreferredSize(new Dimension(420, 260));
         left.add(sp, BorderLayout.CENTER);
-        left.add(warnings, BorderLayout.SOUTH);
+        JPanel under = new JPanel(new BorderLayout());
+        under.add(warnings, BorderLayout.NORTH);
+        under.add(new DetailPane("rehearse.detail", "Select a figure or a run to read it in full.", t, runsTable), BorderLayout.CENTER);
+        left.add(under, BorderLayout.SOUTH);
         add(left, BorderLayout.WEST);
         add(ArmRehearsePanel.tabs(new JScrollPane(charts), new ArmRehearsePanel(ctx, () -> (Double) lambda.getValue())), BorderLayout.CENTER);
         session.addListener(this);

@@ -49,6 +49,7 @@ final class ServoView extends JPanel implements Session.Listener {
     private final javax.swing.JComboBox<String> detector = Ui.named(new javax.swing.JComboBox<>(detectorChoices()), "servo.detector",
             "Detector whose reference-frame points are the candidates; top-ranked takes the comparison's best");
     private JButton undoButton, redoButton;
+    private DetailPane detail;
     private final JLabel figures = Ui.named(new JLabel("No set yet: press Choose points."), "servo.figures", Ui.TIP_COND);
     private final JLabel findings = Ui.named(new JLabel(" "), "servo.findings", null);
     private final DefaultTableModel chosen = table("Id", "u px", "v px", "Z m", "Why chosen");
@@ -86,6 +87,13 @@ final class ServoView extends JPanel implements Session.Listener {
         JSplitPane tables = new JSplitPane(JSplitPane.VERTICAL_SPLIT, new JScrollPane(ct), new JScrollPane(rt));
         tables.setResizeWeight(0.4);
         right.add(tables, BorderLayout.CENTER);
+        DetailPane.columnTips(ct, "Candidate id (index of the detection in the reference frame)", "Image column, px (pixel-centre convention)",
+                "Image row, px", "Depth in the reference camera frame, m", "Why the point is in the set: its robustness against the filter limits and what cond(L*) would be without it");
+        DetailPane.columnTips(rt, "Candidate id", "Image column, px", "Image row, px",
+                "Why the candidate is not in the set: the filter it failed (limits from the selection settings) or how it lost to the chosen points");
+        detail = new DetailPane("servo.detail", "Select a row to read its reason in full.", ct, rt);
+        detail.setPreferredSize(new Dimension(520, 130));
+        right.add(detail, BorderLayout.SOUTH);
         right.setPreferredSize(new Dimension(520, 400));
         JSplitPane split = new JSplitPane(JSplitPane.HORIZONTAL_SPLIT, canvas, right);
         split.setResizeWeight(0.68);
@@ -94,6 +102,8 @@ final class ServoView extends JPanel implements Session.Listener {
     }
 
     FrameCanvas canvas() { return canvas; }
+
+    DetailPane detail() { return detail; }
 
     private static String[] detectorChoices() {
         List<String> names = new ArrayList<>();

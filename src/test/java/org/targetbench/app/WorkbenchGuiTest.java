@@ -118,6 +118,35 @@ class WorkbenchGuiTest {
         GuiActionRunner.execute(() -> b.target().doClick());
     }
 
+    /**
+     * Every visual row of a wrapping text area fits its width, measured with the area's font metrics, and the rows
+     * together hold the whole text: nothing is cut off (a vertical scroll bar may still be needed).
+     */
+    static void assertAllRowsFit(javax.swing.JTextArea area) {
+        GuiActionRunner.execute(() -> {
+            java.awt.FontMetrics fm = area.getFontMetrics(area.getFont());
+            java.awt.Insets in = area.getInsets();
+            int usable = area.getWidth() - in.left - in.right;
+            assertTrue(usable > 100, "laid out: " + usable);
+            String text = area.getText();
+            StringBuilder seen = new StringBuilder();
+            try {
+                int p = 0;
+                while (p < text.length()) {
+                    int end = javax.swing.text.Utilities.getRowEnd(area, p);
+                    String row = text.substring(p, Math.min(text.length(), end + 1)).replace("\n", "");
+                    assertTrue(fm.stringWidth(row.stripTrailing()) <= usable, "row '" + row + "' is " + fm.stringWidth(row) + " px wide in " + usable + " px");
+                    seen.append(text, p, Math.min(text.length(), end + 1));
+                    p = end + 1;
+                }
+            } catch (javax.swing.text.BadLocationException e) {
+                throw new AssertionError(e);
+            }
+            assertEquals(text, seen.toString());
+            return null;
+        });
+    }
+
     static void shot(String name) throws Exception {
         BufferedImage img = GuiActionRunner.execute(() -> {
             BufferedImage b = new BufferedImage(workbench.getWidth(), workbench.getHeight(), BufferedImage.TYPE_INT_RGB);
@@ -193,6 +222,10 @@ class WorkbenchGuiTest {
     @Test
     @Order(6)
     void aServoSetIsChosenEditedRehearsedAndExported(@org.junit.jupiter.api.io.TempDir Path tmp) throws Exception {
+        GuiActionRunner.execute(() -> {
+            workbench.setSize(1280, 800);
+            workbench.validate();
+        });
         window.list("nav").selectItem("Servo set");
         window.button("servo.choose").click();
         waitFor("servo set chosen", () -> workbench.session().servoSet() != null);
@@ -229,6 +262,21 @@ class WorkbenchGuiTest {
         if (failing.isPresent())
             window.label("servo.findings").requireText(java.util.regex.Pattern.compile(".*point #" + added + " was added by hand and failed a filter.*"));
         shot("servo-set-edited");
+        // the longest reason, selected, reads in full in the detail pane at 1280 x 800: every wrapped row fits its width
+        JTable rejectedTable = window.table("servo.rejected").target();
+        int longest = GuiActionRunner.execute(() -> {
+            int best = 0;
+            for (int i = 1; i < rejectedTable.getRowCount(); i++)
+                if (rejectedTable.getValueAt(i, 3).toString().length() > rejectedTable.getValueAt(best, 3).toString().length()) best = i;
+            return best;
+        });
+        window.table("servo.rejected").selectRows(longest);
+        String reason = GuiActionRunner.execute(() -> rejectedTable.getValueAt(longest, 3).toString());
+        javax.swing.JTextArea detail = (javax.swing.JTextArea) window.textBox("servo.detail").target();
+        waitFor("reason in the detail pane", () -> detail.getText().contains(reason));
+        pause(200);
+        assertAllRowsFit(detail);
+        shot("servo-set-detail");
 
         window.list("nav").selectItem("Rehearse");
         window.spinner("rehearse.starts").enterTextAndCommit("20");
