@@ -183,9 +183,7 @@ final class DesignsView extends JPanel {
                 default -> r.armMm = s;
             }
             if (r.pattern.equals("xcorners")) { r.count = r.rows; r.rows = null; r.cols = null; }
-            TargetDesign d = r.build();
-            designs.addElement(d);
-            list.setSelectedValue(d, true);
+            addDesign(r.build());
         } catch (IllegalArgumentException e) {
             JOptionPane.showMessageDialog(ctx.window(), e.getMessage(), "Cannot make that design", JOptionPane.WARNING_MESSAGE);
         }
@@ -195,13 +193,30 @@ final class DesignsView extends JPanel {
 
     private static Double blankOrDouble(String s) { return s.isBlank() ? null : Double.valueOf(s.trim()); }
 
+    /**
+     * Adds a design to the list, or selects the one already listed when the same design (equal id, sizes and features)
+     * is opened again; a different design under a listed id is added.
+     */
+    TargetDesign addDesign(TargetDesign d) {
+        for (int i = 0; i < designs.size(); i++)
+            if (designs.get(i).equals(d)) {
+                list.setSelectedIndex(i);
+                list.ensureIndexIsVisible(i);
+                ctx.status().accept("Design " + d.id() + " is already listed; selected it");
+                return designs.get(i);
+            }
+        designs.addElement(d);
+        list.setSelectedValue(d, true);
+        return d;
+    }
+
+    int designCount() { return designs.size(); }
+
     private void openDesign() {
         JFileChooser fc = new JFileChooser(DESIGNS.toFile());
         if (fc.showOpenDialog(ctx.window()) != JFileChooser.APPROVE_OPTION) return;
         try {
-            TargetDesign d = TargetFile.read(fc.getSelectedFile().toPath());
-            designs.addElement(d);
-            list.setSelectedValue(d, true);
+            addDesign(TargetFile.read(fc.getSelectedFile().toPath()));
         } catch (Exception e) {
             JOptionPane.showMessageDialog(ctx.window(), e.getMessage(), "Cannot read the design", JOptionPane.WARNING_MESSAGE);
         }

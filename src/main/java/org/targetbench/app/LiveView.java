@@ -149,6 +149,7 @@ final class LiveView extends JPanel implements Session.Listener {
     }
 
     void loadDemo() {
+        session.expectOrigin(new Session.Origin(org.targetbench.formats.SessionFile.SourceKind.DEMO, java.util.Optional.empty()));
         LiveLoad.load(ctx, "demo scene", SourceLoader::demo, false);
     }
 
@@ -174,6 +175,7 @@ final class LiveView extends JPanel implements Session.Listener {
     }
 
     void loadVideo(Path f) {
+        session.expectOrigin(new Session.Origin(org.targetbench.formats.SessionFile.SourceKind.VIDEO, java.util.Optional.of(f)));
         load(f.getFileName().toString(), () -> SourceLoader.video(f));
     }
 
@@ -241,6 +243,7 @@ final class LiveView extends JPanel implements Session.Listener {
     }
 
     void loadFolder(Path dir) {
+        session.expectOrigin(new Session.Origin(org.targetbench.formats.SessionFile.SourceKind.FOLDER, java.util.Optional.of(dir)));
         load(dir.toString(), () -> SourceLoader.folder(dir));
     }
 

@@ -59,6 +59,8 @@ public final class Session {
 
     public void addListener(Listener l) { listeners.add(l); }
 
+    public void removeListener(Listener l) { listeners.remove(l); }
+
     private void fire(Change c) {
         if (!SwingUtilities.isEventDispatchThread()) throw new IllegalStateException("session changed off the event-dispatch thread");
         for (Listener l : listeners) l.changed(c);
@@ -82,8 +84,21 @@ public final class Session {
         setSource(name, newFrames, referenceName, java.util.Optional.empty());
     }
 
+    /** Where the next source to be set comes from (the demo, a video or a folder), so that a session can be saved. */
+    public record Origin(org.targetbench.formats.SessionFile.SourceKind kind, java.util.Optional<java.nio.file.Path> path) {}
+
+    private Origin pendingOrigin, origin;
+
+    /** Says where the source that is being loaded comes from; the next {@link #setSource} takes it. */
+    public void expectOrigin(Origin o) { pendingOrigin = o; }
+
+    /** Where the current frames came from, or null when they cannot be reopened from a file (e.g. a registration). */
+    public Origin origin() { return origin; }
+
     public void setSource(String name, List<SourceFrame> newFrames, String referenceName, java.util.Optional<Scene> newScene) {
         if (newFrames.isEmpty()) throw new IllegalArgumentException("a source needs at least one frame");
+        origin = pendingOrigin;
+        pendingOrigin = null;
         frames = List.copyOf(newFrames);
         sourceName = name;
         scene = newScene;

@@ -519,4 +519,52 @@ class WorkbenchGuiTest {
         waitFor("frame label says so", () -> GuiActionRunner.execute(() -> window.label("play.label").target().getText()).contains("NOT REGISTERED"));
         shot("live-registered");
     }
+
+    @Test
+    @Order(13)
+    void aSessionSavedAndReopenedGivesTheSameState(@org.junit.jupiter.api.io.TempDir Path tmp) throws Exception {
+        awaitDialogsClosed();
+        GuiActionRunner.execute(() -> workbench.live().loadDemo());
+        waitFor("demo loaded", () -> workbench.session().frames().size() == 12 && workbench.session().origin() != null
+                && workbench.session().servoSet() == null);
+        window.list("nav").selectItem("Servo set");
+        window.button("servo.choose").click();
+        waitFor("servo set chosen", () -> workbench.session().servoSet() != null);
+        int extra = GuiActionRunner.execute(() -> workbench.session().pick().selection().rejected().get(0).candidate().id());
+        GuiActionRunner.execute(() -> workbench.servo().toggle(extra));
+        GuiActionRunner.execute(() -> workbench.session().setFrameIndex(3));
+        assertTrue(GuiActionRunner.execute(() -> workbench.sessions().dirty()), "edits are unsaved work");
+        // Ctrl+Q with unsaved work asks first; Cancel keeps the window
+        robot.focusAndWaitForFocusGain(workbench.servo().canvas());
+        robot.pressAndReleaseKey(java.awt.event.KeyEvent.VK_Q, java.awt.event.InputEvent.CTRL_MASK);
+        press(window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).requireTitle(SessionMenu.UNSAVED_TITLE).cancelButton());
+        awaitDialogsClosed();
+        assertTrue(GuiActionRunner.execute(workbench::isDisplayable), "cancelled: the window stays");
+
+        var set = GuiActionRunner.execute(() -> workbench.session().servoSet());
+        String name = GuiActionRunner.execute(() -> workbench.session().sourceName());
+        Path file = tmp.resolve("cell-3.session.json");
+        assertTrue(GuiActionRunner.execute(() -> workbench.sessions().save(file)));
+        var json = new com.fasterxml.jackson.databind.ObjectMapper().readTree(file.toFile());
+        assertEquals("cell-3.servo-set.json", json.get("servo_set").asText(), "paths relative to the session file");
+        assertEquals("demo", json.at("/source/kind").asText());
+        assertFalse(GuiActionRunner.execute(() -> workbench.sessions().dirty()));
+
+        GuiActionRunner.execute(() -> workbench.sessions().newSession());
+        waitFor("fresh demo", () -> workbench.session().servoSet() == null && workbench.session().frameIndex() == workbench.session().referenceIndex());
+        GuiActionRunner.execute(() -> workbench.sessions().open(file));
+        waitFor("session reopened", () -> workbench.session().servoSet() != null && workbench.session().frameIndex() == 3);
+        assertEquals(set, GuiActionRunner.execute(() -> workbench.session().servoSet()), "the edited set, exactly");
+        assertEquals(name, GuiActionRunner.execute(() -> workbench.session().sourceName()));
+        assertEquals(12, (int) GuiActionRunner.execute(() -> workbench.session().frames().size()));
+        assertFalse(GuiActionRunner.execute(() -> workbench.sessions().dirty()));
+        assertEquals(file.toAbsolutePath().normalize().toString(), GuiActionRunner.execute(() -> workbench.sessions().recentList().get(0)));
+
+        // a design opened twice is listed once
+        var design = org.targetbench.source.TargetFile.read(Path.of("target-designs/fixture-cb15/target.json"));
+        int before = GuiActionRunner.execute(() -> workbench.designsView().designCount());
+        GuiActionRunner.execute(() -> workbench.designsView().addDesign(design));
+        GuiActionRunner.execute(() -> workbench.designsView().addDesign(design));
+        assertEquals(before, (int) GuiActionRunner.execute(() -> workbench.designsView().designCount()), "fixture-cb15 is already listed");
+    }
 }
