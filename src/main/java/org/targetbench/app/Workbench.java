@@ -64,7 +64,7 @@ public final class Workbench extends JFrame {
             camera.offer(d, CameraView.WEBCAMS);
         });
         views.put("Compare", new CompareView(ctx));
-        views.put("Stress", new StressView(ctx));
+        views.put("Stress", stressView = new StressView(ctx));
         views.put("Track", new TrackView(ctx));
         views.put("Servo set", servo = new ServoView(ctx));
         views.put("Rehearse", rehearseView = new RehearseView(ctx));
@@ -183,6 +183,9 @@ public final class Workbench extends JFrame {
     SessionMenu sessions() { return sessions; }
 
     private DesignsView designsView;
+    private StressView stressView;
+
+    StressView stressView() { return stressView; }
 
     DesignsView designsView() { return designsView; }
 
