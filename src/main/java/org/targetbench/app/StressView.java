@@ -93,8 +93,8 @@ final class StressView extends JPanel {
         JPanel actions = new JPanel(new GridLayout(0, 1));
         actions.add(Ui.row(run, cancel, save));
         actions.add(Ui.row(progress));
-        actions.add(Ui.row(verdict));
         top.add(actions, BorderLayout.CENTER);
+        top.add(Ui.row(verdict), BorderLayout.SOUTH); // full width, so the verdict and what did not run read in full
         add(top, BorderLayout.NORTH);
         add(new JScrollPane(charts), BorderLayout.CENTER);
     }
