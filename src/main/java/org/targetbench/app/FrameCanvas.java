@@ -47,6 +47,17 @@ public final class FrameCanvas extends JComponent {
         }
     }
 
+    /** A polyline in image pixels (pixel-centre convention), such as the path of a track. */
+    public record Trail(double[] x, double[] y, Color colour) {}
+
+    private List<Trail> trails = List.of();
+
+    /** Lines drawn under the markers (e.g. track trails). */
+    public void setTrails(List<Trail> t) {
+        trails = List.copyOf(t);
+        repaint();
+    }
+
     /** How a marker is drawn: an outlined ring, or a diagonal cross (for points that failed a filter). */
     public enum Shape { RING, CROSS }
 
@@ -173,6 +184,17 @@ public final class FrameCanvas extends JComponent {
             for (ProjectedFeature f : truth) Overlay.cross(g, (f.u() + 0.5) * zoom, (f.v() + 0.5) * zoom);
             for (var e : points.entrySet())
                 for (Detection d : e.getValue()) Overlay.ring(g, (d.x() + 0.5) * zoom, (d.y() + 0.5) * zoom, Palette.of(e.getKey()));
+            if (!trails.isEmpty()) {
+                g.setStroke(new java.awt.BasicStroke(1.3f));
+                for (Trail t : trails) {
+                    if (t.x().length < 2) continue;
+                    java.awt.geom.Path2D.Double path = new java.awt.geom.Path2D.Double();
+                    path.moveTo((t.x()[0] + 0.5) * zoom, (t.y()[0] + 0.5) * zoom);
+                    for (int i = 1; i < t.x().length; i++) path.lineTo((t.x()[i] + 0.5) * zoom, (t.y()[i] + 0.5) * zoom);
+                    g.setColor(t.colour());
+                    g.draw(path);
+                }
+            }
             for (Marker m : markers) {
                 double mx = (m.x() + 0.5) * zoom, my = (m.y() + 0.5) * zoom;
                 if (m.shape() == Shape.CROSS) {

@@ -395,6 +395,10 @@ class WorkbenchGuiTest {
     @Order(7)
     void tracksASyntheticMotion() throws Exception {
         window.list("nav").selectItem("Track");
+        GuiActionRunner.execute(() -> {
+            workbench.setSize(1280, 800);
+            workbench.validate();
+        });
         window.comboBox("track.source").selectItem("synthetic: approach");
         window.button("track.run").click();
         waitFor("tracking finished", () -> window.table("track.figures").target().getRowCount() > 5);
