@@ -63,7 +63,7 @@ public final class Workbench extends JFrame {
             show("Camera");
             camera.offer(d, CameraView.WEBCAMS);
         });
-        views.put("Compare", new CompareView(ctx));
+        views.put("Compare", compareView = new CompareView(ctx));
         views.put("Stress", stressView = new StressView(ctx));
         views.put("Track", new TrackView(ctx));
         views.put("Servo set", servo = new ServoView(ctx));
@@ -184,6 +184,9 @@ public final class Workbench extends JFrame {
 
     private DesignsView designsView;
     private StressView stressView;
+    private CompareView compareView;
+
+    CompareView compareView() { return compareView; }
 
     StressView stressView() { return stressView; }
 

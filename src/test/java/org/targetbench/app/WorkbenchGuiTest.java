@@ -224,9 +224,18 @@ class WorkbenchGuiTest {
     @Test
     @Order(5)
     void comparesAllFrames() throws Exception {
+        GuiActionRunner.execute(() -> {
+            workbench.setSize(1280, 800);
+            workbench.validate();
+        });
         window.list("nav").selectItem("Compare");
         window.button("compare.run").click();
         waitFor("ranking filled", () -> window.table("compare.ranking").target().getRowCount() == org.targetbench.detect.DetectorType.values().length);
+        waitFor("per-frame plot", () -> workbench.compareView().perFrameSeries() == org.targetbench.detect.DetectorType.values().length);
+        int at = GuiActionRunner.execute(() -> workbench.session().frameIndex());
+        window.button("compare.next").click();
+        waitFor("stepped", () -> workbench.session().frameIndex() == at + 1);
+        window.label("compare.frame").requireText(java.util.regex.Pattern.compile(" frame " + (at + 2) + " of 12: .*"));
         shot("compare-ranked");
     }
 
