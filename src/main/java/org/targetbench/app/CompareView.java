@@ -47,8 +47,7 @@ final class CompareView extends JPanel implements Session.Listener {
     private final JLabel frameLabel = Ui.named(new JLabel(" "), "compare.frame", null);
     private final JPanel perFrame = new JPanel(new BorderLayout());
     /** Why this ranking may differ from the Stress view's. */
-    static final String RANKING_NOTE = "Compare ranks the detectors on these frames as they are; the Stress sweep ranks them under degraded "
-            + "conditions (lighting, blur, noise, JPEG, viewpoint), so the two rankings can differ.";
+    static final String RANKING_NOTE = "Compare ranks on these frames as they are; Stress ranks under degraded conditions, so the rankings can differ.";
 
     /** One side-by-side pane. */
     private final class Pane extends JPanel {
@@ -101,7 +100,11 @@ final class CompareView extends JPanel implements Session.Listener {
         JPanel bottom = new JPanel(new BorderLayout());
         bottom.add(Ui.row(runAll, Ui.button("compare.cancel", "Cancel", "Stop the running comparison", this::cancel), progress), BorderLayout.NORTH);
         JTable table = Ui.named(new JTable(ranking), "compare.ranking", null);
-        table.getTableHeader().setToolTipText("Repeatability: " + Ui.TIP_REPEATABILITY + "  Loc. RMS: " + Ui.TIP_LOCALISATION + "  Coverage: " + Ui.TIP_COVERAGE);
+        DetailPane.columnTips(table, "Rank by mean repeatability (ties by localisation)", "Detector", "Mean repeatability, 0..1: " + Ui.TIP_REPEATABILITY,
+                "Lowest repeatability over the frames, 0..1", "Frames scored against the reference", "Mean points per frame",
+                "Localisation RMS against true feature positions, px: " + Ui.TIP_LOCALISATION, "Fraction of true features found, %",
+                "Coverage, %: " + Ui.TIP_COVERAGE);
+        table.setDefaultRenderer(Object.class, DetailPane.renderer(table.getDefaultRenderer(Object.class)));
         JScrollPane sp = new JScrollPane(table);
         sp.setPreferredSize(new Dimension(600, 150));
         perFrame.setPreferredSize(new Dimension(480, 190));
