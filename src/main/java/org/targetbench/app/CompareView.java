@@ -100,7 +100,7 @@ final class CompareView extends JPanel implements Session.Listener {
         JPanel bottom = new JPanel(new BorderLayout());
         bottom.add(Ui.row(runAll, Ui.button("compare.cancel", "Cancel", "Stop the running comparison", this::cancel), progress), BorderLayout.NORTH);
         JTable table = Ui.named(new JTable(ranking), "compare.ranking", null);
-        DetailPane.columnTips(table, "Rank by mean repeatability (ties by localisation)", "Detector", "Mean repeatability, 0..1: " + Ui.TIP_REPEATABILITY,
+        DetailPane.columnTips(table, "Rank by mean repeatability; ties by the fraction of true features found, then by points per frame", "Detector", "Mean repeatability, 0..1: " + Ui.TIP_REPEATABILITY,
                 "Lowest repeatability over the frames, 0..1", "Frames scored against the reference", "Mean points per frame",
                 "Localisation RMS against true feature positions, px: " + Ui.TIP_LOCALISATION, "Fraction of true features found, %",
                 "Coverage, %: " + Ui.TIP_COVERAGE);
