@@ -52,6 +52,10 @@ class WorkbenchGuiTest {
         robot = BasicRobot.robotWithNewAwtHierarchy();
         workbench = WorkbenchApp.open(prefs);
         window = new FrameFixture(robot, workbench);
+        GuiActionRunner.execute(() -> {
+            workbench.setSize(1280, 800); // the smallest screen the views are laid out for; screenshots at this size
+            workbench.validate();
+        });
         Files.createDirectories(SHOTS);
     }
 
