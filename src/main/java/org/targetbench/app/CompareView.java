@@ -44,6 +44,10 @@ final class CompareView extends JPanel implements Session.Listener {
     private final JProgressBar progress = Ui.named(new JProgressBar(), "compare.progress", null);
     private final JButton runAll;
     private SwingWorker<CompareResult, Integer> worker;
+    private final JLabel frameLabel = Ui.named(new JLabel(" "), "compare.frame", null);
+    private final JPanel perFrame = new JPanel(new BorderLayout());
+    /** Why this ranking may differ from the Stress view's. */
+    static final String RANKING_NOTE = "Compare ranks on these frames as they are; Stress ranks under degraded conditions, so the rankings can differ.";
 
     /** One side-by-side pane. */
     private final class Pane extends JPanel {
@@ -85,15 +89,31 @@ final class CompareView extends JPanel implements Session.Listener {
         setName("view.compare");
         panes.addChangeListener(e -> rebuild());
         runAll = Ui.button("compare.run", "Score all frames", "Run every detector on every loaded frame and rank them", this::runAll);
-        add(Ui.row(new JLabel("Detectors side by side:"), panes, new JLabel("  (frame and previewed condition follow the live view)")), BorderLayout.NORTH);
+        add(Ui.row(new JLabel("Detectors side by side:"), panes,
+                Ui.button("compare.first", "|<", "First frame", () -> session.setFrameIndex(0)),
+                Ui.button("compare.prev", "<", "Previous frame", () -> session.setFrameIndex(session.frameIndex() - 1)),
+                frameLabel,
+                Ui.button("compare.next", ">", "Next frame", () -> session.setFrameIndex(session.frameIndex() + 1)),
+                Ui.button("compare.last", ">|", "Last frame", () -> session.setFrameIndex(session.frames().size() - 1)),
+                new JLabel("  (the previewed condition follows the live view)")), BorderLayout.NORTH);
         add(grid, BorderLayout.CENTER);
         JPanel bottom = new JPanel(new BorderLayout());
         bottom.add(Ui.row(runAll, Ui.button("compare.cancel", "Cancel", "Stop the running comparison", this::cancel), progress), BorderLayout.NORTH);
         JTable table = Ui.named(new JTable(ranking), "compare.ranking", null);
-        table.getTableHeader().setToolTipText("Repeatability: " + Ui.TIP_REPEATABILITY + "  Loc. RMS: " + Ui.TIP_LOCALISATION + "  Coverage: " + Ui.TIP_COVERAGE);
+        DetailPane.columnTips(table, "Rank by mean repeatability; ties by the fraction of true features found, then by points per frame", "Detector", "Mean repeatability, 0..1: " + Ui.TIP_REPEATABILITY,
+                "Lowest repeatability over the frames, 0..1", "Frames scored against the reference", "Mean points per frame",
+                "Localisation RMS against true feature positions, px: " + Ui.TIP_LOCALISATION, "Fraction of true features found, %",
+                "Coverage, %: " + Ui.TIP_COVERAGE);
+        table.setDefaultRenderer(Object.class, DetailPane.renderer(table.getDefaultRenderer(Object.class)));
         JScrollPane sp = new JScrollPane(table);
         sp.setPreferredSize(new Dimension(600, 150));
-        bottom.add(sp, BorderLayout.CENTER);
+        perFrame.setPreferredSize(new Dimension(480, 190));
+        perFrame.add(new JLabel("  Score all frames to plot repeatability per frame."), BorderLayout.CENTER);
+        javax.swing.JSplitPane split = new javax.swing.JSplitPane(javax.swing.JSplitPane.HORIZONTAL_SPLIT, sp, perFrame);
+        split.setResizeWeight(0.55);
+        bottom.add(split, BorderLayout.CENTER);
+        JLabel note = Ui.named(new JLabel(RANKING_NOTE), "compare.note", RANKING_NOTE);
+        bottom.add(note, BorderLayout.SOUTH);
         add(bottom, BorderLayout.SOUTH);
         rebuild();
         session.addListener(this);
@@ -115,6 +135,9 @@ final class CompareView extends JPanel implements Session.Listener {
     @Override
     public void changed(Session.Change c) {
         if (c == Session.Change.DETECTIONS) paneList.forEach(Pane::refresh);
+        if ((c == Session.Change.FRAME || c == Session.Change.SOURCE) && session.hasFrames())
+            frameLabel.setText(String.format(java.util.Locale.ROOT, " frame %d of %d: %s%s ", session.frameIndex() + 1, session.frames().size(),
+                    session.frame().name(), session.frameIndex() == session.referenceIndex() ? " (reference)" : ""));
     }
 
     private void runAll() {
@@ -150,6 +173,37 @@ final class CompareView extends JPanel implements Session.Listener {
         worker.execute();
     }
 
+    /** Repeatability of each detector on each frame against the reference (frames without a homography are gaps). */
+    private void plotPerFrame(CompareResult r) {
+        List<org.targetbench.report.Charts.Series> lines = new java.util.ArrayList<>();
+        for (DetectorSummary s : r.ranked()) {
+            DetectorType t = s.detector();
+            List<org.targetbench.pipeline.FrameScore> fs = r.frames().stream().filter(f -> f.detector() == t).toList();
+            double[] x = new double[fs.size()], y = new double[fs.size()];
+            for (int i = 0; i < fs.size(); i++) {
+                x[i] = fs.get(i).frameIndex() + 1;
+                y[i] = fs.get(i).repeatability().flatMap(q -> q.repeatability().isPresent()
+                        ? java.util.Optional.of(q.repeatability().getAsDouble()) : java.util.Optional.empty()).orElse(Double.NaN);
+            }
+            lines.add(new org.targetbench.report.Charts.Series(t.label(), x, y, org.targetbench.report.Palette.of(t)));
+        }
+        var chart = ChartLook.themed(ChartLook.markedAndDistinct(org.targetbench.report.Charts.yRange(org.targetbench.report.Charts.lines(
+                "Repeatability per frame (against the reference)", "frame", "repeatability, 0..1", lines, false), -0.02, 1.02)));
+        org.jfree.chart.ChartPanel cp = new org.jfree.chart.ChartPanel(chart);
+        cp.setName("compare.perframe");
+        perFrame.removeAll();
+        perFrame.add(cp, BorderLayout.CENTER);
+        perFrame.revalidate();
+        perFrame.repaint();
+    }
+
+    /** Series in the repeatability-per-frame chart (0 before a comparison). */
+    int perFrameSeries() {
+        for (java.awt.Component c : perFrame.getComponents())
+            if (c instanceof org.jfree.chart.ChartPanel cp) return cp.getChart().getXYPlot().getDataset().getSeriesCount();
+        return 0;
+    }
+
     private void cancel() {
         if (worker != null) worker.cancel(true);
     }
@@ -162,6 +216,7 @@ final class CompareView extends JPanel implements Session.Listener {
                     Ui.fmt(s.minRepeatability().orElse(Double.NaN), 3), s.framesScored(), Ui.fmt(s.meanCount(), 1),
                     Ui.fmt(s.localisation().rmsPx(), 3), Ui.pct(s.localisation().foundFraction()), Ui.pct(s.meanOccupancy())});
         progress.setValue(progress.getMaximum());
+        plotPerFrame(r);
         ctx.status().accept("Scored " + r.frameCount() + " frames; best: " + r.ranked().get(0).detector().label());
     }
 

@@ -95,9 +95,15 @@ final class DesignsView extends JPanel {
                 Ui.button("designs.use", "Use in live view", "Render this target from the arm positions of the demo and look at it live", this::useLive)),
                 BorderLayout.NORTH);
         JTable t = Ui.named(new JTable(checks), "designs.checks", null);
+        DetailPane.columnTips(t, "What is checked", "PASS, WARN or FAIL against the threshold (coloured, and always in words)",
+                "The measured or computed figure, with its unit", "The limit it is held against, with its unit",
+                "Where the threshold comes from: a published source, derived, or common practice");
         JScrollPane ts = new JScrollPane(t);
         ts.setPreferredSize(new Dimension(800, 140));
         bottom.add(ts, BorderLayout.CENTER);
+        DetailPane detail = new DetailPane("designs.detail", "Select a check line to read it in full.", t);
+        detail.setPreferredSize(new Dimension(380, 140));
+        bottom.add(detail, BorderLayout.EAST);
         add(bottom, BorderLayout.SOUTH);
         updateCameraLabel();
         loadFolder();
@@ -177,9 +183,7 @@ final class DesignsView extends JPanel {
                 default -> r.armMm = s;
             }
             if (r.pattern.equals("xcorners")) { r.count = r.rows; r.rows = null; r.cols = null; }
-            TargetDesign d = r.build();
-            designs.addElement(d);
-            list.setSelectedValue(d, true);
+            addDesign(r.build());
         } catch (IllegalArgumentException e) {
             JOptionPane.showMessageDialog(ctx.window(), e.getMessage(), "Cannot make that design", JOptionPane.WARNING_MESSAGE);
         }
@@ -189,13 +193,30 @@ final class DesignsView extends JPanel {
 
     private static Double blankOrDouble(String s) { return s.isBlank() ? null : Double.valueOf(s.trim()); }
 
+    /**
+     * Adds a design to the list, or selects the one already listed when the same design (equal id, sizes and features)
+     * is opened again; a different design under a listed id is added.
+     */
+    TargetDesign addDesign(TargetDesign d) {
+        for (int i = 0; i < designs.size(); i++)
+            if (designs.get(i).equals(d)) {
+                list.setSelectedIndex(i);
+                list.ensureIndexIsVisible(i);
+                ctx.status().accept("Design " + d.id() + " is already listed; selected it");
+                return designs.get(i);
+            }
+        designs.addElement(d);
+        list.setSelectedValue(d, true);
+        return d;
+    }
+
+    int designCount() { return designs.size(); }
+
     private void openDesign() {
         JFileChooser fc = new JFileChooser(DESIGNS.toFile());
         if (fc.showOpenDialog(ctx.window()) != JFileChooser.APPROVE_OPTION) return;
         try {
-            TargetDesign d = TargetFile.read(fc.getSelectedFile().toPath());
-            designs.addElement(d);
-            list.setSelectedValue(d, true);
+            addDesign(TargetFile.read(fc.getSelectedFile().toPath()));
         } catch (Exception e) {
             JOptionPane.showMessageDialog(ctx.window(), e.getMessage(), "Cannot read the design", JOptionPane.WARNING_MESSAGE);
         }

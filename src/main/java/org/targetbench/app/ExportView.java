@@ -59,7 +59,7 @@ final class ExportView extends JPanel implements Session.Listener {
         export.setEnabled(s != null);
         summary.setText(s == null ? "No servo set yet: choose one in the Servo set view." : String.format(Locale.ROOT,
                 "<html>%d points from %s on target %s; cond(L*) %.2f; %s</html>", s.points().size(), s.detector(), s.targetId(),
-                s.condition(), session.rehearsal() == null ? "<b>not rehearsed yet</b> (Rehearse view)"
+                s.condition(), session.rehearsal() == null ? (session.changedSinceRehearsal() ? "<b>changed since its rehearsal</b> (Rehearse view)" : "<b>not rehearsed yet</b> (Rehearse view)")
                         : String.format(Locale.ROOT, "rehearsed: %d of %d converged", session.rehearsal().summary().converged(), session.rehearsal().summary().runs())));
     }
 
@@ -73,8 +73,22 @@ final class ExportView extends JPanel implements Session.Listener {
         return safetyAcknowledged;
     }
 
+    /** Title of the question asked before exporting a set that was not rehearsed as it stands. */
+    static final String UNREHEARSED_TITLE = "Export a set that was not rehearsed?";
+
+    /** True when the set was rehearsed as it stands, or the user chose to export it anyway. */
+    boolean confirmUnrehearsed() {
+        if (session.rehearsal() != null) return true;
+        String why = session.changedSinceRehearsal() ? "This set has changed since it was rehearsed." : "This set has not been rehearsed.";
+        int answer = JOptionPane.showConfirmDialog(ctx.window(), "<html><body style='width:420px'><b>" + why + "</b><br><br>"
+                        + "Rehearse it first in the Rehearse view: the rehearsal shows whether the servo converges from the start poses you expect. "
+                        + "Exported anyway, servo-set.json records \"" + org.targetbench.export.ServoSetJson.NOT_REHEARSED + "\".</body></html>",
+                UNREHEARSED_TITLE, JOptionPane.OK_CANCEL_OPTION, JOptionPane.WARNING_MESSAGE);
+        return answer == JOptionPane.OK_OPTION;
+    }
+
     void chooseAndExport() {
-        if (session.servoSet() == null || !acknowledgeSafety()) return;
+        if (session.servoSet() == null || !acknowledgeSafety() || !confirmUnrehearsed()) return;
         JFileChooser fc = new JFileChooser(ctx.prefs().get("lastExportFolder", System.getProperty("user.dir")));
         fc.setFileSelectionMode(JFileChooser.DIRECTORIES_ONLY);
         fc.setDialogTitle("Folder for the servo set");
@@ -89,9 +103,9 @@ final class ExportView extends JPanel implements Session.Listener {
         ctx.prefs().put("lastExportFolder", dir.toString());
         List<String> files = new ArrayList<>();
         try (AtomicOutput out = AtomicOutput.open(dir)) {
-            files.addAll(List.of(ServoSetFiles.write(set, out, "servo-set")));
+            files.addAll(ServoSetFiles.write(set, java.util.Optional.ofNullable(session.rehearsal()), session.rehearsalElapsedS(), out, "servo-set", "rehearsal/"));
             if (session.pick() != null) {
-                ServoWriters.writeSelection(session.pick().selection(), out.file("servo-set-selection.csv"));
+                ServoWriters.writeSelection(session.pick().selection(), set, out.file("servo-set-selection.csv"));
                 files.add("servo-set-selection.csv");
             }
             if (session.rehearsal() != null)

@@ -41,14 +41,51 @@ public final class FrameCanvas extends JComponent {
     private Consumer<Point2D> clickListener;
 
     /** A marker in image pixels (pixel-centre convention): an outlined ring of {@code radius} screen pixels, with an optional label. */
-    public record Marker(double x, double y, String label, Color colour, double radius) {}
+    public record Marker(double x, double y, String label, Color colour, double radius, Shape shape, String tip) {
+        public Marker(double x, double y, String label, Color colour, double radius) {
+            this(x, y, label, colour, radius, Shape.RING, null);
+        }
+    }
+
+    /** A polyline in image pixels (pixel-centre convention), such as the path of a track. */
+    public record Trail(double[] x, double[] y, Color colour) {}
+
+    private List<Trail> trails = List.of();
+
+    /** Lines drawn under the markers (e.g. track trails). */
+    public void setTrails(List<Trail> t) {
+        trails = List.copyOf(t);
+        repaint();
+    }
+
+    /** How a marker is drawn: an outlined ring, or a diagonal cross (for points that failed a filter). */
+    public enum Shape { RING, CROSS }
+
+    /** Nearest marker with a tip within this many screen pixels shows its tip on hover. */
+    static final double TIP_RADIUS_PX = 9;
+
+    @Override
+    public String getToolTipText(java.awt.event.MouseEvent e) {
+        Marker best = null;
+        double bestD = TIP_RADIUS_PX;
+        for (Marker m : markers) {
+            if (m.tip() == null) continue;
+            double d = Math.hypot((m.x() + 0.5) * zoom + panX - e.getX(), (m.y() + 0.5) * zoom + panY - e.getY());
+            if (d <= bestD) { bestD = d; best = m; }
+        }
+        return best == null ? null : best.tip();
+    }
 
     public FrameCanvas(String name) {
         setName(name);
         setPreferredSize(new Dimension(660, 500));
         setOpaque(true);
+        setFocusable(true);
         MouseAdapter mouse = new MouseAdapter() {
-            @Override public void mousePressed(MouseEvent e) { dragStart = e.getPoint(); }
+            @Override public void mousePressed(MouseEvent e) {
+                dragStart = e.getPoint();
+                requestFocusInWindow(); // so the window's keys (undo, frame stepping) reach it
+            }
             @Override public void mouseDragged(MouseEvent e) {
                 if (dragStart == null) return;
                 panX += e.getX() - dragStart.getX();
@@ -92,6 +129,7 @@ public final class FrameCanvas extends JComponent {
     }
 
     public void setMarkers(List<Marker> markers) {
+        javax.swing.ToolTipManager.sharedInstance().registerComponent(this);
         this.markers = List.copyOf(markers);
         repaint();
     }
@@ -146,9 +184,30 @@ public final class FrameCanvas extends JComponent {
             for (ProjectedFeature f : truth) Overlay.cross(g, (f.u() + 0.5) * zoom, (f.v() + 0.5) * zoom);
             for (var e : points.entrySet())
                 for (Detection d : e.getValue()) Overlay.ring(g, (d.x() + 0.5) * zoom, (d.y() + 0.5) * zoom, Palette.of(e.getKey()));
+            if (!trails.isEmpty()) {
+                g.setStroke(new java.awt.BasicStroke(1.3f));
+                for (Trail t : trails) {
+                    if (t.x().length < 2) continue;
+                    java.awt.geom.Path2D.Double path = new java.awt.geom.Path2D.Double();
+                    path.moveTo((t.x()[0] + 0.5) * zoom, (t.y()[0] + 0.5) * zoom);
+                    for (int i = 1; i < t.x().length; i++) path.lineTo((t.x()[i] + 0.5) * zoom, (t.y()[i] + 0.5) * zoom);
+                    g.setColor(t.colour());
+                    g.draw(path);
+                }
+            }
             for (Marker m : markers) {
                 double mx = (m.x() + 0.5) * zoom, my = (m.y() + 0.5) * zoom;
-                Overlay.ring(g, mx, my, m.colour(), m.radius());
+                if (m.shape() == Shape.CROSS) {
+                    g.setColor(Color.BLACK);
+                    g.setStroke(new java.awt.BasicStroke(3f));
+                    double r = m.radius();
+                    g.draw(new java.awt.geom.Line2D.Double(mx - r, my - r, mx + r, my + r));
+                    g.draw(new java.awt.geom.Line2D.Double(mx - r, my + r, mx + r, my - r));
+                    g.setColor(m.colour());
+                    g.setStroke(new java.awt.BasicStroke(1.5f));
+                    g.draw(new java.awt.geom.Line2D.Double(mx - r, my - r, mx + r, my + r));
+                    g.draw(new java.awt.geom.Line2D.Double(mx - r, my + r, mx + r, my - r));
+                } else Overlay.ring(g, mx, my, m.colour(), m.radius());
                 if (m.label().isEmpty()) continue;
                 g.setColor(Color.BLACK);
                 g.drawString(m.label(), (float) mx + 10, (float) my - 9);

@@ -31,6 +31,7 @@ final class LiveLoad {
                             + (l.truncated() ? " (first " + SourceLoader.MAX_FRAMES + " frames only)" : ""));
                     if (bringForward) ctx.showView().accept("Live");
                 } catch (ExecutionException e) {
+                    ctx.session().expectOrigin(null);
                     String msg = e.getCause() == null ? e.toString() : e.getCause().getMessage();
                     ctx.status().accept("Could not load " + what + ": " + msg);
                     JOptionPane.showMessageDialog(ctx.window(), msg, "Could not load the source", JOptionPane.WARNING_MESSAGE);

@@ -149,6 +149,7 @@ final class LiveView extends JPanel implements Session.Listener {
     }
 
     void loadDemo() {
+        session.expectOrigin(new Session.Origin(org.targetbench.formats.SessionFile.SourceKind.DEMO, java.util.Optional.empty()));
         LiveLoad.load(ctx, "demo scene", SourceLoader::demo, false);
     }
 
@@ -174,6 +175,7 @@ final class LiveView extends JPanel implements Session.Listener {
     }
 
     void loadVideo(Path f) {
+        session.expectOrigin(new Session.Origin(org.targetbench.formats.SessionFile.SourceKind.VIDEO, java.util.Optional.of(f)));
         load(f.getFileName().toString(), () -> SourceLoader.video(f));
     }
 
@@ -241,10 +243,12 @@ final class LiveView extends JPanel implements Session.Listener {
     }
 
     void loadFolder(Path dir) {
+        session.expectOrigin(new Session.Origin(org.targetbench.formats.SessionFile.SourceKind.FOLDER, java.util.Optional.of(dir)));
         load(dir.toString(), () -> SourceLoader.folder(dir));
     }
 
     void load(String what, LiveLoad.Job job) {
+        notRegistered = java.util.Map.of(); // a new source: only a registration run fills this in again
         LiveLoad.load(ctx, what, job);
     }
 
@@ -264,7 +268,7 @@ final class LiveView extends JPanel implements Session.Listener {
                 String nr = notRegistered.get(f.name());
                 frameLabel.setText(" " + (session.frameIndex() + 1) + "/" + session.frames().size() + "  " + f.name()
                         + (session.frameIndex() == session.referenceIndex() ? " (reference)" : "")
-                        + (nr != null && session.sourceName().contains(", registered to ") ? "  NOT REGISTERED: " + nr + " (not scored)" : ""));
+                        + (nr != null ? "  NOT REGISTERED: " + nr + " (not scored)" : ""));
                 if (session.detections() == null) canvas.setFrame(f.image());
             }
             case SHOWN -> drawOverlay();

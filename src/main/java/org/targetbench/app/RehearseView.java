@@ -40,6 +40,24 @@ final class RehearseView extends JPanel implements Session.Listener {
     private final DefaultTableModel table = new DefaultTableModel(new Object[]{"Figure", "Value"}, 0) {
         @Override public boolean isCellEditable(int r, int c) { return false; }
     };
+    private final JSpinner envelopeMm = Ui.named(new JSpinner(new SpinnerNumberModel(20.0, 0.0, 500.0, 5.0)), "rehearse.envelope.mm",
+            "Start envelope: +- millimetres along each axis of the reference camera (the command line's --envelope T,R)");
+    private final JSpinner envelopeDeg = Ui.named(new JSpinner(new SpinnerNumberModel(10.0, 0.0, 90.0, 1.0)), "rehearse.envelope.deg",
+            "Start envelope: +- degrees about the reference camera's x and y axes; about z twice this (the command line's default 10,10,20)");
+    private final JComboBox<org.targetbench.servo.DepthMode> depth = Ui.named(new JComboBox<>(org.targetbench.servo.DepthMode.values()), "rehearse.depth",
+            "Depths the controller believes (--depth): true, constant (Z* held) or scaled (Z* x depth error)");
+    private final JSpinner depthError = Ui.named(new JSpinner(new SpinnerNumberModel(1.0, 0.1, 5.0, 0.05)), "rehearse.depth.error",
+            "Factor on Z* for depth scaled (--depth-error): 1.2 = the controller thinks the target is 20 % further");
+    private final javax.swing.JCheckBox measuredNoise = Ui.named(new javax.swing.JCheckBox("measured", true), "rehearse.noise.measured",
+            "Pixel noise: each point's measured jitter (0 where not measured); untick to give one figure (--noise)");
+    private final JSpinner noise = Ui.named(new JSpinner(new SpinnerNumberModel(0.1, 0.0, 10.0, 0.05)), "rehearse.noise",
+            "Pixel noise standard deviation, px (--noise)");
+    private final JSpinner seed = Ui.named(new JSpinner(new SpinnerNumberModel(1, 0, 999_999, 1)), "rehearse.seed", "Random seed of the start poses and noise (--seed)");
+    /** One row per rehearsal of this session, side by side: what was run and its headline figures. */
+    private final DefaultTableModel runs = new DefaultTableModel(new Object[]{"Run", "Set", "Law", "Lambda 1/s", "Depth", "Noise px",
+            "Envelope mm, deg", "Converged", "Median time s", "Median final error px", "Largest retreat mm"}, 0) {
+        @Override public boolean isCellEditable(int r, int c) { return false; }
+    };
     private final JPanel charts = new JPanel(new GridLayout(0, 1, 4, 4));
     private final JLabel warnings = Ui.named(new JLabel(" "), "rehearse.warnings", null);
     private final JButton run;
@@ -56,13 +74,40 @@ final class RehearseView extends JPanel implements Session.Listener {
             }
         });
         run = Ui.button("rehearse.run", "Rehearse", "Simulate the closed loop from every start pose", this::rehearse);
-        add(Ui.row(run, new JLabel("Starts"), starts, new JLabel("Lambda 1/s"), lambda, new JLabel("Law"), law), BorderLayout.NORTH);
+        depth.setRenderer(new javax.swing.DefaultListCellRenderer() {
+            @Override public java.awt.Component getListCellRendererComponent(javax.swing.JList<?> l, Object v, int i, boolean sel, boolean f) {
+                return super.getListCellRendererComponent(l, v instanceof org.targetbench.servo.DepthMode d ? d.cliName() : v, i, sel, f);
+            }
+        });
+        noise.setEnabled(false);
+        measuredNoise.addActionListener(e -> noise.setEnabled(!measuredNoise.isSelected()));
+        depthError.setEnabled(false);
+        depth.addActionListener(e -> depthError.setEnabled(depth.getSelectedItem() == org.targetbench.servo.DepthMode.SCALED));
+        JButton load = Ui.button("rehearse.load", "Load servo set...", "Read an exported servo-set.json to rehearse or re-export it", this::chooseAndLoad);
+        JPanel controls = new JPanel(new GridLayout(0, 1));
+        controls.add(Ui.row(run, load, new JLabel("Starts"), starts, new JLabel("Lambda 1/s"), lambda, new JLabel("Law"), law, new JLabel("Seed"), seed));
+        controls.add(Ui.row(new JLabel("Envelope +- mm"), envelopeMm, new JLabel("+- deg"), envelopeDeg, new JLabel("Depth"), depth,
+                new JLabel("depth error x"), depthError, new JLabel("Noise"), measuredNoise, noise, new JLabel("px")));
+        add(controls, BorderLayout.NORTH);
+        JTable runsTable = Ui.named(new JTable(runs), "rehearse.runs", null);
+        DetailPane.columnTips(runsTable, "Order of the rehearsal in this session", "Points and cond(L*) of the set rehearsed",
+                "Control law: which interaction matrix it inverts", "Gain lambda, 1/s", "Depths the controller believes",
+                "Pixel noise standard deviation, px, or each point's measured jitter", "Start envelope: +- mm on each axis, +- deg about x,y / about z",
+                "Runs that converged below the threshold (0.5 px RMS by default)", "Median time to converge, s",
+                "Median final image error, px RMS over points", "Largest retreat along the optical axis, mm");
+        JScrollPane runsPane = new JScrollPane(runsTable);
+        runsPane.setPreferredSize(new Dimension(600, 120));
+        runsPane.setBorder(javax.swing.BorderFactory.createTitledBorder("Runs of this session, side by side"));
+        add(runsPane, BorderLayout.SOUTH);
         JPanel left = new JPanel(new BorderLayout());
         JTable t = Ui.named(new JTable(table), "rehearse.table", null);
         JScrollPane sp = new JScrollPane(t);
         sp.setPreferredSize(new Dimension(420, 260));
         left.add(sp, BorderLayout.CENTER);
-        left.add(warnings, BorderLayout.SOUTH);
+        JPanel under = new JPanel(new BorderLayout());
+        under.add(warnings, BorderLayout.NORTH);
+        under.add(new DetailPane("rehearse.detail", "Select a figure or a run to read it in full.", t, runsTable), BorderLayout.CENTER);
+        left.add(under, BorderLayout.SOUTH);
         add(left, BorderLayout.WEST);
         add(ArmRehearsePanel.tabs(new JScrollPane(charts), new ArmRehearsePanel(ctx, () -> (Double) lambda.getValue())), BorderLayout.CENTER);
         session.addListener(this);
@@ -78,15 +123,30 @@ final class RehearseView extends JPanel implements Session.Listener {
         c.starts = (Integer) starts.getValue();
         c.lambda = (Double) lambda.getValue();
         c.law = (ControlLaw) law.getSelectedItem();
+        c.seed = ((Number) seed.getValue()).longValue();
+        double mm = (Double) envelopeMm.getValue(), deg = (Double) envelopeDeg.getValue();
+        c.envelopeMm = new double[]{mm, mm, mm};
+        c.envelopeDeg = new double[]{deg, deg, 2 * deg};
+        c.depthMode = (org.targetbench.servo.DepthMode) depth.getSelectedItem();
+        if (c.depthMode == org.targetbench.servo.DepthMode.SCALED) c.depthErrorFactor = (Double) depthError.getValue();
+        c.noiseSigmaPx = measuredNoise.isSelected() ? Double.NaN : (Double) noise.getValue();
+        try {
+            c.checkValidity();
+        } catch (IllegalArgumentException e) {
+            ctx.status().accept("Cannot rehearse: " + e.getMessage());
+            return;
+        }
         run.setEnabled(false);
         ctx.status().accept("Rehearsing " + c.starts + " starts...");
+        long t0 = System.nanoTime();
         new SwingWorker<RehearsalResult, Void>() {
             @Override protected RehearsalResult doInBackground() throws Exception { return Rehearsal.run(set, c); }
             @Override protected void done() {
                 run.setEnabled(true);
                 try {
                     RehearsalResult r = get();
-                    if (session.servoSet() == set) session.setRehearsal(r);
+                    if (session.servoSet() == set) session.setRehearsal(r, (System.nanoTime() - t0) / 1e9);
+                    addRun(r, set);
                     ctx.status().accept(String.format(Locale.ROOT, "Rehearsal: %d of %d converged", r.summary().converged(), r.summary().runs()));
                 } catch (ExecutionException e) {
                     ctx.status().accept("Rehearsal failed: " + e.getCause().getMessage());
@@ -127,4 +187,39 @@ final class RehearseView extends JPanel implements Session.Listener {
     }
 
     private void row(String k, String v) { table.addRow(new Object[]{k, v}); }
+
+    private void addRun(RehearsalResult r, ServoSet set) {
+        var c = r.config();
+        var m = r.summary();
+        runs.addRow(new Object[]{runs.getRowCount() + 1,
+                String.format(Locale.ROOT, "%d points, cond %.1f", set.points().size(), set.condition()), c.law.cliName(), Ui.fmt(c.lambda, 2),
+                c.depthMode == org.targetbench.servo.DepthMode.SCALED ? "scaled x" + Ui.fmt(c.depthErrorFactor, 2) : c.depthMode.cliName(),
+                Double.isNaN(c.noiseSigmaPx) ? "measured" : Ui.fmt(c.noiseSigmaPx, 2),
+                Ui.fmt(c.envelopeMm[0], 0) + ", " + Ui.fmt(c.envelopeDeg[0], 0) + "/" + Ui.fmt(c.envelopeDeg[2], 0),
+                String.format(Locale.ROOT, "%d of %d", m.converged(), m.runs()), Ui.fmt(m.medianTimeS(), 2), Ui.fmt(m.medianFinalErrorPx(), 3),
+                Ui.fmt(m.maxRetreatMm(), 1)});
+    }
+
+    /** Rows of the side-by-side runs table. */
+    int runCount() { return runs.getRowCount(); }
+
+    private void chooseAndLoad() {
+        javax.swing.JFileChooser fc = new javax.swing.JFileChooser(ctx.prefs().get("lastExportFolder", System.getProperty("user.dir")));
+        fc.setFileFilter(new javax.swing.filechooser.FileNameExtensionFilter("Servo set (servo-set.json)", "json"));
+        if (fc.showOpenDialog(ctx.window()) != javax.swing.JFileChooser.APPROVE_OPTION) return;
+        loadSet(fc.getSelectedFile().toPath());
+    }
+
+    /** Reads an exported servo set into the session, to rehearse or re-export it; a bad file gets a message. */
+    boolean loadSet(java.nio.file.Path file) {
+        try {
+            session.loadServoSet(org.targetbench.formats.ServoSetReader.read(file));
+            ctx.status().accept("Loaded the servo set " + file);
+            return true;
+        } catch (org.targetbench.source.SourceException e) {
+            ctx.status().accept("Could not read the servo set: " + e.getMessage());
+            javax.swing.JOptionPane.showMessageDialog(ctx.window(), e.getMessage(), "Could not read the servo set", javax.swing.JOptionPane.WARNING_MESSAGE);
+            return false;
+        }
+    }
 }

@@ -33,12 +33,12 @@ final class ServoChoice {
 
     /** Compares the session's frames and picks {@code count} points; needs a rendered scene (for depths). */
     static PickRun.Result pick(List<org.targetbench.source.SourceFrame> frames, String reference, String sourceName,
-                               Session.Scene scene, List<org.targetbench.detect.DetectorConfig> configs, int count) throws Exception {
+                               Session.Scene scene, List<org.targetbench.detect.DetectorConfig> configs, int count, String detector) throws Exception {
         CompareResult cr = new CompareRun(configs, Repeatability.DEFAULT_EPSILON).run(new FrameList(sourceName, frames, reference), Progress.NONE);
         SelectConfig sc = new SelectConfig();
         sc.count = count;
         try {
-            return PickRun.run(PickInputs.fromComparison(cr, frames, scene.camera(), scene.design(), scene.poses().get(0)), null,
+            return PickRun.run(PickInputs.fromComparison(cr, frames, scene.camera(), scene.design(), scene.poses().get(0)), detector,
                     new CandidateConfig(), sc, Version.get(), ServoWriters.now());
         } catch (PickRun.Refused e) {
             throw new SourceException(PickRefusals.explain(e, new PickRefusals.Where(sourceName, "the frames' truth", PickInputs.POSES_LABEL, reference)));
@@ -47,12 +47,27 @@ final class ServoChoice {
 
     /** The set with the candidate {@code id} added or removed, figures recomputed; null when the set would be empty. */
     static ServoSet toggle(ServoSet set, List<Candidate> candidates, int id) {
+        return toggle(set, candidates, List.of(), id);
+    }
+
+    /** The filter a candidate failed in the selection, or null when it passed them all. */
+    static org.targetbench.select.Selection.Rejected failedFilter(List<org.targetbench.select.Selection.Rejected> rejected, int id) {
+        for (var r : rejected) if (r.candidate().id() == id && r.why().isFilter()) return r;
+        return null;
+    }
+
+    /**
+     * The set with the candidate {@code id} added or removed, figures recomputed; null when the set would be empty. A
+     * point added by hand that failed a filter carries that filter's sentence in its reason.
+     */
+    static ServoSet toggle(ServoSet set, List<Candidate> candidates, List<org.targetbench.select.Selection.Rejected> rejected, int id) {
         List<ServoPoint> pts = new ArrayList<>(set.points());
         boolean removed = pts.removeIf(p -> p.id() == id);
         if (!removed) {
             Candidate c = candidates.stream().filter(x -> x.id() == id).findFirst()
                     .orElseThrow(() -> new IllegalArgumentException("no candidate with id " + id));
-            pts.add(ServoPoint.of(c, Reasons.ADDED_BY_HAND));
+            var failed = failedFilter(rejected, id);
+            pts.add(ServoPoint.of(c, failed == null ? Reasons.ADDED_BY_HAND : Reasons.addedByHandFailing(failed)));
         }
         if (pts.isEmpty()) return null;
         return set.withPoints(pts);

@@ -59,6 +59,8 @@ public final class Session {
 
     public void addListener(Listener l) { listeners.add(l); }
 
+    public void removeListener(Listener l) { listeners.remove(l); }
+
     private void fire(Change c) {
         if (!SwingUtilities.isEventDispatchThread()) throw new IllegalStateException("session changed off the event-dispatch thread");
         for (Listener l : listeners) l.changed(c);
@@ -82,8 +84,21 @@ public final class Session {
         setSource(name, newFrames, referenceName, java.util.Optional.empty());
     }
 
+    /** Where the next source to be set comes from (the demo, a video or a folder), so that a session can be saved. */
+    public record Origin(org.targetbench.formats.SessionFile.SourceKind kind, java.util.Optional<java.nio.file.Path> path) {}
+
+    private Origin pendingOrigin, origin;
+
+    /** Says where the source that is being loaded comes from; the next {@link #setSource} takes it. */
+    public void expectOrigin(Origin o) { pendingOrigin = o; }
+
+    /** Where the current frames came from, or null when they cannot be reopened from a file (e.g. a registration). */
+    public Origin origin() { return origin; }
+
     public void setSource(String name, List<SourceFrame> newFrames, String referenceName, java.util.Optional<Scene> newScene) {
         if (newFrames.isEmpty()) throw new IllegalArgumentException("a source needs at least one frame");
+        origin = pendingOrigin;
+        pendingOrigin = null;
         frames = List.copyOf(newFrames);
         sourceName = name;
         scene = newScene;
@@ -94,6 +109,10 @@ public final class Session {
         pick = null;
         servoSet = null;
         rehearsal = null;
+        rehearsedSet = null;
+        lastRehearsal = null;
+        undo.clear();
+        redo.clear();
         fire(Change.SOURCE);
         fire(Change.FRAME);
     }
@@ -170,20 +189,91 @@ public final class Session {
         pick = p;
         servoSet = p.set().orElse(null);
         rehearsal = null;
+        rehearsedSet = null;
+        lastRehearsal = null;
+        undo.clear();
+        redo.clear();
         fire(Change.SERVO);
     }
 
-    /** Replaces the set (after a hand edit); an older rehearsal no longer applies. */
-    public void setServoSet(org.targetbench.servo.ServoSet set) {
+    /**
+     * A servo set read from a file (to rehearse or re-export it): there is no choice behind it, so no candidates and no
+     * selection reasons; its hand-edit history starts empty.
+     */
+    public void loadServoSet(org.targetbench.servo.ServoSet set) {
+        pick = null;
         servoSet = set;
         rehearsal = null;
+        rehearsedSet = null;
+        lastRehearsal = null;
+        undo.clear();
+        redo.clear();
         fire(Change.SERVO);
+    }
+
+    /** Sets before and after hand edits of the current choice, newest last. */
+    private final java.util.ArrayDeque<org.targetbench.servo.ServoSet> undo = new java.util.ArrayDeque<>(), redo = new java.util.ArrayDeque<>();
+
+    /** Replaces the set (after a hand edit, which can be undone); an older rehearsal no longer applies. */
+    public void setServoSet(org.targetbench.servo.ServoSet set) {
+        if (servoSet != null) undo.push(servoSet);
+        redo.clear();
+        servoSet = set;
+        rehearsal = rehearsalOf(set);
+        fire(Change.SERVO);
+    }
+
+    public boolean canUndo() { return !undo.isEmpty(); }
+    public boolean canRedo() { return !redo.isEmpty(); }
+
+    /** Takes back the latest hand edit of the set; false when there is none. */
+    public boolean undoServoEdit() {
+        if (undo.isEmpty()) return false;
+        redo.push(servoSet);
+        servoSet = undo.pop();
+        rehearsal = rehearsalOf(servoSet);
+        fire(Change.SERVO);
+        return true;
+    }
+
+    /** Does again the latest undone hand edit; false when there is none. */
+    public boolean redoServoEdit() {
+        if (redo.isEmpty()) return false;
+        undo.push(servoSet);
+        servoSet = redo.pop();
+        rehearsal = rehearsalOf(servoSet);
+        fire(Change.SERVO);
+        return true;
     }
 
     public void setRehearsal(org.targetbench.servo.RehearsalResult r) {
+        setRehearsal(r, 0);
+    }
+
+    /** The rehearsal of the current set, and how long it took, seconds. */
+    public void setRehearsal(org.targetbench.servo.RehearsalResult r, double elapsedS) {
         rehearsal = r;
+        rehearsedSet = r == null ? null : servoSet;
+        lastRehearsal = r;
+        rehearsalElapsedS = elapsedS;
         fire(Change.SERVO);
     }
+
+    /** The set the latest rehearsal ran on (it applies to the current set only when equal to it), or null. */
+    private org.targetbench.servo.ServoSet rehearsedSet;
+    private double rehearsalElapsedS;
+
+    private org.targetbench.servo.RehearsalResult lastRehearsal;
+
+    private org.targetbench.servo.RehearsalResult rehearsalOf(org.targetbench.servo.ServoSet set) {
+        return set != null && set.equals(rehearsedSet) ? lastRehearsal : null;
+    }
+
+    /** True when a rehearsal was run on an earlier state of the set, which has changed since. */
+    public boolean changedSinceRehearsal() { return rehearsal == null && rehearsedSet != null; }
+
+    /** Seconds the current rehearsal took. */
+    public double rehearsalElapsedS() { return rehearsalElapsedS; }
 
     /** Called by the detection runner with results for the current state. */
     void setDetections(FrameDetections d) {

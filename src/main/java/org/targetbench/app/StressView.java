@@ -60,7 +60,7 @@ final class StressView extends JPanel {
     private final JButton run, cancel, save;
     private final ConcurrentLinkedQueue<SweepRow> incoming = new ConcurrentLinkedQueue<>();
     private final List<SweepRow> rows = new ArrayList<>();
-    private final Timer redraw = new Timer(REDRAW_MS, e -> drainAndDraw());
+    private final Timer redraw = new Timer(REDRAW_MS, e -> drainAndDraw(false));
     private final AtomicBoolean cancelFlag = new AtomicBoolean();
     private SwingWorker<SweepResult, Integer> worker;
     private SweepConfig running;
@@ -93,8 +93,8 @@ final class StressView extends JPanel {
         JPanel actions = new JPanel(new GridLayout(0, 1));
         actions.add(Ui.row(run, cancel, save));
         actions.add(Ui.row(progress));
-        actions.add(Ui.row(verdict));
         top.add(actions, BorderLayout.CENTER);
+        top.add(Ui.row(verdict), BorderLayout.SOUTH); // full width, so the verdict and what did not run read in full
         add(top, BorderLayout.NORTH);
         add(new JScrollPane(charts), BorderLayout.CENTER);
     }
@@ -148,12 +148,18 @@ final class StressView extends JPanel {
                 cancel.setEnabled(false);
                 try {
                     last = get();
-                    drainAndDraw();
+                    drainAndDraw(true);
                     save.setEnabled(true);
-                    var best = SweepSummary.rankEnvelope(last, Map.of()).get(0);
-                    verdict.setText((last.cancelled() ? "Stopped: kept " + last.cellsDone() + " of " + last.cellsTotal() + " cells. " : "Done. ")
-                            + "Best over the swept range: " + best.detector().label() + " (" + Ui.fmt(best.score(), 3) + ", weakest under "
-                            + (best.weakest() == null ? "-" : best.weakest().id()) + ")");
+                    if (last.cancelled() || last.cellsDone() < last.cellsTotal()) {
+                        // no verdict from an incomplete sweep: a detector's score would rest on the conditions that happened to run
+                        List<String> notRun = conditionsNotRun().stream().map(Perturbation::id).toList();
+                        verdict.setText("Stopped: incomplete: " + last.cellsDone() + " of " + last.cellsTotal() + " cells; no ranking from an incomplete sweep."
+                                + (notRun.isEmpty() ? "" : " Not run: " + String.join(", ", notRun) + "."));
+                    } else {
+                        var best = SweepSummary.rankEnvelope(last, Map.of()).get(0);
+                        verdict.setText("Done. Best over the swept range: " + best.detector().label() + " (" + Ui.fmt(best.score(), 3) + ", weakest under "
+                                + (best.weakest() == null ? "-" : best.weakest().id()) + ")");
+                    }
                     ctx.status().accept(String.format(java.util.Locale.ROOT, "Sweep: %d cells in %.1f s", last.cellsDone(), last.wallSeconds()));
                 } catch (ExecutionException e) {
                     verdict.setText("Sweep failed: " + e.getCause().getMessage());
@@ -177,15 +183,30 @@ final class StressView extends JPanel {
         return new SweepBase(s.sourceName(), frames, Optional.empty());
     }
 
+    /** Conditions of the latest sweep with no finished cell. */
+    List<Perturbation> conditionsNotRun() {
+        if (running == null) return List.of();
+        List<Perturbation> out = new ArrayList<>();
+        for (Perturbation p : running.parameters) if (rows.stream().noneMatch(x -> x.parameter() == p)) out.add(p);
+        return out;
+    }
+
+    /** Titles of the charts now shown, in order. */
+    List<String> chartTitles() {
+        List<String> out = new ArrayList<>();
+        for (java.awt.Component c : charts.getComponents()) if (c instanceof ChartPanel cp) out.add(cp.getChart().getTitle().getText());
+        return out;
+    }
+
     /** Moves finished cells into the view and redraws one repeatability chart per condition. */
-    private void drainAndDraw() {
+    private void drainAndDraw(boolean force) {
         SweepRow r;
         boolean any = false;
         while ((r = incoming.poll()) != null) {
             rows.add(r);
             any = true;
         }
-        if (!any && charts.getComponentCount() > 0) return;
+        if (!any && !force && charts.getComponentCount() > 0) return;
         charts.removeAll();
         if (running == null) return;
         for (Perturbation p : running.parameters) {
@@ -201,8 +222,11 @@ final class StressView extends JPanel {
                 }
                 lines.add(new Charts.Series(t.label(), values, y, Palette.of(t)));
             }
-            ChartPanel cp = new ChartPanel(Charts.yRange(Charts.lines("Repeatability vs " + p.id(), p.id() + (p.unit().isEmpty() ? "" : " (" + p.unit() + ")"),
-                    "repeatability", lines, false), 0, 1));
+            long done = rows.stream().filter(x -> x.parameter() == p).map(SweepRow::level).distinct().count();
+            String state = done == 0 ? (worker == null ? " (not run)" : " (waiting)")
+                    : done < values.length && worker == null ? " (incomplete: " + done + " of " + values.length + " levels)" : "";
+            ChartPanel cp = new ChartPanel(ChartLook.themed(ChartLook.markedAndDistinct(Charts.yRange(Charts.lines("Repeatability vs " + p.id() + state,
+                    p.id() + (p.unit().isEmpty() ? "" : " (" + p.unit() + ")"), "repeatability, 0..1", lines, false), -0.02, 1.02))));
             cp.setName("stress.chart." + p.id());
             cp.setPreferredSize(new Dimension(440, 280));
             charts.add(cp);

@@ -24,6 +24,7 @@ import javax.swing.JTable;
 import javax.swing.SwingWorker;
 import javax.swing.table.DefaultTableModel;
 import java.awt.BorderLayout;
+import java.awt.GridLayout;
 import java.awt.Color;
 import java.awt.Dimension;
 import java.util.ArrayList;
@@ -40,12 +41,19 @@ import java.util.concurrent.atomic.AtomicBoolean;
  * jitter figures when the run ends. The run is the command line's {@code track} run.
  */
 final class TrackView extends JPanel {
-    /** Outcome colours (Okabe-Ito); tracked points use the seeding detector's colour. */
+    /**
+     * Outcome colours, a palette of their own (Paul Tol's "bright" scheme) so outcomes never read as the detector colours
+     * (Okabe-Ito); ended tracks are also drawn as crosses where they died, so colour is not the only cue.
+     */
     static final Map<TrackOutcome, Color> COLOURS = new EnumMap<>(Map.of(
-            TrackOutcome.STARTED, new Color(86, 180, 233), TrackOutcome.TRACKED, new Color(0, 158, 115),
-            TrackOutcome.LOST_FORWARD_BACKWARD, new Color(213, 94, 0), TrackOutcome.LEFT_IMAGE, new Color(240, 228, 66),
-            TrackOutcome.RESIDUAL_TOO_LARGE, new Color(204, 121, 167), TrackOutcome.DIVERGED, new Color(230, 159, 0),
-            TrackOutcome.TOO_FLAT, Color.GRAY));
+            TrackOutcome.STARTED, new Color(102, 204, 238), TrackOutcome.TRACKED, new Color(34, 136, 51),
+            TrackOutcome.LOST_FORWARD_BACKWARD, new Color(238, 102, 119), TrackOutcome.LEFT_IMAGE, new Color(204, 187, 68),
+            TrackOutcome.RESIDUAL_TOO_LARGE, new Color(170, 51, 119), TrackOutcome.DIVERGED, new Color(68, 119, 170),
+            TrackOutcome.TOO_FLAT, new Color(187, 187, 187)));
+    /** Trail colour (the path of a live track), and how many frames of path each trail keeps. */
+    static final Color TRAIL = new Color(34, 136, 51, 170);
+    static final int TRAIL_FRAMES = 40;
+
     static final String LOADED = "the loaded frames";
 
     private final AppContext ctx;
@@ -82,7 +90,9 @@ final class TrackView extends JPanel {
         right.setResizeWeight(0.6);
         right.setPreferredSize(new Dimension(520, 500));
         JSplitPane split = new JSplitPane(JSplitPane.HORIZONTAL_SPLIT, canvas, right);
-        split.setResizeWeight(0.6);
+        split.setResizeWeight(0.7); // a large frame pane
+        canvas.setMinimumSize(new Dimension(560, 400));
+        right.setMinimumSize(new Dimension(360, 300));
         add(split, BorderLayout.CENTER);
         drawChart();
     }
@@ -100,6 +110,8 @@ final class TrackView extends JPanel {
         DetectorConfig seed = DetectorConfig.defaults((DetectorType) seeding.getSelectedItem());
         cancel.set(false);
         survival.clear();
+        paths.clear();
+        deaths.clear();
         figures.setRowCount(0);
         run.setEnabled(false);
         stop.setEnabled(true);
@@ -112,6 +124,7 @@ final class TrackView extends JPanel {
                 }
             }
             @Override protected void process(List<Object[]> chunks) {
+                for (Object[] c : chunks) accumulate((org.targetbench.track.TrackFrame) c[0]);
                 for (Object[] c : chunks) survival.add(new double[]{((org.targetbench.score.FrameTracking) c[1]).frame(),
                         ((org.targetbench.score.FrameTracking) c[1]).aliveFraction()});
                 Object[] last = chunks.get(chunks.size() - 1);
@@ -135,9 +148,39 @@ final class TrackView extends JPanel {
         worker.execute();
     }
 
+    /** Per track id, its recent path; and where tracks ended, with how. */
+    private final Map<Integer, java.util.ArrayDeque<double[]>> paths = new java.util.HashMap<>();
+    private final List<TrackPoint> deaths = new ArrayList<>();
+
+    private void accumulate(org.targetbench.track.TrackFrame rows) {
+        for (TrackPoint p : rows.points()) {
+            if (p.outcome() == TrackOutcome.TRACKED || p.outcome() == TrackOutcome.STARTED) {
+                var q = paths.computeIfAbsent(p.trackId(), k -> new java.util.ArrayDeque<>());
+                q.addLast(new double[]{p.x(), p.y()});
+                while (q.size() > TRAIL_FRAMES) q.removeFirst();
+            } else if (paths.remove(p.trackId()) != null || deaths.stream().noneMatch(d -> d.trackId() == p.trackId())) deaths.add(p);
+        }
+    }
+
+    /** Tracks that ended so far (one cross each). */
+    int deathCount() { return deaths.size(); }
+
     private void showTracks(org.targetbench.track.TrackFrame rows) {
+        List<FrameCanvas.Trail> trails = new ArrayList<>();
+        for (var q : paths.values()) {
+            double[] x = new double[q.size()], y = new double[q.size()];
+            int i = 0;
+            for (double[] p : q) { x[i] = p[0]; y[i] = p[1]; i++; }
+            trails.add(new FrameCanvas.Trail(x, y, TRAIL));
+        }
+        canvas.setTrails(trails);
         List<FrameCanvas.Marker> marks = new ArrayList<>();
-        for (TrackPoint p : rows.points()) marks.add(new FrameCanvas.Marker(p.x(), p.y(), "", COLOURS.get(p.outcome()), 4));
+        for (TrackPoint p : deaths)
+            marks.add(new FrameCanvas.Marker(p.x(), p.y(), "", COLOURS.get(p.outcome()), 4, FrameCanvas.Shape.CROSS,
+                    "track " + p.trackId() + " ended at frame " + p.frame() + ": " + p.outcome().name().toLowerCase(Locale.ROOT).replace('_', ' ')));
+        for (TrackPoint p : rows.points())
+            if (p.outcome() == TrackOutcome.TRACKED || p.outcome() == TrackOutcome.STARTED)
+                marks.add(new FrameCanvas.Marker(p.x(), p.y(), "", COLOURS.get(p.outcome()), 4));
         canvas.setMarkers(marks);
     }
 
@@ -147,8 +190,8 @@ final class TrackView extends JPanel {
             x[i] = survival.get(i)[0];
             y[i] = survival.get(i)[1];
         }
-        JFreeChart c = Charts.yRange(Charts.lines("Survival of the first frame's tracks", "frame", "alive fraction",
-                List.of(new Charts.Series("alive", x, y, COLOURS.get(TrackOutcome.TRACKED))), false), 0, 1.05);
+        JFreeChart c = ChartLook.themed(Charts.yRange(Charts.lines("Survival of the first frame's tracks", "frame", "alive fraction",
+                List.of(new Charts.Series("alive", x, y, COLOURS.get(TrackOutcome.TRACKED))), false), 0, 1.05));
         ChartPanel cp = new ChartPanel(c);
         cp.setName("track.survival");
         chartHolder.removeAll();
@@ -159,8 +202,10 @@ final class TrackView extends JPanel {
     }
 
     private JPanel legend() {
-        JPanel p = new JPanel(new java.awt.FlowLayout(java.awt.FlowLayout.LEFT));
-        for (var e : COLOURS.entrySet()) p.add(new JLabel(e.getKey().name().toLowerCase(Locale.ROOT).replace('_', ' '), Ui.swatch(e.getValue()), JLabel.LEFT));
+        JPanel p = new JPanel(new GridLayout(0, 2));
+        p.setToolTipText("Live tracks: rings with a trail of their last " + TRAIL_FRAMES + " frames; ended tracks: a cross (x) where they ended, coloured by how");
+        for (var e : COLOURS.entrySet()) p.add(new JLabel(e.getKey().name().toLowerCase(Locale.ROOT).replace('_', ' ')
+                + (e.getKey() == TrackOutcome.TRACKED || e.getKey() == TrackOutcome.STARTED ? "" : " (x)"), Ui.swatch(e.getValue()), JLabel.LEFT));
         return p;
     }
 

@@ -53,7 +53,7 @@ public final class Workbench extends JFrame {
         super("TargetBench " + Version.get());
         this.prefs = prefs;
         setName("workbench");
-        setDefaultCloseOperation(JFrame.DISPOSE_ON_CLOSE);
+        setDefaultCloseOperation(JFrame.DO_NOTHING_ON_CLOSE); // closing asks first when work is unsaved (SessionMenu)
         AppContext ctx = new AppContext(session, this::setStatus, prefs, this, this::show);
         runner = new DetectionRunner(session);
         live = new LiveView(ctx);
@@ -63,13 +63,14 @@ public final class Workbench extends JFrame {
             show("Camera");
             camera.offer(d, CameraView.WEBCAMS);
         });
-        views.put("Compare", new CompareView(ctx));
-        views.put("Stress", new StressView(ctx));
+        views.put("Compare", compareView = new CompareView(ctx));
+        views.put("Stress", stressView = new StressView(ctx));
         views.put("Track", new TrackView(ctx));
         views.put("Servo set", servo = new ServoView(ctx));
-        views.put("Rehearse", new RehearseView(ctx));
+        views.put("Rehearse", rehearseView = new RehearseView(ctx));
         views.put("Export", exportView = new ExportView(ctx));
-        views.put("Targets", new DesignsView(ctx));
+        views.put("Targets", designsView = new DesignsView(ctx));
+        sessions = new SessionMenu(ctx, live, this::dispose);
         for (var e : views.entrySet()) center.add(e.getValue(), e.getKey());
 
         nav = new JList<>(views.keySet().toArray(String[]::new));
@@ -99,6 +100,7 @@ public final class Workbench extends JFrame {
         keys(root);
         restoreBounds();
         addWindowListener(new WindowAdapter() {
+            @Override public void windowClosing(WindowEvent e) { sessions.quit(); }
             @Override public void windowClosed(WindowEvent e) {
                 saveBounds();
                 runner.shutdown();
@@ -111,6 +113,7 @@ public final class Workbench extends JFrame {
 
     private JMenuBar menus() {
         JMenuBar bar = new JMenuBar();
+        bar.add(sessions.fileMenu());
         JMenu view = new JMenu("View");
         JMenuItem theme = new JMenuItem("Switch light/dark theme");
         theme.setName("menu.theme");
@@ -128,6 +131,7 @@ public final class Workbench extends JFrame {
         about.setName("menu.about");
         about.addActionListener(e -> JOptionPane.showMessageDialog(this, "<html><body style='width:420px'><b>TargetBench " + Version.get()
                 + "</b><br><br>" + Safety.NOTICE + "</body></html>", "About TargetBench", JOptionPane.INFORMATION_MESSAGE));
+        help.add(sessions.shortcutsItem());
         help.add(about);
         bar.add(help);
         return bar;
@@ -172,6 +176,23 @@ public final class Workbench extends JFrame {
     CameraView camera() { return camera; }
 
     ServoView servo() { return servo; }
+
+    private RehearseView rehearseView;
+    private final SessionMenu sessions;
+
+    SessionMenu sessions() { return sessions; }
+
+    private DesignsView designsView;
+    private StressView stressView;
+    private CompareView compareView;
+
+    CompareView compareView() { return compareView; }
+
+    StressView stressView() { return stressView; }
+
+    DesignsView designsView() { return designsView; }
+
+    RehearseView rehearseView() { return rehearseView; }
 
     ExportView exportView() { return exportView; }
 

@@ -78,6 +78,31 @@ public final class ServoSetJson {
         return root;
     }
 
+    /** The words the {@code rehearsal} key holds when the set was exported without a rehearsal of exactly this set. */
+    public static final String NOT_REHEARSED = "not rehearsed";
+
+    /**
+     * The set with a {@code rehearsal} key: the settings and headline figures of the rehearsal run on exactly this set,
+     * or {@link #NOT_REHEARSED}.
+     */
+    public static ObjectNode toJson(ServoSet s, java.util.Optional<org.targetbench.servo.RehearsalResult> rehearsal, String rehearsalFolder) {
+        ObjectNode root = toJson(s);
+        if (rehearsal.isEmpty()) root.put("rehearsal", NOT_REHEARSED);
+        else {
+            ObjectNode full = ServoWriters.rehearsalSummary(rehearsal.get(), "servo-set.json", 0);
+            ObjectNode r = root.putObject("rehearsal");
+            r.put("files", rehearsalFolder);
+            r.set("settings", full.get("settings"));
+            r.set("summary", full.get("summary"));
+            r.set("warnings", full.get("warnings"));
+        }
+        return root;
+    }
+
+    public static void write(ServoSet s, java.util.Optional<org.targetbench.servo.RehearsalResult> rehearsal, String rehearsalFolder, Path file) throws IOException {
+        MAPPER.writerWithDefaultPrettyPrinter().writeValue(file.toFile(), toJson(s, rehearsal, rehearsalFolder));
+    }
+
     public static void write(ServoSet s, Path file) throws IOException {
         MAPPER.writerWithDefaultPrettyPrinter().writeValue(file.toFile(), toJson(s));
     }

@@ -47,6 +47,33 @@ public final class ServoWriters {
         }
     }
 
+    /**
+     * The selection file of a set as it stands after hand edits: every point of {@code set} is "chosen" with the reason
+     * it carries in the set, every other candidate of the selection is "rejected" (with the selection's reason, or
+     * {@link Reasons#REMOVED_BY_HAND} for a chosen point taken out), so that the file and the set never disagree.
+     */
+    public static void writeSelection(Selection s, org.targetbench.servo.ServoSet set, Path file) throws IOException {
+        java.util.Map<Integer, Candidate> byId = new java.util.LinkedHashMap<>();
+        java.util.Map<Integer, String> rejectedWhy = new java.util.HashMap<>();
+        for (Selection.Chosen c : s.chosen()) byId.put(c.candidate().id(), c.candidate());
+        for (Selection.Rejected r : s.rejected()) {
+            byId.put(r.candidate().id(), r.candidate());
+            rejectedWhy.put(r.candidate().id(), Reasons.rejected(r));
+        }
+        java.util.Set<Integer> in = new java.util.HashSet<>();
+        try (BufferedWriter w = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
+            w.write(SELECTION_HEADER + "\n");
+            for (org.targetbench.servo.ServoPoint p : set.points()) {
+                in.add(p.id());
+                Candidate c = byId.get(p.id());
+                if (c == null) throw new IllegalArgumentException("set point " + p.id() + " is not a candidate of the selection");
+                row(w, c, "chosen", p.reason());
+            }
+            for (Candidate c : byId.values())
+                if (!in.contains(c.id())) row(w, c, "rejected", rejectedWhy.getOrDefault(c.id(), Reasons.REMOVED_BY_HAND));
+        }
+    }
+
     private static void row(BufferedWriter w, Candidate c, String status, String reason) throws IOException {
         var r = c.robustness();
         w.write(c.id() + "," + Csv.num(c.u(), 3) + "," + Csv.num(c.v(), 3) + "," + status + "," + Csv.text(reason) + "," + opt(r.repeatability(), 4) + ","

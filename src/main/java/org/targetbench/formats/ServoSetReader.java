@@ -57,7 +57,7 @@ public final class ServoSetReader {
         if (!root.has("version")) throw in.error("version", "is missing; this build reads " + ServoSetJson.FORMAT + " versions 1.." + ServoSetJson.VERSION);
         in.expectFormat(root, ServoSetJson.FORMAT, ServoSetJson.VERSION);
         in.knownKeys(root, "format", "version", "tool_version", "created", "safety", "conventions", "camera", "target", "reference_pose",
-                "reference_pose_method", "settings", "set", "points");
+                "reference_pose_method", "settings", "set", "points", "rehearsal");
         JsonNode cam = root.get("camera");
         if (cam == null || !cam.isObject()) throw in.error("camera", "is missing: the intrinsics are needed");
         JsonNode dist = cam.path("distortion");

@@ -21,6 +21,13 @@ import java.util.Map;
 public final class Reasons {
     /** The reason a point added to a set by hand carries. */
     public static final String ADDED_BY_HAND = "added by hand";
+    /** The reason a chosen point taken out of the set by hand carries in the selection file. */
+    public static final String REMOVED_BY_HAND = "taken out of the set by hand";
+
+    /** The reason of a point added by hand although it failed a filter: the warning and the filter's sentence. */
+    public static String addedByHandFailing(Selection.Rejected r) {
+        return ADDED_BY_HAND + " although it failed a filter: " + rejected(r);
+    }
 
     private Reasons() {}
 

@@ -52,6 +52,10 @@ class WorkbenchGuiTest {
         robot = BasicRobot.robotWithNewAwtHierarchy();
         workbench = WorkbenchApp.open(prefs);
         window = new FrameFixture(robot, workbench);
+        GuiActionRunner.execute(() -> {
+            workbench.setSize(1280, 800); // the smallest screen the views are laid out for; screenshots at this size
+            workbench.validate();
+        });
         Files.createDirectories(SHOTS);
     }
 
@@ -118,6 +122,35 @@ class WorkbenchGuiTest {
         GuiActionRunner.execute(() -> b.target().doClick());
     }
 
+    /**
+     * Every visual row of a wrapping text area fits its width, measured with the area's font metrics, and the rows
+     * together hold the whole text: nothing is cut off (a vertical scroll bar may still be needed).
+     */
+    static void assertAllRowsFit(javax.swing.JTextArea area) {
+        GuiActionRunner.execute(() -> {
+            java.awt.FontMetrics fm = area.getFontMetrics(area.getFont());
+            java.awt.Insets in = area.getInsets();
+            int usable = area.getWidth() - in.left - in.right;
+            assertTrue(usable > 100, "laid out: " + usable);
+            String text = area.getText();
+            StringBuilder seen = new StringBuilder();
+            try {
+                int p = 0;
+                while (p < text.length()) {
+                    int end = javax.swing.text.Utilities.getRowEnd(area, p);
+                    String row = text.substring(p, Math.min(text.length(), end + 1)).replace("\n", "");
+                    assertTrue(fm.stringWidth(row.stripTrailing()) <= usable, "row '" + row + "' is " + fm.stringWidth(row) + " px wide in " + usable + " px");
+                    seen.append(text, p, Math.min(text.length(), end + 1));
+                    p = end + 1;
+                }
+            } catch (javax.swing.text.BadLocationException e) {
+                throw new AssertionError(e);
+            }
+            assertEquals(text, seen.toString());
+            return null;
+        });
+    }
+
     static void shot(String name) throws Exception {
         BufferedImage img = GuiActionRunner.execute(() -> {
             BufferedImage b = new BufferedImage(workbench.getWidth(), workbench.getHeight(), BufferedImage.TYPE_INT_RGB);
@@ -176,7 +209,18 @@ class WorkbenchGuiTest {
         waitFor("sweep stopped", () -> window.button("stress.run").target().isEnabled());
         JLabel verdict = window.label("stress.verdict").target();
         String text = GuiActionRunner.execute(verdict::getText);
-        assertTrue(text.startsWith("Stopped: kept"), text);
+        // no verdict from an incomplete sweep; the conditions that never ran say so on their charts
+        var m = java.util.regex.Pattern.compile("Stopped: incomplete: (\\d+) of (\\d+) cells; no ranking from an incomplete sweep\\..*").matcher(text);
+        assertTrue(m.matches(), text);
+        assertTrue(Integer.parseInt(m.group(1)) < Integer.parseInt(m.group(2)), text);
+        assertFalse(text.contains("Best"), text);
+        var notRun = GuiActionRunner.execute(() -> workbench.stressView().conditionsNotRun());
+        var titles = GuiActionRunner.execute(() -> workbench.stressView().chartTitles());
+        for (var p : notRun) {
+            assertTrue(text.contains(p.id()), text);
+            assertTrue(titles.contains("Repeatability vs " + p.id() + " (not run)"), titles.toString());
+        }
+        assertEquals(notRun.size(), titles.stream().filter(t -> t.endsWith("(not run)")).count(), titles.toString());
         window.button("stress.save").requireEnabled();
         shot("stress-cancelled");
     }
@@ -184,15 +228,28 @@ class WorkbenchGuiTest {
     @Test
     @Order(5)
     void comparesAllFrames() throws Exception {
+        GuiActionRunner.execute(() -> {
+            workbench.setSize(1280, 800);
+            workbench.validate();
+        });
         window.list("nav").selectItem("Compare");
         window.button("compare.run").click();
         waitFor("ranking filled", () -> window.table("compare.ranking").target().getRowCount() == org.targetbench.detect.DetectorType.values().length);
+        waitFor("per-frame plot", () -> workbench.compareView().perFrameSeries() == org.targetbench.detect.DetectorType.values().length);
+        int at = GuiActionRunner.execute(() -> workbench.session().frameIndex());
+        window.button("compare.next").click();
+        waitFor("stepped", () -> workbench.session().frameIndex() == at + 1);
+        window.label("compare.frame").requireText(java.util.regex.Pattern.compile(" frame " + (at + 2) + " of 12: .*"));
         shot("compare-ranked");
     }
 
     @Test
     @Order(6)
     void aServoSetIsChosenEditedRehearsedAndExported(@org.junit.jupiter.api.io.TempDir Path tmp) throws Exception {
+        GuiActionRunner.execute(() -> {
+            workbench.setSize(1280, 800);
+            workbench.validate();
+        });
         window.list("nav").selectItem("Servo set");
         window.button("servo.choose").click();
         waitFor("servo set chosen", () -> workbench.session().servoSet() != null);
@@ -211,6 +268,39 @@ class WorkbenchGuiTest {
         robot.click(workbench.servo().canvas(), at);
         waitFor("point back", () -> workbench.session().servoSet().points().size() == 4);
         assertEquals(set.condition(), GuiActionRunner.execute(() -> workbench.session().servoSet().condition()), 1e-9);
+        // Ctrl+Z takes the click back, Ctrl+Shift+Z does it again; the points spinner follows the set
+        robot.focusAndWaitForFocusGain(workbench.servo().canvas());
+        robot.pressAndReleaseKey(java.awt.event.KeyEvent.VK_Z, java.awt.event.InputEvent.CTRL_MASK);
+        waitFor("click undone", () -> workbench.session().servoSet().points().size() == 3);
+        window.spinner("servo.count").requireValue(3);
+        robot.pressAndReleaseKey(java.awt.event.KeyEvent.VK_Z, java.awt.event.InputEvent.CTRL_MASK | java.awt.event.InputEvent.SHIFT_MASK);
+        waitFor("click redone", () -> workbench.session().servoSet().points().size() == 4);
+        window.spinner("servo.count").requireValue(4);
+        // a hand-added point that failed a filter is kept, with a warning; the spinner shows 5
+        var pick = GuiActionRunner.execute(() -> workbench.session().pick());
+        var failing = pick.selection().rejected().stream().filter(r -> r.why().isFilter()).findFirst();
+        int added = failing.map(r -> r.candidate().id()).orElseGet(() -> pick.selection().rejected().get(0).candidate().id());
+        GuiActionRunner.execute(() -> workbench.servo().toggle(added));
+        waitFor("point added by hand", () -> workbench.session().servoSet().points().size() == 5);
+        window.spinner("servo.count").requireValue(5);
+        if (failing.isPresent())
+            window.label("servo.findings").requireText(java.util.regex.Pattern.compile(".*point #" + added + " was added by hand and failed a filter.*"));
+        shot("servo-set-edited");
+        // the longest reason, selected, reads in full in the detail pane at 1280 x 800: every wrapped row fits its width
+        JTable rejectedTable = window.table("servo.rejected").target();
+        int longest = GuiActionRunner.execute(() -> {
+            int best = 0;
+            for (int i = 1; i < rejectedTable.getRowCount(); i++)
+                if (rejectedTable.getValueAt(i, 3).toString().length() > rejectedTable.getValueAt(best, 3).toString().length()) best = i;
+            return best;
+        });
+        window.table("servo.rejected").selectRows(longest);
+        String reason = GuiActionRunner.execute(() -> rejectedTable.getValueAt(longest, 3).toString());
+        javax.swing.JTextArea detail = (javax.swing.JTextArea) window.textBox("servo.detail").target();
+        waitFor("reason in the detail pane", () -> detail.getText().contains(reason));
+        pause(200);
+        assertAllRowsFit(detail);
+        shot("servo-set-detail");
 
         window.list("nav").selectItem("Rehearse");
         window.spinner("rehearse.starts").enterTextAndCommit("20");
@@ -249,12 +339,79 @@ class WorkbenchGuiTest {
         assertEquals(current, ServoSetReader.read(dir.resolve("servo-set.json")));
         assertEquals(current, ServoSetReader.read(dir.resolve("servo-set.csv")));
         assertTrue(Files.exists(dir.resolve("rehearsal/rehearsal.html")));
+        // the selection file says exactly what the set holds: its chosen rows are the set's points
+        java.util.List<String> rows = Files.readAllLines(dir.resolve("servo-set-selection.csv"));
+        java.util.Set<Integer> chosenIds = new java.util.TreeSet<>(), setIds = new java.util.TreeSet<>();
+        for (String r : rows.subList(1, rows.size())) if (r.split(",")[3].equals("chosen")) chosenIds.add(Integer.parseInt(r.split(",")[0]));
+        for (var q : current.points()) setIds.add(q.id());
+        assertEquals(setIds, chosenIds);
+        assertTrue(setIds.contains(added), "the hand-added point is in both");
+        assertEquals(pick.candidates().size(), rows.size() - 1, "every candidate has one row");
+        // the JSON records the rehearsal of exactly this set, and the files its report links to are beside it
+        var json = new com.fasterxml.jackson.databind.ObjectMapper().readTree(dir.resolve("servo-set.json").toFile());
+        var rehearsed = GuiActionRunner.execute(() -> workbench.session().rehearsal());
+        assertEquals(rehearsed.summary().runs(), json.at("/rehearsal/summary/runs").asInt());
+        assertEquals(rehearsed.config().starts, json.at("/rehearsal/settings/starts").asInt());
+        assertTrue(Files.exists(dir.resolve("rehearsal/rehearsal.csv")) && Files.exists(dir.resolve("rehearsal/rehearsal-summary.json")));
+
+        // a set changed since its rehearsal: export asks first; cancelled, nothing is written; accepted, it says "not rehearsed"
+        window.list("nav").selectItem("Servo set");
+        window.button("servo.undo").click();
+        waitFor("set changed", () -> workbench.session().servoSet().points().size() == 4 && workbench.session().changedSinceRehearsal());
+        window.list("nav").selectItem("Export");
+        Path dir2 = tmp.resolve("unrehearsed");
+        Files.createDirectories(dir2);
+        window.button("export.write").click();
+        press(window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).requireTitle(ExportView.UNREHEARSED_TITLE)
+                .requireMessage(java.util.regex.Pattern.compile(".*changed since it was rehearsed.*", java.util.regex.Pattern.DOTALL)).cancelButton());
+        awaitDialogsClosed();
+        assertEquals(0, GuiActionRunner.execute(() -> (int) java.util.Arrays.stream(java.awt.Window.getWindows())
+                .filter(w -> w instanceof javax.swing.JDialog && w.isShowing()).count()), "no file chooser after cancelling");
+        window.button("export.write").click();
+        press(window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).requireTitle(ExportView.UNREHEARSED_TITLE).okButton());
+        var chooser2 = window.fileChooser(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).target();
+        GuiActionRunner.execute(() -> {
+            chooser2.setCurrentDirectory(tmp.toFile());
+            chooser2.setSelectedFile(dir2.toFile());
+            chooser2.approveSelection();
+        });
+        waitFor("exported unrehearsed", () -> Files.exists(dir2.resolve("servo-set.json")));
+        assertEquals(org.targetbench.export.ServoSetJson.NOT_REHEARSED,
+                new com.fasterxml.jackson.databind.ObjectMapper().readTree(dir2.resolve("servo-set.json").toFile()).get("rehearsal").asText());
+        assertFalse(Files.exists(dir2.resolve("rehearsal")));
+        // redo brings back the rehearsed set, and its rehearsal with it
+        window.list("nav").selectItem("Servo set");
+        window.button("servo.redo").click();
+        waitFor("rehearsed set back", () -> workbench.session().rehearsal() == rehearsed);
+
+        // the exported set loads back to be rehearsed again, with the command line's controls; runs stay side by side
+        window.list("nav").selectItem("Rehearse");
+        assertTrue(GuiActionRunner.execute(() -> workbench.rehearseView().loadSet(dir2.resolve("servo-set.json"))));
+        waitFor("loaded set", () -> workbench.session().servoSet() != null && workbench.session().servoSet().points().size() == 4
+                && workbench.session().pick() == null && workbench.session().rehearsal() == null);
+        window.comboBox("rehearse.depth").selectItem("scaled");
+        window.spinner("rehearse.depth.error").enterTextAndCommit("1.2");
+        window.checkBox("rehearse.noise.measured").uncheck();
+        window.spinner("rehearse.noise").enterTextAndCommit("0.2");
+        window.button("rehearse.run").click();
+        waitFor("second rehearsal", () -> workbench.session().rehearsal() != null && workbench.rehearseView().runCount() == 2);
+        var second = GuiActionRunner.execute(() -> workbench.session().rehearsal().config());
+        assertEquals(1.2, second.depthErrorFactor, 1e-12);
+        assertEquals(0.2, second.noiseSigmaPx, 1e-12);
+        assertEquals(org.targetbench.servo.DepthMode.SCALED, second.depthMode);
+        assertEquals("scaled x1.20", GuiActionRunner.execute(() -> window.table("rehearse.runs").target().getValueAt(1, 4)));
+        pause(300);
+        shot("rehearse-two-runs");
     }
 
     @Test
     @Order(7)
     void tracksASyntheticMotion() throws Exception {
         window.list("nav").selectItem("Track");
+        GuiActionRunner.execute(() -> {
+            workbench.setSize(1280, 800);
+            workbench.validate();
+        });
         window.comboBox("track.source").selectItem("synthetic: approach");
         window.button("track.run").click();
         waitFor("tracking finished", () -> window.table("track.figures").target().getRowCount() > 5);
@@ -451,5 +608,53 @@ class WorkbenchGuiTest {
         GuiActionRunner.execute(() -> workbench.session().setFrameIndex(3));
         waitFor("frame label says so", () -> GuiActionRunner.execute(() -> window.label("play.label").target().getText()).contains("NOT REGISTERED"));
         shot("live-registered");
+    }
+
+    @Test
+    @Order(13)
+    void aSessionSavedAndReopenedGivesTheSameState(@org.junit.jupiter.api.io.TempDir Path tmp) throws Exception {
+        awaitDialogsClosed();
+        GuiActionRunner.execute(() -> workbench.live().loadDemo());
+        waitFor("demo loaded", () -> workbench.session().frames().size() == 12 && workbench.session().origin() != null
+                && workbench.session().servoSet() == null);
+        window.list("nav").selectItem("Servo set");
+        window.button("servo.choose").click();
+        waitFor("servo set chosen", () -> workbench.session().servoSet() != null);
+        int extra = GuiActionRunner.execute(() -> workbench.session().pick().selection().rejected().get(0).candidate().id());
+        GuiActionRunner.execute(() -> workbench.servo().toggle(extra));
+        GuiActionRunner.execute(() -> workbench.session().setFrameIndex(3));
+        assertTrue(GuiActionRunner.execute(() -> workbench.sessions().dirty()), "edits are unsaved work");
+        // Ctrl+Q with unsaved work asks first; Cancel keeps the window
+        robot.focusAndWaitForFocusGain(workbench.servo().canvas());
+        robot.pressAndReleaseKey(java.awt.event.KeyEvent.VK_Q, java.awt.event.InputEvent.CTRL_MASK);
+        press(window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).requireTitle(SessionMenu.UNSAVED_TITLE).cancelButton());
+        awaitDialogsClosed();
+        assertTrue(GuiActionRunner.execute(workbench::isDisplayable), "cancelled: the window stays");
+
+        var set = GuiActionRunner.execute(() -> workbench.session().servoSet());
+        String name = GuiActionRunner.execute(() -> workbench.session().sourceName());
+        Path file = tmp.resolve("cell-3.session.json");
+        assertTrue(GuiActionRunner.execute(() -> workbench.sessions().save(file)));
+        var json = new com.fasterxml.jackson.databind.ObjectMapper().readTree(file.toFile());
+        assertEquals("cell-3.servo-set.json", json.get("servo_set").asText(), "paths relative to the session file");
+        assertEquals("demo", json.at("/source/kind").asText());
+        assertFalse(GuiActionRunner.execute(() -> workbench.sessions().dirty()));
+
+        GuiActionRunner.execute(() -> workbench.sessions().newSession());
+        waitFor("fresh demo", () -> workbench.session().servoSet() == null && workbench.session().frameIndex() == workbench.session().referenceIndex());
+        GuiActionRunner.execute(() -> workbench.sessions().open(file));
+        waitFor("session reopened", () -> workbench.session().servoSet() != null && workbench.session().frameIndex() == 3);
+        assertEquals(set, GuiActionRunner.execute(() -> workbench.session().servoSet()), "the edited set, exactly");
+        assertEquals(name, GuiActionRunner.execute(() -> workbench.session().sourceName()));
+        assertEquals(12, (int) GuiActionRunner.execute(() -> workbench.session().frames().size()));
+        assertFalse(GuiActionRunner.execute(() -> workbench.sessions().dirty()));
+        assertEquals(file.toAbsolutePath().normalize().toString(), GuiActionRunner.execute(() -> workbench.sessions().recentList().get(0)));
+
+        // a design opened twice is listed once
+        var design = org.targetbench.source.TargetFile.read(Path.of("target-designs/fixture-cb15/target.json"));
+        int before = GuiActionRunner.execute(() -> workbench.designsView().designCount());
+        GuiActionRunner.execute(() -> workbench.designsView().addDesign(design));
+        GuiActionRunner.execute(() -> workbench.designsView().addDesign(design));
+        assertEquals(before, (int) GuiActionRunner.execute(() -> workbench.designsView().designCount()), "fixture-cb15 is already listed");
     }
 }

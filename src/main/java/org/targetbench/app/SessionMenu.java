@@ -1,0 +1,234 @@
+package org.targetbench.app;
+
+import org.targetbench.export.ServoSetJson;
+import org.targetbench.formats.ServoSetReader;
+import org.targetbench.formats.SessionFile;
+
+import javax.swing.JFileChooser;
+import javax.swing.JMenu;
+import javax.swing.JMenuItem;
+import javax.swing.JOptionPane;
+import javax.swing.KeyStroke;
+import javax.swing.SwingUtilities;
+import java.awt.event.InputEvent;
+import java.awt.event.KeyEvent;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Optional;
+
+/**
+ * Sessions of the workbench: File menu (new, open, save as, recent sessions, quit), the unsaved-work prompt and the
+ * keyboard shortcuts list. A session file ({@link SessionFile}) references the source and the edited servo set, which is
+ * written beside it as NAME.servo-set.json.
+ */
+final class SessionMenu implements Session.Listener {
+    /** How many recent sessions the File menu lists. */
+    static final int RECENT = 6;
+    static final String SUFFIX = ".session.json";
+    static final String UNSAVED_TITLE = "Unsaved work";
+    /** The keyboard shortcuts, as Help lists them. */
+    static final String[][] SHORTCUTS = {
+            {"Ctrl+N", "New session (the demo scene)"}, {"Ctrl+O", "Open a session"}, {"Ctrl+S", "Save the session as..."},
+            {"Ctrl+Q", "Quit (asks first when work is unsaved)"}, {"Ctrl+E", "Export the servo set"}, {"Ctrl+T", "Switch light/dark theme"},
+            {"Ctrl+Z", "Servo set: take back the latest point click"}, {"Ctrl+Shift+Z", "Servo set: do the undone click again"},
+            {"Space", "Play or pause the frames"}, {"Left / Right", "Previous / next frame"},
+            {"Click on the frame", "Servo set: add or remove the nearest candidate"}, {"Mouse wheel, drag", "Zoom and pan the frame"}};
+
+    private final AppContext ctx;
+    private final Session session;
+    private final LiveView live;
+    private final Runnable dispose;
+    private final JMenu recent = new JMenu("Recent sessions");
+    private boolean dirty;
+    private Path current;
+
+    SessionMenu(AppContext ctx, LiveView live, Runnable dispose) {
+        this.ctx = ctx;
+        this.session = ctx.session();
+        this.live = live;
+        this.dispose = dispose;
+        session.addListener(this);
+    }
+
+    @Override
+    public void changed(Session.Change c) {
+        if (c == Session.Change.SERVO) dirty = true;
+        if (c == Session.Change.SOURCE && session.origin() != null && session.origin().kind() != SessionFile.SourceKind.DEMO) dirty = true;
+    }
+
+    boolean dirty() { return dirty; }
+
+    JMenu fileMenu() {
+        JMenu file = new JMenu("File");
+        file.setName("menu.file");
+        file.add(item("menu.new", "New session", KeyEvent.VK_N, 0, this::newSession));
+        file.add(item("menu.open", "Open session...", KeyEvent.VK_O, 0, this::chooseAndOpen));
+        file.add(item("menu.save", "Save session as...", KeyEvent.VK_S, 0, this::chooseAndSave));
+        recent.setName("menu.recent");
+        file.add(recent);
+        file.addSeparator();
+        file.add(item("menu.quit", "Quit", KeyEvent.VK_Q, 0, this::quit));
+        file.addMenuListener(new javax.swing.event.MenuListener() {
+            @Override public void menuSelected(javax.swing.event.MenuEvent e) { fillRecent(); }
+            @Override public void menuDeselected(javax.swing.event.MenuEvent e) {}
+            @Override public void menuCanceled(javax.swing.event.MenuEvent e) {}
+        });
+        fillRecent();
+        return file;
+    }
+
+    JMenuItem shortcutsItem() {
+        JMenuItem i = new JMenuItem("Keyboard shortcuts");
+        i.setName("menu.shortcuts");
+        i.addActionListener(e -> {
+            StringBuilder b = new StringBuilder("<html><table>");
+            for (String[] s : SHORTCUTS) b.append("<tr><td><b>").append(s[0]).append("</b></td><td>").append(s[1]).append("</td></tr>");
+            JOptionPane.showMessageDialog(ctx.window(), b.append("</table></html>").toString(), "Keyboard shortcuts", JOptionPane.INFORMATION_MESSAGE);
+        });
+        return i;
+    }
+
+    private static JMenuItem item(String name, String text, int key, int extra, Runnable r) {
+        JMenuItem i = new JMenuItem(text);
+        i.setName(name);
+        i.setAccelerator(KeyStroke.getKeyStroke(key, InputEvent.CTRL_DOWN_MASK | extra));
+        i.addActionListener(e -> r.run());
+        return i;
+    }
+
+    private void fillRecent() {
+        recent.removeAll();
+        for (String p : recentList()) {
+            JMenuItem i = new JMenuItem(p);
+            i.addActionListener(e -> {
+                if (askToSave()) open(Path.of(p));
+            });
+            recent.add(i);
+        }
+        recent.setEnabled(recent.getItemCount() > 0);
+    }
+
+    List<String> recentList() {
+        List<String> out = new ArrayList<>();
+        for (String s : ctx.prefs().get("recentSessions", "").split("\n")) if (!s.isBlank()) out.add(s);
+        return out;
+    }
+
+    private void remember(Path file) {
+        List<String> r = recentList();
+        String p = file.toAbsolutePath().normalize().toString();
+        r.remove(p);
+        r.add(0, p);
+        ctx.prefs().put("recentSessions", String.join("\n", r.subList(0, Math.min(RECENT, r.size()))));
+    }
+
+    /** True when the work may be discarded: nothing unsaved, the user saved it, or chose not to. */
+    boolean askToSave() {
+        if (!dirty) return true;
+        int a = JOptionPane.showConfirmDialog(ctx.window(), "The session has unsaved work (source, servo set edits or rehearsals). Save it first?",
+                UNSAVED_TITLE, JOptionPane.YES_NO_CANCEL_OPTION, JOptionPane.WARNING_MESSAGE);
+        if (a == JOptionPane.YES_OPTION) return chooseAndSave();
+        return a == JOptionPane.NO_OPTION;
+    }
+
+    void quit() {
+        if (askToSave()) dispose.run();
+    }
+
+    void newSession() {
+        if (!askToSave()) return;
+        current = null;
+        live.loadDemo();
+        dirty = false;
+    }
+
+    private void chooseAndOpen() {
+        if (!askToSave()) return;
+        JFileChooser fc = new JFileChooser(ctx.prefs().get("lastSessionFolder", System.getProperty("user.dir")));
+        fc.setFileFilter(new javax.swing.filechooser.FileNameExtensionFilter("Sessions (*.session.json)", "json"));
+        if (fc.showOpenDialog(ctx.window()) != JFileChooser.APPROVE_OPTION) return;
+        open(fc.getSelectedFile().toPath());
+    }
+
+    private boolean chooseAndSave() {
+        JFileChooser fc = new JFileChooser(ctx.prefs().get("lastSessionFolder", System.getProperty("user.dir")));
+        fc.setDialogTitle("Save the session as");
+        if (current != null) fc.setSelectedFile(current.toFile());
+        if (fc.showSaveDialog(ctx.window()) != JFileChooser.APPROVE_OPTION) return false;
+        Path f = fc.getSelectedFile().toPath();
+        if (!f.getFileName().toString().endsWith(".json")) f = f.resolveSibling(f.getFileName() + SUFFIX);
+        return save(f);
+    }
+
+    /** Writes the session (and the edited servo set beside it); false with a message when it cannot. */
+    boolean save(Path file) {
+        Session.Origin o = session.origin();
+        if (o == null) {
+            String msg = "These frames cannot be reopened from a file (a registration or a camera); save the source as a folder first.";
+            ctx.status().accept("Could not save the session: " + msg);
+            JOptionPane.showMessageDialog(ctx.window(), msg, "Could not save the session", JOptionPane.WARNING_MESSAGE);
+            return false;
+        }
+        try {
+            Optional<Path> set = Optional.empty();
+            if (session.servoSet() != null) {
+                String stem = file.getFileName().toString().replaceFirst("(\\.session)?\\.json$", "");
+                Path sf = file.toAbsolutePath().resolveSibling(stem + ".servo-set.json");
+                ServoSetJson.write(session.servoSet(), Optional.ofNullable(session.rehearsal()), "", sf);
+                set = Optional.of(sf);
+            }
+            SessionFile.write(new SessionFile.State(o.kind(), o.path(), session.hasFrames() ? session.frameIndex() : 0, set), file);
+            current = file;
+            dirty = false;
+            remember(file);
+            ctx.prefs().put("lastSessionFolder", String.valueOf(file.toAbsolutePath().getParent()));
+            ctx.status().accept("Saved the session to " + file);
+            return true;
+        } catch (Exception e) {
+            ctx.status().accept("Could not save the session: " + e.getMessage());
+            JOptionPane.showMessageDialog(ctx.window(), e.getMessage(), "Could not save the session", JOptionPane.WARNING_MESSAGE);
+            return false;
+        }
+    }
+
+    /** Reads a session: loads its source, then (once loaded) shows its frame and its servo set. */
+    void open(Path file) {
+        SessionFile.State st;
+        try {
+            st = SessionFile.read(file);
+            if (st.servoSet().isPresent() && !Files.exists(st.servoSet().get()))
+                throw new org.targetbench.source.SourceException("the session's servo set " + st.servoSet().get() + " is missing");
+        } catch (org.targetbench.source.SourceException e) {
+            ctx.status().accept("Could not open the session: " + e.getMessage());
+            JOptionPane.showMessageDialog(ctx.window(), e.getMessage(), "Could not open the session", JOptionPane.WARNING_MESSAGE);
+            return;
+        }
+        session.addListener(new Session.Listener() {
+            @Override public void changed(Session.Change c) {
+                if (c != Session.Change.SOURCE) return;
+                session.removeListener(this);
+                SwingUtilities.invokeLater(() -> {
+                    session.setFrameIndex(st.frameIndex());
+                    if (st.servoSet().isPresent()) {
+                        try {
+                            session.loadServoSet(ServoSetReader.read(st.servoSet().get()));
+                        } catch (org.targetbench.source.SourceException e) {
+                            ctx.status().accept("Could not read the session's servo set: " + e.getMessage());
+                        }
+                    }
+                    current = file;
+                    dirty = false;
+                    remember(file);
+                    ctx.status().accept("Opened the session " + file);
+                });
+            }
+        });
+        switch (st.kind()) {
+            case DEMO -> live.loadDemo();
+            case VIDEO -> live.loadVideo(st.sourcePath().orElseThrow());
+            case FOLDER -> live.loadFolder(st.sourcePath().orElseThrow());
+        }
+    }
+}
