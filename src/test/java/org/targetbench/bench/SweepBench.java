@@ -31,7 +31,9 @@ public final class SweepBench {
 
     public static void main(String[] args) throws Exception {
         SweepConfig c = new SweepConfig();
-        for (DetectorType t : DetectorType.values()) c.detectors.add(DetectorConfig.defaults(t));
+        // "--generic": only the five generic detectors, the set the earlier recorded figures were taken with
+        boolean genericOnly = java.util.Arrays.asList(args).contains("--generic");
+        for (DetectorType t : DetectorType.values()) if (!genericOnly || !t.designMatched()) c.detectors.add(DetectorConfig.defaults(t));
         for (PerturbKind k : PerturbKind.values()) c.parameters.add(Perturbation.primary(k));
         System.out.printf(Locale.ROOT, "Sweep benchmark: %d detectors x %d kinds x %d levels x %d views, %d threads, load %s%n",
                 c.detectors.size(), c.parameters.size(), c.levels, c.syntheticFrames, c.threads, load());
