@@ -460,7 +460,14 @@ class WorkbenchGuiTest {
         awaitDialogsClosed();
         window.button("det.settings").click();
         var pane = window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS));
-        pane.table("settings.table").enterValue(org.assertj.swing.data.TableCell.row(1).column(1), "20");
+        // typed into the cell's own editor on the event thread: under a display with no window manager the robot's
+        // click that opens the editor is sometimes lost
+        javax.swing.JTable settings = pane.table("settings.table").target();
+        GuiActionRunner.execute(() -> {
+            assertTrue(settings.editCellAt(1, 1), "the most-points cell is editable");
+            ((javax.swing.text.JTextComponent) settings.getEditorComponent()).setText("20");
+            assertTrue(settings.getCellEditor().stopCellEditing(), "the editor takes 20");
+        });
         press(pane.okButton());
         awaitDialogsClosed();
         waitFor("Shi-Tomasi capped at 20", () -> workbench.session().config(org.targetbench.detect.DetectorType.SHI_TOMASI).maxFeatures == 20
