@@ -1,39 +1,34 @@
 package org.targetbench.app;
 
 import org.jfree.chart.ChartPanel;
-import org.targetbench.detect.DetectorType;
 import org.targetbench.export.AtomicOutput;
+import org.targetbench.export.DotBiasWriter;
 import org.targetbench.export.SweepWriter;
-import org.targetbench.perturb.PerturbKind;
 import org.targetbench.perturb.Perturbation;
+import org.targetbench.pipeline.DotBiasTable;
 import org.targetbench.pipeline.SweepBase;
 import org.targetbench.pipeline.SweepConfig;
 import org.targetbench.pipeline.SweepResult;
 import org.targetbench.pipeline.SweepRow;
 import org.targetbench.pipeline.SweepRun;
 import org.targetbench.pipeline.SweepSummary;
-import org.targetbench.report.Charts;
-import org.targetbench.report.Palette;
 import org.targetbench.report.SweepReport;
 
 import javax.swing.JButton;
-import javax.swing.JCheckBox;
 import javax.swing.JComboBox;
 import javax.swing.JFileChooser;
 import javax.swing.JLabel;
 import javax.swing.JPanel;
 import javax.swing.JProgressBar;
 import javax.swing.JScrollPane;
-import javax.swing.JSpinner;
-import javax.swing.SpinnerNumberModel;
+import javax.swing.JSplitPane;
+import javax.swing.SwingUtilities;
 import javax.swing.SwingWorker;
 import javax.swing.Timer;
 import java.awt.BorderLayout;
-import java.awt.Dimension;
 import java.awt.GridLayout;
 import java.nio.file.Path;
 import java.util.ArrayList;
-import java.util.EnumMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
@@ -42,18 +37,20 @@ import java.util.concurrent.ExecutionException;
 import java.util.concurrent.atomic.AtomicBoolean;
 
 /**
- * Runs a stress sweep from the workbench: choose the conditions and levels, watch the repeatability curves fill in
- * as cells finish, cancel at any time (finished cells are kept), and save the same report the command line writes.
+ * Runs a stress sweep from the workbench, the same run as {@code targetbench sweep} ({@link SweepRun} with a
+ * {@link SweepConfig} from {@link StressControls}): choose detectors, conditions, envelope, levels, views, seed and
+ * tracking, watch the curves fill in as cells finish, cancel at any time (finished cells are kept), read the ranking
+ * of a complete sweep ({@link StressRanking}) and save the same files the command line writes.
  */
 final class StressView extends JPanel {
     /** How often the charts redraw while a sweep runs, milliseconds. */
     static final int REDRAW_MS = 400;
 
     private final AppContext ctx;
-    private final Map<PerturbKind, JCheckBox> kindBoxes = new EnumMap<>(PerturbKind.class);
-    private final Map<PerturbKind, JComboBox<Perturbation>> paramBoxes = new EnumMap<>(PerturbKind.class);
-    private final JSpinner levels = Ui.named(new JSpinner(new SpinnerNumberModel(5, 2, 32, 1)), "stress.levels", "Perturbation levels per condition");
-    private final JSpinner views = Ui.named(new JSpinner(new SpinnerNumberModel(3, 1, 200, 1)), "stress.views", "Base frames: rendered views of the scene's target, or the first loaded frames");
+    private final StressControls controls;
+    private final StressRanking ranking = new StressRanking();
+    private final JComboBox<StressCharts.Metric> metric = Ui.named(new JComboBox<>(StressCharts.Metric.values()), "stress.metric",
+            "What the charts plot: repeatability, or KLT survival when the sweep tracked (Track frames > 0)");
     private final JProgressBar progress = Ui.named(new JProgressBar(), "stress.progress", null);
     private final JPanel charts = new JPanel(new GridLayout(0, 2, 4, 4));
     private final JLabel verdict = Ui.named(new JLabel(" "), "stress.verdict", null);
@@ -64,50 +61,35 @@ final class StressView extends JPanel {
     private final AtomicBoolean cancelFlag = new AtomicBoolean();
     private SwingWorker<SweepResult, Integer> worker;
     private SweepConfig running;
+    private Map<Perturbation, Double> runningEnvelope = Map.of();
+    private SweepBase lastBase;
     private SweepResult last;
 
     StressView(AppContext ctx) {
         super(new BorderLayout(6, 6));
         this.ctx = ctx;
         setName("view.stress");
-        JPanel choose = new JPanel(new GridLayout(0, 1));
-        for (PerturbKind k : PerturbKind.values()) {
-            JCheckBox box = Ui.named(new JCheckBox(k.cliName(), true), "stress.kind." + k.cliName(), "Sweep this kind of condition");
-            JComboBox<Perturbation> param = Ui.named(new JComboBox<>(Perturbation.ofKind(k).toArray(Perturbation[]::new)),
-                    "stress.param." + k.cliName(), "Which parameter of " + k.cliName() + " to sweep over its default range");
-            kindBoxes.put(k, box);
-            paramBoxes.put(k, param);
-            choose.add(Ui.row(box, param));
-        }
-        run = Ui.button("stress.run", "Run sweep", "Degrade the base frames at every level and score every detector", this::start);
+        controls = new StressControls(this::chooseEnvelope);
+        run = Ui.button("stress.run", "Run sweep", "Degrade the base frames at every level and score every chosen detector", this::start);
         cancel = Ui.button("stress.cancel", "Cancel", "Stop the sweep; finished cells are kept", () -> cancelFlag.set(true));
-        save = Ui.button("stress.save", "Save report...", "Write sweep.csv, ranking.csv and report.html to a folder", this::save);
+        save = Ui.button("stress.save", "Save report...",
+                "Write what the command line's sweep writes: sweep.csv, ranking.csv, report.html (and dot-bias.csv for rendered dot designs)", this::save);
         cancel.setEnabled(false);
         save.setEnabled(false);
-        JPanel left = new JPanel(new BorderLayout());
-        left.add(Ui.heading("Conditions"), BorderLayout.NORTH);
-        left.add(choose, BorderLayout.CENTER);
-        left.add(Ui.row(new JLabel("Perturbation levels"), levels, new JLabel("Views"), views), BorderLayout.SOUTH);
+        metric.addActionListener(e -> drainAndDraw(true));
         JPanel top = new JPanel(new BorderLayout());
-        top.add(left, BorderLayout.WEST);
-        JPanel actions = new JPanel(new GridLayout(0, 1));
-        actions.add(Ui.row(run, cancel, save));
-        actions.add(Ui.row(progress));
-        top.add(actions, BorderLayout.CENTER);
-        top.add(Ui.row(verdict), BorderLayout.SOUTH); // full width, so the verdict and what did not run read in full
+        top.add(controls, BorderLayout.CENTER);
+        JPanel actions = new JPanel(new BorderLayout());
+        actions.add(Ui.row(run, cancel, save, new JLabel("Charts"), metric, progress), BorderLayout.NORTH);
+        actions.add(Ui.row(verdict), BorderLayout.SOUTH); // full width, so the verdict and what did not run read in full
+        top.add(actions, BorderLayout.SOUTH);
         add(top, BorderLayout.NORTH);
-        add(new JScrollPane(charts), BorderLayout.CENTER);
-    }
-
-    private SweepConfig config() {
-        SweepConfig c = new SweepConfig();
-        Session s = ctx.session();
-        c.detectors = s.configs();
-        for (PerturbKind k : PerturbKind.values())
-            if (kindBoxes.get(k).isSelected()) c.parameters.add((Perturbation) paramBoxes.get(k).getSelectedItem());
-        c.levels = (Integer) levels.getValue();
-        c.syntheticFrames = (Integer) views.getValue();
-        return c;
+        JSplitPane split = new JSplitPane(JSplitPane.VERTICAL_SPLIT, new JScrollPane(charts), ranking);
+        split.setName("stress.split");
+        split.setResizeWeight(1.0);
+        split.setOneTouchExpandable(true);
+        ranking.setPreferredSize(new java.awt.Dimension(400, 190));
+        add(split, BorderLayout.CENTER);
     }
 
     void start() {
@@ -117,70 +99,85 @@ final class StressView extends JPanel {
             ctx.status().accept("Load a source first (the demo scene or a frame folder)");
             return;
         }
-        SweepConfig c = config();
+        SweepConfig c = controls.config(s.configs());
         if (c.detectors.isEmpty() || c.parameters.isEmpty()) {
-            ctx.status().accept("Choose at least one condition to sweep");
+            ctx.status().accept(c.detectors.isEmpty() ? "Choose at least one detector" : "Choose at least one condition to sweep");
             return;
         }
-        SweepBase base = base(s, c.syntheticFrames);
+        Map<Perturbation, Double> env = controls.envelope();
+        Optional<Session.Scene> scene = s.scene();
+        List<SweepBase.BaseFrame> frames = new ArrayList<>();
+        if (scene.isEmpty())
+            for (var f : s.frames().subList(0, Math.min(c.syntheticFrames, s.frames().size())))
+                frames.add(new SweepBase.BaseFrame(f.name(), f.image(), f.truth().features(), Optional.empty()));
+        String sourceName = s.sourceName();
         SweepRun sweep = new SweepRun(c);
         running = c;
+        runningEnvelope = env;
+        last = null;
+        lastBase = null;
         rows.clear();
         incoming.clear();
         cancelFlag.set(false);
-        progress.setMaximum(sweep.cellCount(base));
         progress.setValue(0);
         progress.setStringPainted(true);
+        controls.setRunning(true);
         run.setEnabled(false);
         cancel.setEnabled(true);
         save.setEnabled(false);
-        verdict.setText("Running " + sweep.cellCount(base) + " cells...");
+        ranking.clear("The ranking appears when the sweep has run every cell.");
+        verdict.setText("Preparing the base frames...");
         redraw.start();
         worker = new SwingWorker<>() {
             @Override protected SweepResult doInBackground() throws Exception {
+                // the same base the command line builds: rendered views of the scene (seeded), or the first loaded frames
+                SweepBase base = scene.map(sc -> SweepBase.render(sc.design(), sc.camera(), sc.lighting(), sc.standoffM(), c.syntheticFrames, c.seed))
+                        .orElseGet(() -> new SweepBase(sourceName, frames, Optional.empty()));
+                lastBase = base;
+                int cells = sweep.cellCount(base);
+                SwingUtilities.invokeLater(() -> {
+                    progress.setMaximum(cells);
+                    if (worker != null) verdict.setText("Running " + cells + " cells...");
+                });
                 return sweep.run(base, (d, t, w) -> publish(d), cancelFlag::get, incoming::addAll);
             }
             @Override protected void process(List<Integer> chunks) { progress.setValue(chunks.get(chunks.size() - 1)); }
-            @Override protected void done() {
-                worker = null;
-                redraw.stop();
-                run.setEnabled(true);
-                cancel.setEnabled(false);
-                try {
-                    last = get();
-                    drainAndDraw(true);
-                    save.setEnabled(true);
-                    if (last.cancelled() || last.cellsDone() < last.cellsTotal()) {
-                        // no verdict from an incomplete sweep: a detector's score would rest on the conditions that happened to run
-                        List<String> notRun = conditionsNotRun().stream().map(Perturbation::id).toList();
-                        verdict.setText("Stopped: incomplete: " + last.cellsDone() + " of " + last.cellsTotal() + " cells; no ranking from an incomplete sweep."
-                                + (notRun.isEmpty() ? "" : " Not run: " + String.join(", ", notRun) + "."));
-                    } else {
-                        var best = SweepSummary.rankEnvelope(last, Map.of()).get(0);
-                        verdict.setText("Done. Best over the swept range: " + best.detector().label() + " (" + Ui.fmt(best.score(), 3) + ", weakest under "
-                                + (best.weakest() == null ? "-" : best.weakest().id()) + ")");
-                    }
-                    ctx.status().accept(String.format(java.util.Locale.ROOT, "Sweep: %d cells in %.1f s", last.cellsDone(), last.wallSeconds()));
-                } catch (ExecutionException e) {
-                    verdict.setText("Sweep failed: " + e.getCause().getMessage());
-                } catch (InterruptedException e) {
-                    Thread.currentThread().interrupt();
-                }
-            }
+            @Override protected void done() { finished(this); }
         };
         worker.execute();
     }
 
-    private static SweepBase base(Session s, int views) {
-        Optional<Session.Scene> scene = s.scene();
-        if (scene.isPresent()) {
-            Session.Scene sc = scene.get();
-            return SweepBase.render(sc.design(), sc.camera(), sc.lighting(), sc.standoffM(), views, 1);
+    private void finished(SwingWorker<SweepResult, Integer> w) {
+        worker = null;
+        redraw.stop();
+        controls.setRunning(false);
+        run.setEnabled(true);
+        cancel.setEnabled(false);
+        try {
+            last = w.get();
+            drainAndDraw(true);
+            save.setEnabled(true);
+            if (last.cancelled() || last.cellsDone() < last.cellsTotal()) {
+                // no verdict from an incomplete sweep: a detector's score would rest on the conditions that happened to run
+                List<String> notRun = conditionsNotRun().stream().map(Perturbation::id).toList();
+                String incomplete = "incomplete: " + last.cellsDone() + " of " + last.cellsTotal() + " cells";
+                verdict.setText("Stopped: " + incomplete + "; no ranking from an incomplete sweep."
+                        + (notRun.isEmpty() ? "" : " Not run: " + String.join(", ", notRun) + "."));
+                ranking.clear(incomplete + "; no ranking from an incomplete sweep");
+            } else {
+                var best = SweepSummary.rankEnvelope(last, runningEnvelope).get(0);
+                verdict.setText("Done. Best over " + (runningEnvelope.isEmpty() ? "the swept range" : "the operating envelope") + ": "
+                        + best.detector().label() + " (" + Ui.fmt(best.score(), 3) + ", weakest under "
+                        + (best.weakest() == null ? "-" : best.weakest().id()) + ")");
+                ranking.show(last, runningEnvelope, running.trackFrames);
+            }
+            ctx.status().accept(String.format(java.util.Locale.ROOT, "Sweep: %d cells in %.1f s", last.cellsDone(), last.wallSeconds()));
+        } catch (ExecutionException e) {
+            verdict.setText("Sweep failed: " + e.getCause().getMessage());
+            ranking.clear("The sweep failed; no ranking.");
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
         }
-        List<SweepBase.BaseFrame> frames = new ArrayList<>();
-        for (var f : s.frames().subList(0, Math.min(views, s.frames().size())))
-            frames.add(new SweepBase.BaseFrame(f.name(), f.image(), f.truth().features(), Optional.empty()));
-        return new SweepBase(s.sourceName(), frames, Optional.empty());
     }
 
     /** Conditions of the latest sweep with no finished cell. */
@@ -198,7 +195,7 @@ final class StressView extends JPanel {
         return out;
     }
 
-    /** Moves finished cells into the view and redraws one repeatability chart per condition. */
+    /** Moves finished cells into the view and redraws one chart per condition. */
     private void drainAndDraw(boolean force) {
         SweepRow r;
         boolean any = false;
@@ -209,30 +206,33 @@ final class StressView extends JPanel {
         if (!any && !force && charts.getComponentCount() > 0) return;
         charts.removeAll();
         if (running == null) return;
-        for (Perturbation p : running.parameters) {
-            double[] values = running.valuesOf(p);
-            List<Charts.Series> lines = new ArrayList<>();
-            for (var d : running.detectors) {
-                DetectorType t = d.type();
-                double[] y = new double[values.length];
-                for (int l = 0; l < values.length; l++) {
-                    int level = l;
-                    y[l] = SweepRun.meanRepeatability(rows.stream().filter(x -> x.detector() == t && x.parameter() == p && x.level() == level).toList())
-                            .orElse(Double.NaN);
-                }
-                lines.add(new Charts.Series(t.label(), values, y, Palette.of(t)));
-            }
-            long done = rows.stream().filter(x -> x.parameter() == p).map(SweepRow::level).distinct().count();
-            String state = done == 0 ? (worker == null ? " (not run)" : " (waiting)")
-                    : done < values.length && worker == null ? " (incomplete: " + done + " of " + values.length + " levels)" : "";
-            ChartPanel cp = new ChartPanel(ChartLook.themed(ChartLook.markedAndDistinct(Charts.yRange(Charts.lines("Repeatability vs " + p.id() + state,
-                    p.id() + (p.unit().isEmpty() ? "" : " (" + p.unit() + ")"), "repeatability, 0..1", lines, false), -0.02, 1.02))));
-            cp.setName("stress.chart." + p.id());
-            cp.setPreferredSize(new Dimension(440, 280));
-            charts.add(cp);
-        }
+        for (ChartPanel cp : StressCharts.build(running, rows, worker != null, (StressCharts.Metric) metric.getSelectedItem())) charts.add(cp);
         charts.revalidate();
         charts.repaint();
+    }
+
+    /** Charts follow a theme switch (the menu updates every component's look; JFreeChart keeps its own colours). */
+    @Override public void updateUI() {
+        super.updateUI();
+        if (charts != null) SwingUtilities.invokeLater(() -> drainAndDraw(true));
+    }
+
+    private void chooseEnvelope() {
+        JFileChooser fc = new JFileChooser(ctx.prefs().get("lastEnvelopeFolder", System.getProperty("user.dir")));
+        fc.setDialogTitle("Envelope file (harshest value of each parameter)");
+        if (fc.showOpenDialog(ctx.window()) != JFileChooser.APPROVE_OPTION) return;
+        Path file = fc.getSelectedFile().toPath();
+        if (file.getParent() != null) ctx.prefs().put("lastEnvelopeFolder", file.getParent().toString());
+        loadEnvelope(file);
+    }
+
+    /** Reads an envelope file into the conditions; a bad file is one line in the status bar and changes nothing. */
+    void loadEnvelope(Path file) {
+        try {
+            ctx.status().accept("Envelope from " + file.getFileName() + ": " + controls.loadEnvelope(file));
+        } catch (org.targetbench.source.SourceException | IllegalArgumentException e) {
+            ctx.status().accept("Could not use the envelope file: " + e.getMessage());
+        }
     }
 
     private void save() {
@@ -244,11 +244,15 @@ final class StressView extends JPanel {
         saveTo(fc.getSelectedFile().toPath());
     }
 
+    /** Writes the files of the command line's sweep for the latest run, with the envelope it ran with. */
     void saveTo(Path dir) {
+        if (last == null) return;
         ctx.prefs().put("lastReportFolder", dir.toString());
         try (AtomicOutput out = AtomicOutput.open(dir)) {
-            SweepWriter.write(last, Map.of(), out);
-            SweepReport.write(last, Map.of(), out.file("report.html"));
+            SweepWriter.write(last, runningEnvelope, out);
+            SweepReport.write(last, runningEnvelope, out.file("report.html"));
+            var dotBias = lastBase == null ? List.<DotBiasTable.Row>of() : DotBiasTable.forSweep(lastBase, running);
+            if (!dotBias.isEmpty()) DotBiasWriter.write(dotBias, out.file("dot-bias.csv"));
             out.commit();
             ctx.status().accept("Report written to " + dir.resolve("report.html"));
         } catch (Exception e) {
@@ -256,5 +260,10 @@ final class StressView extends JPanel {
         }
     }
 
+    StressControls controls() { return controls; }
 
+    StressRanking ranking() { return ranking; }
+
+    /** The latest finished sweep, if any. */
+    Optional<SweepResult> result() { return Optional.ofNullable(last); }
 }
