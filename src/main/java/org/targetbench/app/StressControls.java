@@ -22,7 +22,6 @@ import java.awt.BorderLayout;
 import java.awt.Component;
 import java.awt.GridBagConstraints;
 import java.awt.GridBagLayout;
-import java.awt.GridLayout;
 import java.awt.Insets;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -56,7 +55,11 @@ final class StressControls extends JPanel {
     private final JSpinner trackFrames = Ui.named(new JSpinner(new SpinnerNumberModel(0, 0, 100, 1)), "stress.trackFrames",
             "Also measure KLT survival in every cell over a slow motion of this many frames, 0..100; 0 is off, 4 to 8 is plenty "
                     + "(command line: --track-frames)");
+    private final JComboBox<String> base = Ui.named(new JComboBox<>(new String[]{RENDERED, LOADED}), "stress.base",
+            "Base frames: rendered views of the loaded design scene, with truth (command line: --target), or the loaded frames "
+                    + "themselves, each its own reference (command line: --frames); without a design scene the loaded frames are used");
     private final JButton envelopeFile;
+    static final String RENDERED = "rendered views", LOADED = "loaded frames";
 
     StressControls(Runnable chooseEnvelope) {
         super(new BorderLayout(12, 0));
@@ -68,8 +71,12 @@ final class StressControls extends JPanel {
         cell(cond, g, 0, Ui.heading("Conditions"));
         cell(cond, g, 1, header("parameter", "Which parameter of the condition is swept (command line: --kinds kind.parameter)"));
         cell(cond, g, 2, header("swept range", "The parameter's default range, from mildest to harshest; the levels are spread evenly over it"));
-        cell(cond, g, 4, header("envelope: harshest value in your cell", "Operating envelope (command line: --envelope FILE): the ranking "
+        g.gridwidth = 2;
+        g.insets = new Insets(1, 14, 1, 2);
+        cell(cond, g, 3, header("envelope: harshest in your cell", "Operating envelope (command line: --envelope FILE): the ranking "
                 + "counts only the levels from no degradation up to this value; unticked, the whole swept range counts"));
+        g.gridwidth = 1;
+        g.insets = new Insets(1, 2, 1, 2);
         for (PerturbKind k : PerturbKind.values()) {
             g.gridy++;
             JCheckBox box = Ui.named(new JCheckBox(k.cliName(), true), "stress.kind." + k.cliName(), "Sweep this kind of condition");
@@ -106,17 +113,25 @@ final class StressControls extends JPanel {
         }
         add(cond, BorderLayout.WEST);
 
-        JPanel dets = new JPanel(new GridLayout(0, 2, 4, 0));
+        JPanel dets = new JPanel(new GridBagLayout());
+        GridBagConstraints d = new GridBagConstraints();
+        d.anchor = GridBagConstraints.WEST;
+        d.gridy = 0;
+        d.gridwidth = 2;
+        cell(dets, d, 0, Ui.heading("Detectors"));
+        d.gridwidth = 1;
         for (DetectorType t : DetectorType.values()) {
             JCheckBox b = Ui.named(new JCheckBox(t.label(), true), "stress.detector." + t.cliName(),
                     "Let " + t.label() + " take part in the sweep (command line: --detectors " + t.cliName() + ")"
                             + (t.designMatched() ? "; built for one kind of designed feature" : ""));
+            b.setBorder(BorderFactory.createEmptyBorder(0, 2, 0, 2));
             detectorBoxes.put(t, b);
-            dets.add(Ui.row(new JLabel(Ui.swatch(t)), b));
+            d.gridy++;
+            cell(dets, d, 0, new JLabel(Ui.swatch(t)));
+            cell(dets, d, 1, b);
         }
         JPanel detPanel = new JPanel(new BorderLayout());
-        detPanel.add(Ui.heading("Detectors"), BorderLayout.NORTH);
-        detPanel.add(dets, BorderLayout.CENTER);
+        detPanel.add(dets, BorderLayout.NORTH);
 
         envelopeFile = Ui.button("stress.envelopeFile", "Envelope file...", "Read the harshest values from an envelope file "
                 + "(the same JSON as the command line's --envelope) into the conditions above", chooseEnvelope);
@@ -126,22 +141,24 @@ final class StressControls extends JPanel {
         s.anchor = GridBagConstraints.WEST;
         s.gridy = 0;
         cell(settings, s, 0, Ui.heading("Sweep"));
-        for (Object[] row : new Object[][]{{"Levels", levels}, {"Views", views}, {"Seed", seed}, {"Track frames", trackFrames}}) {
+        for (Object[] row : new Object[][]{{"Base", base}, {"Levels", levels}, {"Views", views}, {"Seed", seed}, {"Track frames", trackFrames}}) {
             s.gridy++;
             JLabel l = new JLabel((String) row[0]);
-            JSpinner sp = (JSpinner) row[1];
-            l.setToolTipText(sp.getToolTipText());
-            l.setLabelFor(sp);
-            ((JSpinner.DefaultEditor) sp.getEditor()).getTextField().setColumns(5);
+            JComponent c = (JComponent) row[1];
+            l.setToolTipText(c.getToolTipText());
+            l.setLabelFor(c);
+            if (c instanceof JSpinner sp) ((JSpinner.DefaultEditor) sp.getEditor()).getTextField().setColumns(5);
             cell(settings, s, 0, l);
-            cell(settings, s, 1, sp);
+            cell(settings, s, 1, c);
         }
         s.gridy++;
         s.gridwidth = 2;
         cell(settings, s, 0, envelopeFile);
         JPanel right = new JPanel(new BorderLayout(12, 0));
         right.add(detPanel, BorderLayout.WEST);
-        right.add(settings, BorderLayout.CENTER);
+        JPanel settingsTop = new JPanel(new java.awt.FlowLayout(java.awt.FlowLayout.LEFT, 0, 0)); // packed to the left, at the top
+        settingsTop.add(settings);
+        right.add(settingsTop, BorderLayout.CENTER);
         add(right, BorderLayout.CENTER);
         setBorder(BorderFactory.createEmptyBorder(0, 4, 0, 4));
     }
@@ -163,7 +180,8 @@ final class StressControls extends JPanel {
         Perturbation p = (Perturbation) paramBoxes.get(k).getSelectedItem();
         if (p == null) return;
         String unit = p.unit().isEmpty() ? "" : " " + p.unit();
-        ranges.get(k).setText(num(p.from()) + " .. " + num(p.to()) + unit);
+        ranges.get(k).setText(num(p.from()) + " .. " + num(p.to()));
+        ranges.get(k).setToolTipText("Swept from " + num(p.from()) + " to " + num(p.to()) + unit + " in evenly spaced levels");
         units.get(k).setText(p.unit().isEmpty() ? "(no unit)" : p.unit());
         double[] valid = p.validRange();
         double step = Math.abs(p.to() - p.from()) / 10;
@@ -238,6 +256,9 @@ final class StressControls extends JPanel {
         return String.join("; ", parts);
     }
 
+    /** True to render base views of the design scene (when there is one), false to degrade the loaded frames. */
+    boolean renderBase() { return RENDERED.equals(base.getSelectedItem()); }
+
     /** Locks the controls while a sweep runs. */
     void setRunning(boolean running) {
         for (PerturbKind k : PerturbKind.values()) {
@@ -248,7 +269,7 @@ final class StressControls extends JPanel {
             limits.get(k).setEnabled(on && limitBoxes.get(k).isSelected());
         }
         for (JCheckBox b : detectorBoxes.values()) b.setEnabled(!running);
-        for (JSpinner sp : List.of(levels, views, seed, trackFrames)) sp.setEnabled(!running);
+        for (JComponent c : List.of(base, levels, views, seed, trackFrames)) c.setEnabled(!running);
         envelopeFile.setEnabled(!running);
     }
 }

@@ -68,7 +68,7 @@ final class StressRanking extends JPanel {
                 "Mean repeatability (fraction 0..1, no unit) at the swept levels inside the operating envelope, under the "
                         + "detector's weakest condition: a cell is as good as its detector under its weakest condition. "
                         + (env.isEmpty() ? "No envelope was set, so every swept level counts. " : "Envelope: " + envelopeWords(env) + ". ")
-                        + "The envelope limits come from the \"up to\" values (or an envelope file); no pass mark, a ranking only. "
+                        + "The envelope limits come from the \"up to\" values (or an envelope file). Threshold: none, a ranking and not a pass mark. "
                         + "Repeatability: " + Ui.TIP_REPEATABILITY.replace("1.5 px", Ui.fmt(r.epsilon(), 2) + " px"),
                 "The condition under which this detector's mean repeatability is lowest; its score comes from there."));
         for (Perturbation p : r.parameters()) {
@@ -110,6 +110,7 @@ final class StressRanking extends JPanel {
         table.getColumnModel().getColumn(0).setPreferredWidth(40);
         table.getColumnModel().getColumn(1).setPreferredWidth(100);
         table.getColumnModel().getColumn(3).setPreferredWidth(110);
+        table.getColumnModel().getColumn(names.size() - 1).setPreferredWidth(240);
         note.setText("over " + (env.isEmpty() ? "the whole swept range" : "the operating envelope (" + envelopeWords(env) + ")")
                 + "; score = mean repeatability under the weakest condition");
     }

@@ -90,6 +90,8 @@ final class StressView extends JPanel {
         split.setOneTouchExpandable(true);
         ranking.setPreferredSize(new java.awt.Dimension(400, 190));
         add(split, BorderLayout.CENTER);
+        charts.add(new JLabel("<html>Choose detectors and conditions above, then Run sweep: a chart per condition fills in as cells finish,"
+                + " and the ranking appears below when every cell has run.</html>"));
     }
 
     void start() {
@@ -105,7 +107,8 @@ final class StressView extends JPanel {
             return;
         }
         Map<Perturbation, Double> env = controls.envelope();
-        Optional<Session.Scene> scene = s.scene();
+        // the command line's two inputs: a design renders base views (--target), or the frames are degraded (--frames)
+        Optional<Session.Scene> scene = controls.renderBase() ? s.scene() : Optional.empty();
         List<SweepBase.BaseFrame> frames = new ArrayList<>();
         if (scene.isEmpty())
             for (var f : s.frames().subList(0, Math.min(c.syntheticFrames, s.frames().size())))
@@ -137,7 +140,7 @@ final class StressView extends JPanel {
                 int cells = sweep.cellCount(base);
                 SwingUtilities.invokeLater(() -> {
                     progress.setMaximum(cells);
-                    if (worker != null) verdict.setText("Running " + cells + " cells...");
+                    if (worker != null) verdict.setText("Running " + cells + " cells on " + base.description() + "...");
                 });
                 return sweep.run(base, (d, t, w) -> publish(d), cancelFlag::get, incoming::addAll);
             }
