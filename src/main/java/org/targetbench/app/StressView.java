@@ -90,7 +90,7 @@ final class StressView extends JPanel {
         split.setOneTouchExpandable(true);
         ranking.setPreferredSize(new java.awt.Dimension(400, 190));
         add(split, BorderLayout.CENTER);
-        charts.add(new JLabel("<html>Choose detectors and conditions above, then Run sweep: a chart per condition fills in as cells finish,"
+        charts.add(new JLabel("<html><body style='width:380px'>Choose detectors and conditions above, then Run sweep: a chart per condition fills in as cells finish,"
                 + " and the ranking appears below when every cell has run.</html>"));
     }
 
@@ -206,9 +206,8 @@ final class StressView extends JPanel {
             rows.add(r);
             any = true;
         }
-        if (!any && !force && charts.getComponentCount() > 0) return;
+        if (running == null || !any && !force && charts.getComponentCount() > 0) return; // before the first sweep the hint stays
         charts.removeAll();
-        if (running == null) return;
         for (ChartPanel cp : StressCharts.build(running, rows, worker != null, (StressCharts.Metric) metric.getSelectedItem())) charts.add(cp);
         charts.revalidate();
         charts.repaint();
