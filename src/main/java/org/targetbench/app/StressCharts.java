@@ -32,7 +32,7 @@ final class StressCharts {
     /** What the charts plot. */
     enum Metric {
         REPEATABILITY("Repeatability", "repeatability, 0..1"),
-        SURVIVAL("KLT survival", "tracks alive after the slow motion, 0..1");
+        SURVIVAL("KLT survival", "tracks alive, 0..1");
 
         final String title, axis;
 

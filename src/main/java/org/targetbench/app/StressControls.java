@@ -256,6 +256,16 @@ final class StressControls extends JPanel {
         return String.join("; ", parts);
     }
 
+    /** With no design scene (frames from files or a camera) only the loaded frames can be the base. */
+    void sceneAvailable(boolean yes) {
+        if (!yes) base.setSelectedItem(LOADED);
+        else if (!sceneKnown) base.setSelectedItem(RENDERED);
+        sceneKnown = yes;
+        base.setEnabled(yes && levels.isEnabled());
+    }
+
+    private boolean sceneKnown = true;
+
     /** True to render base views of the design scene (when there is one), false to degrade the loaded frames. */
     boolean renderBase() { return RENDERED.equals(base.getSelectedItem()); }
 
@@ -269,7 +279,8 @@ final class StressControls extends JPanel {
             limits.get(k).setEnabled(on && limitBoxes.get(k).isSelected());
         }
         for (JCheckBox b : detectorBoxes.values()) b.setEnabled(!running);
-        for (JComponent c : List.of(base, levels, views, seed, trackFrames)) c.setEnabled(!running);
+        for (JComponent c : List.of(levels, views, seed, trackFrames)) c.setEnabled(!running);
+        base.setEnabled(!running && sceneKnown);
         envelopeFile.setEnabled(!running);
     }
 }

@@ -235,6 +235,7 @@ class StressViewGuiTest {
             XYDataset d = cp.getChart().getXYPlot().getDataset();
             for (int s = 0; s < d.getSeriesCount(); s++) assertFalse(Double.isNaN(d.getYValue(s, 0)), "survival measured");
         }
+        shot("stress-survival");
         window.comboBox("stress.metric").selectItem("Repeatability");
 
         // the files of the command line's sweep, with the same bytes where the run is deterministic (every CSV)
