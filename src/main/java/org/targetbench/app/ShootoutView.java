@@ -2,6 +2,7 @@ package org.targetbench.app;
 
 import org.targetbench.camera.CameraModel;
 import org.targetbench.camera.FeasibilityReport;
+import org.targetbench.detect.DetectorType;
 import org.targetbench.export.AtomicOutput;
 import org.targetbench.export.ShootoutWriter;
 import org.targetbench.perturb.PerturbKind;
@@ -95,7 +96,9 @@ final class ShootoutView extends JPanel {
     private final JSpinner levels = Ui.named(new JSpinner(new SpinnerNumberModel(5, 2, 32, 1)), "shootout.levels", "Levels per condition (--levels)");
     private final JSpinner views = Ui.named(new JSpinner(new SpinnerNumberModel(6, 1, 200, 1)), "shootout.views",
             "Rendered views per design in the sweep (--views)");
-    private final JSpinner seed = Ui.named(new JSpinner(new SpinnerNumberModel(1, 0, Integer.MAX_VALUE, 1)), "shootout.seed",
+    private final JList<DetectorType> detectors = Ui.named(new JList<>(DetectorType.values()), "shootout.detectors",
+            "Detectors to sweep and to choose the servo set with (--detectors); select with Ctrl or Shift");
+    private final JSpinner seed = Ui.named(new JSpinner(new SpinnerNumberModel(1, 0, 999_999, 1)), "shootout.seed",
             "Seed of every random choice (--seed)");
     private final Map<PerturbKind, JCheckBox> kinds = new EnumMap<>(PerturbKind.class);
     private final JLabel envelopeLabel = Ui.named(new JLabel("Envelope: every swept level"), "shootout.envelope", null);
@@ -135,6 +138,17 @@ final class ShootoutView extends JPanel {
         left.add(ls, BorderLayout.CENTER);
         left.add(Ui.row(Ui.button("shootout.refresh", "Refresh list", "Take the designs listed in the Targets view again", this::refresh)),
                 BorderLayout.SOUTH);
+        detectors.setCellRenderer(Ui.detectorRenderer());
+        detectors.setSelectionMode(ListSelectionModel.MULTIPLE_INTERVAL_SELECTION);
+        detectors.setSelectionInterval(0, DetectorType.values().length - 1); // the command line's default: every detector
+        JScrollPane ds = new JScrollPane(detectors);
+        ds.setPreferredSize(new Dimension(150, 150));
+        JPanel dets = new JPanel(new BorderLayout());
+        dets.add(Ui.heading("Detectors"), BorderLayout.NORTH);
+        dets.add(ds, BorderLayout.CENTER);
+        JPanel lists = new JPanel(new BorderLayout(6, 0));
+        lists.add(left, BorderLayout.CENTER);
+        lists.add(dets, BorderLayout.EAST);
 
         JPanel kindRow = Ui.row(new JLabel("Conditions"));
         for (PerturbKind k : PerturbKind.values()) {
@@ -143,10 +157,10 @@ final class ShootoutView extends JPanel {
             kinds.put(k, box);
             kindRow.add(box);
         }
-        kindRow.add(Ui.button("shootout.envelope.open", "Envelope...", "Operating envelope: the harshest value of each parameter the cell will "
-                + "see (JSON, as --envelope)", this::chooseEnvelope));
-        kindRow.add(Ui.button("shootout.envelope.clear", "No envelope", "Rank over every swept level", () -> setEnvelope(Map.of(), "every swept level")));
-        kindRow.add(envelopeLabel);
+        JPanel envelopeRow = Ui.row(Ui.button("shootout.envelope.open", "Envelope...", "Operating envelope: the harshest value of each parameter "
+                + "the cell will see (JSON, as --envelope)", this::chooseEnvelope),
+                Ui.button("shootout.envelope.clear", "No envelope", "Rank over every swept level", () -> setEnvelope(Map.of(), "every swept level")),
+                envelopeLabel);
         run = Ui.button("shootout.run", "Run shoot-out", "Check, sweep and choose a servo set for every selected design", this::start);
         cancel = Ui.button("shootout.cancel", "Cancel", "Stop the shoot-out; nothing is ranked from an incomplete run", () -> cancelFlag.set(true));
         save = Ui.button("shootout.save", "Save...", "Write shootout.csv and shootout.html to a folder, as the command line does", this::save);
@@ -161,29 +175,29 @@ final class ShootoutView extends JPanel {
         settings.add(Ui.row(new JLabel("Stand-off mm"), standoff, new JLabel("Tilt up to deg"), tilt, new JLabel("Levels"), levels,
                 new JLabel("Views"), views, new JLabel("Seed"), seed));
         settings.add(kindRow);
+        settings.add(envelopeRow);
         settings.add(Ui.row(run, cancel, save, progress));
         JPanel top = new JPanel(new BorderLayout(6, 0));
-        top.add(left, BorderLayout.WEST);
+        top.add(lists, BorderLayout.WEST);
         top.add(settings, BorderLayout.CENTER);
         top.add(Ui.row(verdict), BorderLayout.SOUTH);
         add(top, BorderLayout.NORTH);
 
         table.setAutoResizeMode(JTable.AUTO_RESIZE_OFF);
         DetailPane.columnTips(table, TIPS);
-        int[] widths = {50, 150, 130, 110, 90, 60, 70, 80, 80, 80, 160, 300, 300, 240};
+        int[] widths = {50, 150, 175, 110, 90, 60, 70, 80, 80, 80, 160, 300, 300, 240};
         javax.swing.table.TableCellRenderer header = table.getTableHeader().getDefaultRenderer();
         for (int c = 0; c < COLUMNS.length; c++) { // wide enough for the header's full text, so no header is cut off
             int w = header.getTableCellRendererComponent(table, COLUMNS[c], false, false, -1, c).getPreferredSize().width + 16;
             table.getColumnModel().getColumn(c).setPreferredWidth(Math.max(widths[c], w));
         }
-        JPanel bottom = new JPanel(new BorderLayout());
-        detail.setPreferredSize(new Dimension(300, 170));
-        bottom.add(detail, BorderLayout.CENTER);
         JLabel note = new JLabel("<html>" + NOTE + "</html>");
         note.setBorder(BorderFactory.createEmptyBorder(2, 4, 2, 4));
-        bottom.add(note, BorderLayout.SOUTH);
-        add(new JScrollPane(table), BorderLayout.CENTER);
-        add(bottom, BorderLayout.SOUTH);
+        javax.swing.JSplitPane split = new javax.swing.JSplitPane(javax.swing.JSplitPane.VERTICAL_SPLIT, new JScrollPane(table), detail);
+        split.setResizeWeight(0.35); // the detail pane gets most of the height: it holds every figure and reason in full
+        split.setBorder(null);
+        add(split, BorderLayout.CENTER);
+        add(note, BorderLayout.SOUTH);
         ctx.session().addListener(c -> {
             if (c == Session.Change.CAMERA) updateCameraLabel();
         });
@@ -252,7 +266,8 @@ final class ShootoutView extends JPanel {
     /** The sweep settings, as the command line builds them from its options; a one-line message when one is out of range. */
     private SweepConfig config() {
         SweepConfig c = new SweepConfig();
-        c.detectors = ctx.session().configs();
+        List<DetectorType> chosen = detectors.getSelectedValuesList();
+        c.detectors = ctx.session().configs().stream().filter(d -> chosen.contains(d.type())).toList();
         for (PerturbKind k : PerturbKind.values()) if (kinds.get(k).isSelected()) c.parameters.add(Perturbation.primary(k));
         c.levels = (Integer) levels.getValue();
         c.syntheticFrames = (Integer) views.getValue();
@@ -270,6 +285,7 @@ final class ShootoutView extends JPanel {
             for (int j = 0; j < i; j++)
                 if (chosen.get(i).id().equals(chosen.get(j).id())) refusal = "Two selected designs have the id \"" + chosen.get(i).id() + "\"; ids must differ within a shoot-out";
         if (refusal == null && kinds.values().stream().noneMatch(JCheckBox::isSelected)) refusal = "Choose at least one condition to sweep";
+        if (refusal == null && detectors.getSelectedValuesList().isEmpty()) refusal = "Choose at least one detector";
         if (refusal != null) {
             verdict.setText(refusal);
             ctx.status().accept(refusal);
