@@ -48,6 +48,8 @@ import java.util.concurrent.atomic.AtomicBoolean;
  */
 final class CalibrationView extends JPanel {
     static final String[] PARAM_COLUMNS = {"Parameter", "Value", "± (jackknife)"};
+    /** Width of the coverage image shown, pixels. */
+    static final int COVERAGE_W = 270;
     static final String[] VIEW_COLUMNS = {"Frame", "Board", "Corners", "RMS error", "Max error", "Flag"};
 
     private final AppContext ctx;
@@ -103,7 +105,8 @@ final class CalibrationView extends JPanel {
         add(top, BorderLayout.NORTH);
 
         DetailPane.columnTips(paramTable, "Focal lengths fx, fy and principal point cx, cy in pixels; k1, k2, k3 radial and p1, p2 tangential "
-                        + "distortion of the Brown-Conrady model, unit-free (normalised image coordinates). Skew is fixed at zero.",
+                        + "distortion of the Brown-Conrady model, unit-free (normalised image coordinates). Skew is fixed at zero. RMS error: the "
+                        + "reprojection error over every corner of every used view, pixels. Coverage: share of a grid of image cells holding a corner.",
                 "The estimate from every view where the board was found whole (Zhang 2000, BoofCV's implementation).",
                 "Leave-one-view-out jackknife standard error, in the parameter's unit (Efron and Tibshirani 1993, eq. 11.5): how much the "
                         + "figure moves with the choice of views, not a bound on its error. Needs at least 4 views.");
@@ -113,32 +116,45 @@ final class CalibrationView extends JPanel {
                 "Largest reprojection error in this view, pixels.",
                 String.format(Locale.ROOT, "OK, or WARN when the view's RMS error is more than %.1f x the median view's (a rule of thumb, common "
                         + "practice, no source): check it for blur or a bent board.", config.outlierFactor));
+        widths(paramTable, 95, 95, 115);
+        widths(viewTable, 135, 85, 65, 80, 80, 100);
+        paramTable.setAutoResizeMode(JTable.AUTO_RESIZE_LAST_COLUMN);
+        viewTable.setAutoResizeMode(JTable.AUTO_RESIZE_LAST_COLUMN);
         JScrollPane ps = new JScrollPane(paramTable);
-        ps.setPreferredSize(new Dimension(330, 190));
+        ps.setPreferredSize(new Dimension(310, 190));
         JScrollPane vs = new JScrollPane(viewTable);
-        vs.setPreferredSize(new Dimension(480, 190));
+        vs.setPreferredSize(new Dimension(420, 190));
         JScrollPane cs = new JScrollPane(coverage);
-        cs.setBorder(BorderFactory.createTitledBorder("Where the corners fell (coverage)"));
+        cs.setBorder(BorderFactory.createTitledBorder("Where the corners fell"));
+        cs.setPreferredSize(new Dimension(COVERAGE_W + 24, 190));
         JPanel left = new JPanel(new BorderLayout());
         left.add(Ui.heading("Intrinsics and distortion"), BorderLayout.NORTH);
         left.add(ps, BorderLayout.CENTER);
         JPanel mid = new JPanel(new BorderLayout());
         mid.add(Ui.heading("Views"), BorderLayout.NORTH);
         mid.add(vs, BorderLayout.CENTER);
-        JPanel tables = new JPanel(new BorderLayout(6, 0));
-        tables.add(left, BorderLayout.WEST);
-        tables.add(mid, BorderLayout.CENTER);
-        JPanel centre = new JPanel(new GridLayout(1, 2, 6, 0));
-        centre.add(tables);
-        centre.add(cs);
+        JPanel centre = new JPanel(new BorderLayout(6, 0));
+        centre.add(left, BorderLayout.WEST);
+        centre.add(mid, BorderLayout.CENTER);
+        centre.add(cs, BorderLayout.EAST);
         add(centre, BorderLayout.CENTER);
         JPanel bottom = new JPanel(new BorderLayout());
         message.setBorder(BorderFactory.createEmptyBorder(2, 4, 2, 4));
         bottom.add(message, BorderLayout.NORTH);
         DetailPane detail = new DetailPane("calibration.detail", "Select a row to read it in full.", paramTable, viewTable);
-        detail.setPreferredSize(new Dimension(300, 130));
+        detail.setPreferredSize(new Dimension(300, 125));
         bottom.add(detail, BorderLayout.CENTER);
         add(bottom, BorderLayout.SOUTH);
+    }
+
+    /** Column widths, pixels, each at least wide enough for its header's full text. */
+    private static void widths(JTable t, int... w) {
+        javax.swing.table.TableCellRenderer header = t.getTableHeader().getDefaultRenderer();
+        for (int c = 0; c < w.length; c++) {
+            int need = header.getTableCellRendererComponent(t, t.getColumnName(c), false, false, -1, c).getPreferredSize().width + 16;
+            t.getColumnModel().getColumn(c).setPreferredWidth(Math.max(w[c], need));
+            t.getColumnModel().getColumn(c).setMinWidth(need);
+        }
     }
 
     private void chooseFolder() {
@@ -252,13 +268,13 @@ final class CalibrationView extends JPanel {
                     se.map(s -> "± " + Ui.fmt(s[k], dec) + unit).orElse("- (needs 4 or more views)")});
         }
         int corners = c.views().stream().mapToInt(CalibrationResult.View::cornerCount).sum();
-        params.addRow(new Object[]{"RMS reprojection error", Ui.fmt(c.rmsPx(), 3) + " px", "over " + corners + " corners"});
-        params.addRow(new Object[]{"Coverage", Ui.pct(c.coverageFraction()).replace("%", " %"), "of " + c.coverageCols() + " x " + c.coverageRows() + " cells"});
+        params.addRow(new Object[]{"RMS error", Ui.fmt(c.rmsPx(), 3) + " px", corners + " corners"});
+        params.addRow(new Object[]{"Coverage", Ui.pct(c.coverageFraction()).replace("%", " %"), c.coverageCols() + " x " + c.coverageRows() + " cells"});
         showViews(r, c);
         summary.setText(String.format(Locale.ROOT, "Calibrated from %d of %d frames (board %s), %d x %d px: RMS reprojection error %.3f px.",
                 c.usedViews(), c.views().size(), c.board(), m.width(), m.height(), c.rmsPx()));
         BufferedImage img = CoveragePlot.draw(c);
-        int w = 420, h = (int) Math.round(420.0 * img.getHeight() / img.getWidth());
+        int w = COVERAGE_W, h = (int) Math.round((double) COVERAGE_W * img.getHeight() / img.getWidth());
         coverage.setIcon(new ImageIcon(img.getScaledInstance(w, h, Image.SCALE_SMOOTH)));
         List<String> advice = new ArrayList<>();
         if (!notFound.isEmpty()) advice.add(notFound.trim());

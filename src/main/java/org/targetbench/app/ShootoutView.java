@@ -127,12 +127,12 @@ final class ShootoutView extends JPanel {
         designList.setCellRenderer(new javax.swing.DefaultListCellRenderer() {
             @Override public java.awt.Component getListCellRendererComponent(JList<?> l, Object v, int i, boolean s, boolean f) {
                 JLabel c = (JLabel) super.getListCellRendererComponent(l, v, i, s, f);
-                if (v instanceof TargetDesign d) c.setText(d.id() + "  (" + d.name() + ")");
+                if (v instanceof TargetDesign d) c.setText("<html><b>" + d.id() + "</b><br>" + d.name() + "</html>");
                 return c;
             }
         });
         JScrollPane ls = new JScrollPane(designList);
-        ls.setPreferredSize(new Dimension(330, 150));
+        ls.setPreferredSize(new Dimension(330, 165));
         JPanel left = new JPanel(new BorderLayout());
         left.add(Ui.heading("Designs to compare"), BorderLayout.NORTH);
         left.add(ls, BorderLayout.CENTER);
@@ -142,7 +142,7 @@ final class ShootoutView extends JPanel {
         detectors.setSelectionMode(ListSelectionModel.MULTIPLE_INTERVAL_SELECTION);
         detectors.setSelectionInterval(0, DetectorType.values().length - 1); // the command line's default: every detector
         JScrollPane ds = new JScrollPane(detectors);
-        ds.setPreferredSize(new Dimension(150, 150));
+        ds.setPreferredSize(new Dimension(150, 165));
         JPanel dets = new JPanel(new BorderLayout());
         dets.add(Ui.heading("Detectors"), BorderLayout.NORTH);
         dets.add(ds, BorderLayout.CENTER);
@@ -157,6 +157,8 @@ final class ShootoutView extends JPanel {
             kinds.put(k, box);
             kindRow.add(box);
         }
+        kindRow.add(new JLabel("   Seed"));
+        kindRow.add(seed);
         JPanel envelopeRow = Ui.row(Ui.button("shootout.envelope.open", "Envelope...", "Operating envelope: the harshest value of each parameter "
                 + "the cell will see (JSON, as --envelope)", this::chooseEnvelope),
                 Ui.button("shootout.envelope.clear", "No envelope", "Rank over every swept level", () -> setEnvelope(Map.of(), "every swept level")),
@@ -173,7 +175,7 @@ final class ShootoutView extends JPanel {
         settings.add(Ui.row(cameraLabel, Ui.button("shootout.camera.open", "Camera...", "Intrinsics of the camera that will see the targets: "
                 + "camera.json, OpenCV or ROS YAML; becomes the session's camera", this::chooseCamera)));
         settings.add(Ui.row(new JLabel("Stand-off mm"), standoff, new JLabel("Tilt up to deg"), tilt, new JLabel("Levels"), levels,
-                new JLabel("Views"), views, new JLabel("Seed"), seed));
+                new JLabel("Views"), views));
         settings.add(kindRow);
         settings.add(envelopeRow);
         settings.add(Ui.row(run, cancel, save, progress));
