@@ -95,7 +95,7 @@ public final class CalibrateRun {
      * fewer than {@link CalibrationConfig#minViews} + 1 views were used or one of the n solves fails.
      *
      * <p>[1] B. Efron and R. J. Tibshirani, An Introduction to the Bootstrap, Chapman and Hall 1993, section 11.2,
-     * eq. (11.5).
+     * eq. (11.5) (section and equation from memory).
      */
     public Optional<double[]> spread(Result r, BooleanSupplier cancelled) {
         List<Integer> used = new ArrayList<>();
@@ -112,7 +112,13 @@ public final class CalibrateRun {
             var m = c.camera();
             theta[k] = new double[]{m.fx(), m.fy(), m.cx(), m.cy(), m.k1(), m.k2(), m.k3(), m.p1(), m.p2()};
         }
-        double[] se = new double[PARAMETERS.size()];
+        return Optional.of(jackknifeSe(theta));
+    }
+
+    /** Eq. (1) of {@link #spread} for each column of {@code theta}: one row per leave-one-out estimate. */
+    static double[] jackknifeSe(double[][] theta) {
+        int n = theta.length;
+        double[] se = new double[theta[0].length];
         for (int j = 0; j < se.length; j++) {
             double mean = 0;
             for (double[] t : theta) mean += t[j] / n;
@@ -120,6 +126,6 @@ public final class CalibrateRun {
             for (double[] t : theta) ss += (t[j] - mean) * (t[j] - mean);
             se[j] = Math.sqrt((n - 1.0) / n * ss); // eq. (1)
         }
-        return Optional.of(se);
+        return se;
     }
 }
