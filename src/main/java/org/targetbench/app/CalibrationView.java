@@ -140,6 +140,8 @@ final class CalibrationView extends JPanel {
         add(centre, BorderLayout.CENTER);
         JPanel bottom = new JPanel(new BorderLayout());
         message.setBorder(BorderFactory.createEmptyBorder(2, 4, 2, 4));
+        say("Choose a folder of chessboard photos (the whole board in view, tilted and in different parts of the image), its inner corners "
+                + "and square size, then Calibrate.");
         bottom.add(message, BorderLayout.NORTH);
         DetailPane detail = new DetailPane("calibration.detail", "Select a row to read it in full.", paramTable, viewTable);
         detail.setPreferredSize(new Dimension(300, 125));

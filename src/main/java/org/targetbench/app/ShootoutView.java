@@ -1,7 +1,6 @@
 package org.targetbench.app;
 
 import org.targetbench.camera.CameraModel;
-import org.targetbench.camera.FeasibilityReport;
 import org.targetbench.detect.DetectorType;
 import org.targetbench.export.AtomicOutput;
 import org.targetbench.export.ShootoutWriter;
@@ -12,7 +11,6 @@ import org.targetbench.pipeline.ShootoutRun;
 import org.targetbench.pipeline.SweepConfig;
 import org.targetbench.pipeline.SweepSummary;
 import org.targetbench.report.ShootoutReport;
-import org.targetbench.report.ShootoutText;
 import org.targetbench.source.CameraFiles;
 import org.targetbench.source.EnvelopeFile;
 import org.targetbench.target.TargetDesign;
@@ -55,34 +53,6 @@ import java.util.function.Supplier;
  * command line writes. The run is {@link ShootoutRun}, the same as the command line's.
  */
 final class ShootoutView extends JPanel {
-    /** What the figures are, shown under the table (never a guarantee). */
-    static final String NOTE = "Figures describe the rendered bench conditions, not a guarantee. Ranked: feasibility failures last, then designs with "
-            + "at least 4 robust points, then the lower best cond(L*), then more robust points, then more coverage.";
-    static final String[] COLUMNS = {"Rank", "Design", "Check", "Best detector", "Envelope score (0..1)", "Points", "Robust points",
-            "cond(L*)", "σmin of L*", "Coverage", "Servo choice", "Design-matched detector", "Best generic detector", "Dot-centre bias"};
-    static final String[] TIPS = {
-            "Place in the ranking. Feasibility failures go last, then designs with at least 4 robust points, then the lower best cond(L*), "
-                    + "then more robust points, then more coverage (the command line's order).",
-            "The design's id (its target.json).",
-            "The feasibility check at this stand-off and tilt: PASS, WARN or FAIL, coloured and in words, with the count of warnings and "
-                    + "failures. Each line's threshold and its source are in the Targets view's check.",
-            "The detector with the best envelope score on this design.",
-            "Mean repeatability under the weakest swept condition inside the envelope (every swept level without an envelope file), 0..1: "
-                    + "share of points found again within 1.5 px after mapping by the known homography (Schmid et al. 2000). No threshold: "
-                    + "designs are compared.",
-            "Points the best detector finds on the square-on view, count.",
-            String.format(Locale.ROOT, "Points of the square-on view found again within 1.5 px in at least %.0f %% of the envelope's conditions, "
-                    + "count. A servo set needs 4 (the ranking puts designs with fewer behind).", 100 * ShootoutRun.ROBUST_SHARE),
-            "Condition number of the interaction matrix of the best 4-point servo set at the stand-off (translational columns scaled by "
-                    + "the depth), unit-free; lower is better conditioned. No fixed threshold: designs are compared.",
-            "Smallest singular value of that set's interaction matrix (same scaling), unit-free; larger is better.",
-            "Share of a 4 x 4 grid of image cells holding at least one of the best detector's points, percent.",
-            "Which detector gave the best-conditioned 4-point set, or why no acceptable set exists.",
-            "The detector built for the design's features, with its envelope score (0..1), points, robust points and localisation RMS "
-                    + "(pixels, against the projected features over the views).",
-            "The best generic detector by envelope score, with the same figures.",
-            "Worst perspective bias of the imaged dot centres over the views, pixels (Heikkila 2000); '-' for designs without dots."};
-
     private final AppContext ctx;
     private final Supplier<List<TargetDesign>> listed;
     private final DefaultListModel<TargetDesign> designs = new DefaultListModel<>();
@@ -104,7 +74,7 @@ final class ShootoutView extends JPanel {
     private final JLabel envelopeLabel = Ui.named(new JLabel("Envelope: every swept level"), "shootout.envelope", null);
     private final JProgressBar progress = Ui.named(new JProgressBar(), "shootout.progress", null);
     private final JLabel verdict = Ui.named(new JLabel(" "), "shootout.verdict", null);
-    private final DefaultTableModel ranking = new DefaultTableModel(COLUMNS, 0) {
+    private final DefaultTableModel ranking = new DefaultTableModel(ShootoutRows.COLUMNS, 0) {
         @Override public boolean isCellEditable(int r, int c) { return false; }
     };
     private final JTable table = Ui.named(new JTable(ranking), "shootout.ranking", null);
@@ -186,14 +156,14 @@ final class ShootoutView extends JPanel {
         add(top, BorderLayout.NORTH);
 
         table.setAutoResizeMode(JTable.AUTO_RESIZE_OFF);
-        DetailPane.columnTips(table, TIPS);
+        DetailPane.columnTips(table, ShootoutRows.TIPS);
         int[] widths = {50, 150, 175, 110, 90, 60, 70, 80, 80, 80, 160, 300, 300, 240};
         javax.swing.table.TableCellRenderer header = table.getTableHeader().getDefaultRenderer();
-        for (int c = 0; c < COLUMNS.length; c++) { // wide enough for the header's full text, so no header is cut off
-            int w = header.getTableCellRendererComponent(table, COLUMNS[c], false, false, -1, c).getPreferredSize().width + 16;
+        for (int c = 0; c < ShootoutRows.COLUMNS.length; c++) { // wide enough for the header's full text, so no header is cut off
+            int w = header.getTableCellRendererComponent(table, ShootoutRows.COLUMNS[c], false, false, -1, c).getPreferredSize().width + 16;
             table.getColumnModel().getColumn(c).setPreferredWidth(Math.max(widths[c], w));
         }
-        JLabel note = new JLabel("<html>" + NOTE + "</html>");
+        JLabel note = new JLabel("<html>" + ShootoutRows.NOTE + "</html>");
         note.setBorder(BorderFactory.createEmptyBorder(2, 4, 2, 4));
         javax.swing.JSplitPane split = new javax.swing.JSplitPane(javax.swing.JSplitPane.VERTICAL_SPLIT, new JScrollPane(table), detail);
         split.setResizeWeight(0.35); // the detail pane gets most of the height: it holds every figure and reason in full
@@ -344,7 +314,7 @@ final class ShootoutView extends JPanel {
                     save.setEnabled(true);
                     ShootoutRun.Entry top = got.get(0);
                     verdict.setText("Done. First: " + top.design().id() + " (check " + top.feasibility().overall() + ", " + top.robustPoints()
-                            + " robust points, cond(L*) " + cond(top) + "). Not a guarantee: rehearse the set before the cell relies on it.");
+                            + " robust points, cond(L*) " + ShootoutRows.cond(top) + "). Not a guarantee: rehearse the set before the cell relies on it.");
                     ctx.status().accept(String.format(Locale.ROOT, "Shoot-out of %d designs in %.1f s", got.size(), (System.nanoTime() - t0) / 1e9));
                 } catch (ExecutionException e) {
                     progress.setString("failed");
@@ -357,20 +327,9 @@ final class ShootoutView extends JPanel {
         worker.execute();
     }
 
-    private static String cond(ShootoutRun.Entry e) {
-        return Double.isNaN(e.bestCondition()) ? "no acceptable set" : Ui.fmt(e.bestCondition(), 2);
-    }
-
     private void show(List<ShootoutRun.Entry> entries) {
         ranking.setRowCount(0);
-        for (ShootoutRun.Entry e : entries) {
-            FeasibilityReport f = e.feasibility();
-            ranking.addRow(new Object[]{e.rank(), e.design().id(),
-                    f.overall() + " (" + f.count(FeasibilityReport.Status.WARN) + " warn, " + f.count(FeasibilityReport.Status.FAIL) + " fail)",
-                    e.bestDetector().label(), Ui.fmt(e.envelopeScore(), 3), e.points(), e.robustPoints(), cond(e),
-                    Double.isNaN(e.bestSigmaMin()) ? "-" : Ui.fmt(e.bestSigmaMin(), 4), Ui.pct(e.coverage()).replace("%", " %"), e.servoNote(),
-                    ShootoutText.matched(e), ShootoutText.generic(e), ShootoutText.dotBias(e)});
-        }
+        for (ShootoutRun.Entry e : entries) ranking.addRow(ShootoutRows.row(e));
         if (!entries.isEmpty()) table.setRowSelectionInterval(0, 0);
     }
 
