@@ -107,6 +107,19 @@ final class DesignsView extends JPanel {
         add(bottom, BorderLayout.SOUTH);
         updateCameraLabel();
         loadFolder();
+        ctx.session().addListener(c -> { // a camera chosen for the session (e.g. "Use this camera" after a calibration) is checked against here too
+            if (c != Session.Change.CAMERA || ctx.session().camera() == null) return;
+            camera = ctx.session().camera();
+            updateCameraLabel();
+            check();
+        });
+    }
+
+    /** The designs listed, in order (the shoot-out compares among them). */
+    List<TargetDesign> designs() {
+        List<TargetDesign> out = new ArrayList<>();
+        for (int i = 0; i < designs.size(); i++) out.add(designs.get(i));
+        return out;
     }
 
     private void loadFolder() {

@@ -24,7 +24,7 @@ import java.util.concurrent.CopyOnWriteArrayList;
  */
 public final class Session {
     /** What changed. */
-    public enum Change { SOURCE, FRAME, DETECTORS, SHOWN, DEGRADE, DETECTIONS, SERVO }
+    public enum Change { SOURCE, FRAME, DETECTORS, SHOWN, DEGRADE, DETECTIONS, SERVO, CAMERA }
 
     public interface Listener {
         void changed(Change change);
@@ -279,5 +279,21 @@ public final class Session {
     void setDetections(FrameDetections d) {
         detections = d;
         fire(Change.DETECTIONS);
+    }
+
+    private org.targetbench.camera.CameraModel camera;
+    private String cameraName = "";
+
+    /** The camera the views plan with (calibrated in the workbench or read from a file), or null for the demo's. */
+    public org.targetbench.camera.CameraModel camera() { return camera; }
+
+    /** Where {@link #camera()} came from, for labels and reports; empty when there is none. */
+    public String cameraName() { return cameraName; }
+
+    /** Makes {@code c} the camera the views plan with; {@code name} says where it came from. */
+    public void setCamera(org.targetbench.camera.CameraModel c, String name) {
+        camera = c;
+        cameraName = c == null ? "" : name;
+        fire(Change.CAMERA);
     }
 }

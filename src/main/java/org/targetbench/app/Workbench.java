@@ -70,6 +70,8 @@ public final class Workbench extends JFrame {
         views.put("Rehearse", rehearseView = new RehearseView(ctx));
         views.put("Export", exportView = new ExportView(ctx));
         views.put("Targets", designsView = new DesignsView(ctx));
+        views.put("Shoot-out", shootoutView = new ShootoutView(ctx, designsView::designs));
+        views.put("Calibration", calibrationView = new CalibrationView(ctx));
         sessions = new SessionMenu(ctx, live, this::dispose);
         for (var e : views.entrySet()) center.add(e.getValue(), e.getKey());
 
@@ -191,6 +193,13 @@ public final class Workbench extends JFrame {
     StressView stressView() { return stressView; }
 
     DesignsView designsView() { return designsView; }
+
+    private ShootoutView shootoutView;
+    private CalibrationView calibrationView;
+
+    ShootoutView shootoutView() { return shootoutView; }
+
+    CalibrationView calibrationView() { return calibrationView; }
 
     RehearseView rehearseView() { return rehearseView; }
 

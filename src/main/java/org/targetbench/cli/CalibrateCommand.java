@@ -6,9 +6,9 @@ import org.targetbench.camera.CalibrationResult;
 import org.targetbench.camera.CameraModel;
 import org.targetbench.export.AtomicOutput;
 import org.targetbench.export.CalibrationWriter;
+import org.targetbench.pipeline.CalibrateRun;
 import org.targetbench.report.CoveragePlot;
 import org.targetbench.source.ImageFolderSource;
-import org.targetbench.source.SourceFrame;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
@@ -19,7 +19,6 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
-import java.util.Optional;
 import java.util.concurrent.Callable;
 
 @Command(name = "calibrate", mixinStandardHelpOptions = true, sortOptions = false,
@@ -65,31 +64,16 @@ final class CalibrateCommand implements Callable<Integer> {
         Path dir = out.toAbsolutePath().getParent();
 
         CalibrationConfig config = new CalibrationConfig();
-        Calibration cal = new Calibration(b, config);
-        List<String> names = new ArrayList<>();
-        List<Optional<double[]>> found = new ArrayList<>();
-        int width, height;
-        ConsoleProgress progress = new ConsoleProgress("detecting");
+        CalibrateRun.Result run;
         try (ImageFolderSource src = ImageFolderSource.open(frames, null)) {
-            width = src.width();
-            height = src.height();
-            Optional<SourceFrame> f;
-            while ((f = src.next()).isPresent()) {
-                names.add(f.get().name());
-                found.add(cal.detect(f.get().image()));
-                progress.update(names.size(), src.frameCount(), f.get().name());
-            }
+            run = new CalibrateRun(b, config).run(src, new ConsoleProgress("detecting"), () -> false);
         }
-        long hits = found.stream().filter(Optional::isPresent).count();
-        if (hits == 0)
-            throw new UserError("chessboard of " + b.innerCols() + "x" + b.innerRows() + " inner corners not found in any of the " + names.size()
+        if (run.found() == 0)
+            throw new UserError("chessboard of " + b.innerCols() + "x" + b.innerRows() + " inner corners not found in any of the " + run.names().size()
                     + " frames in " + frames + "; check --inner-corners (inner corners, not squares), focus, glare and that the whole board is in view");
-        Calibration.Outcome outcome = cal.solve(width, height, names, found);
-        if (outcome instanceof Calibration.Failure fail) {
-            List<String> used = new ArrayList<>();
-            for (int i = 0; i < names.size(); i++) if (found.get(i).isPresent()) used.add(names.get(i));
-            throw new UserError(org.targetbench.pipeline.Reasons.calibrationFailure(fail) + " (board found in: " + String.join(", ", used) + ")");
-        }
+        Calibration.Outcome outcome = run.outcome().orElseThrow();
+        if (outcome instanceof Calibration.Failure fail)
+            throw new UserError(org.targetbench.pipeline.Reasons.calibrationFailure(fail) + " (board found in: " + String.join(", ", run.foundIn()) + ")");
         CalibrationResult r = (CalibrationResult) outcome;
         List<String> written;
         try (AtomicOutput output = AtomicOutput.openBeside(dir)) {
