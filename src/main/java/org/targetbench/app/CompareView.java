@@ -125,15 +125,15 @@ final class CompareView extends JPanel implements Session.Listener {
                 "Share of true features with a point within 3 px, percent; needs ground truth.",
                 "Coverage, percent: " + Ui.TIP_COVERAGE);
         table.getTableHeader().setReorderingAllowed(false);
-        int[] widths = {44, 96, 92, 56, 56, 66, 64, 52, 68};
+        int[] widths = {44, 100, 100, 60, 60, 84, 72, 60, 76};
         for (int i = 0; i < widths.length; i++) table.getColumnModel().getColumn(i).setPreferredWidth(widths[i]);
         table.setDefaultRenderer(Object.class, DetailPane.renderer(table.getDefaultRenderer(Object.class)));
         JScrollPane sp = new JScrollPane(table);
-        sp.setPreferredSize(new Dimension(600, 150));
-        perFrame.setPreferredSize(new Dimension(480, 190));
+        sp.setPreferredSize(new Dimension(680, 170));
+        perFrame.setPreferredSize(new Dimension(440, 190));
         perFrame.add(new JLabel("  Score all frames to plot repeatability per frame."), BorderLayout.CENTER);
         javax.swing.JSplitPane split = new javax.swing.JSplitPane(javax.swing.JSplitPane.HORIZONTAL_SPLIT, sp, perFrame);
-        split.setResizeWeight(0.55);
+        split.setResizeWeight(0.6);
         bottom.add(split, BorderLayout.CENTER);
         JLabel note = Ui.named(new JLabel(RANKING_NOTE), "compare.note", RANKING_NOTE);
         bottom.add(note, BorderLayout.SOUTH);

@@ -123,6 +123,8 @@ final class TrackPlots {
         p.setNoDataMessagePaint(fg == null ? Color.DARK_GRAY : fg);
         c.removeLegend();
         c.addSubtitle(new TextTitle(why));
+        p.getDomainAxis().setVisible(false); // no axes around nothing: the message is the content
+        p.getRangeAxis().setVisible(false);
     }
 
     private static ChartPanel panel(JFreeChart c, String name) {

@@ -80,6 +80,7 @@ final class TrackView extends JPanel {
         save = Ui.button("track.save", "Save...", "Write tracks.csv, survival.csv, drift.csv (with truth) and summary.json, as the command line's track does", this::save);
         stop.setEnabled(false);
         save.setEnabled(false);
+        ((JSpinner.DefaultEditor) frameCount.getEditor()).getTextField().setColumns(5);
         add(Ui.row(new JLabel("Source"), what, new JLabel("Seeded by"), seeding, new JLabel("Frames (0: all)"), frameCount, run, stop, save), BorderLayout.NORTH);
 
         scrub.setEnabled(false);
