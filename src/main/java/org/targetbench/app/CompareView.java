@@ -130,7 +130,7 @@ final class CompareView extends JPanel implements Session.Listener {
         table.setDefaultRenderer(Object.class, DetailPane.renderer(table.getDefaultRenderer(Object.class)));
         JScrollPane sp = new JScrollPane(table);
         sp.setPreferredSize(new Dimension(680, 170));
-        perFrame.setPreferredSize(new Dimension(440, 190));
+        perFrame.setPreferredSize(new Dimension(440, 250));
         perFrame.add(new JLabel("  Score all frames to plot repeatability per frame."), BorderLayout.CENTER);
         javax.swing.JSplitPane split = new javax.swing.JSplitPane(javax.swing.JSplitPane.HORIZONTAL_SPLIT, sp, perFrame);
         split.setResizeWeight(0.6);
@@ -213,8 +213,13 @@ final class CompareView extends JPanel implements Session.Listener {
             lines.add(new org.targetbench.report.Charts.Series(t.label(), x, y, org.targetbench.report.Palette.of(t)));
         }
         var chart = ChartLook.themed(ChartLook.markedAndDistinct(org.targetbench.report.Charts.yRange(org.targetbench.report.Charts.lines(
-                "Repeatability per frame (against the reference)", "frame", "repeatability, 0..1", lines, false), -0.02, 1.02)));
+                "Repeatability per frame (against the reference)", "frame (number)", "repeatability (0..1)", lines, false), -0.02, 1.02)));
+        ((org.jfree.chart.axis.NumberAxis) chart.getXYPlot().getDomainAxis()).setStandardTickUnits(org.jfree.chart.axis.NumberAxis.createIntegerTickUnits());
         org.jfree.chart.ChartPanel cp = new org.jfree.chart.ChartPanel(chart);
+        cp.setMinimumDrawWidth(200); // drawn at its size, never scaled down (which shrinks and clips its text)
+        cp.setMinimumDrawHeight(120);
+        cp.setMaximumDrawWidth(4000);
+        cp.setMaximumDrawHeight(3000);
         cp.setName("compare.perframe");
         perFrame.removeAll();
         perFrame.add(cp, BorderLayout.CENTER);

@@ -64,7 +64,7 @@ final class TrackFigures {
         row("frames tracked", s.frames() + " frames", "Frames the tracker processed, " + s.firstFrame() + " to " + s.lastFrame() + " (frame indices).");
         row("initial tracks", s.initialTracks() + " tracks", "Points " + r.seeding().label() + " picked on the first frame, at most "
                 + k.maxTracks + " (the command line's --max-tracks default) and " + Ui.fmt(k.minSpacing, 0) + " px apart.");
-        row("survival at frame " + s.survivalAtFrame(), Double.isNaN(s.survivalAtN()) ? "not reached: the run ended at frame " + s.lastFrame() : pct(s.survivalAtN()), "Share of the first frame's tracks still alive after frame "
+        row("survival at frame " + s.survivalAtFrame(), Double.isNaN(s.survivalAtN()) ? "not reached (ended at " + s.lastFrame() + ")" : pct(s.survivalAtN()), "Share of the first frame's tracks still alive after frame "
                 + s.survivalAtFrame() + ", percent (the command line's --survival-at default). A track dies on a forward-backward error above "
                 + Ui.fmt(k.fbThreshold, 2) + " px (--fb-threshold default; Kalal et al. 2010), leaving the image, a residual above "
                 + Ui.fmt(k.maxResidual, 0) + " grey levels, divergence, or too little texture.");

@@ -45,6 +45,7 @@ final class TrackPlots {
         }
         JFreeChart c = Charts.yRange(Charts.lines("Survival of the first frame's tracks", "frame (index)", "alive fraction, 0..1",
                 List.of(new Charts.Series("alive", x, y, Palette.of(TrackOutcome.TRACKED).darker())), false), 0, 1.05);
+        integerFrames(c);
         return panel(c, "track.chart.survival");
     }
 
@@ -77,6 +78,7 @@ final class TrackPlots {
                     done.score().framesWithTruth(), Ui.fmt(done.score().drift().p50(), 3), Ui.fmt(done.score().drift().p95(), 3))
                     : "the run is going"));
         }
+        integerFrames(c);
         return panel(c, "track.chart.drift");
     }
 
@@ -113,6 +115,10 @@ final class TrackPlots {
     static String message(ChartPanel p) {
         var plot = p.getChart().getXYPlot();
         return plot.getDataset() != null && plot.getDataset().getSeriesCount() > 0 ? "" : plot.getNoDataMessage();
+    }
+
+    private static void integerFrames(JFreeChart c) {
+        if (c.getXYPlot().getDomainAxis() instanceof org.jfree.chart.axis.NumberAxis a) a.setStandardTickUnits(org.jfree.chart.axis.NumberAxis.createIntegerTickUnits());
     }
 
     private static void empty(JFreeChart c, String message, String why) {

@@ -116,7 +116,7 @@ class TrackCompareGuiTest {
         for (int r = 0; r < GuiActionRunner.execute(figures::getRowCount); r++) {
             int row = r;
             String value = GuiActionRunner.execute(() -> figures.getValueAt(row, 1).toString());
-            assertTrue(value.matches(".*(px|%|frames|tracks|ms per frame|by the user|source ended|frame limit was reached|longer than the run|no truth|no still stretch|not reached: the run ended at frame \\d+)"), value);
+            assertTrue(value.matches(".*(px|%|frames|tracks|ms per frame|by the user|source ended|frame limit was reached|longer than the run|no truth|no still stretch|not reached \\(ended at \\d+\\))"), value);
         }
         GuiActionRunner.execute(() -> v.plots().setSelectedIndex(1));
         gui.shot("track-scrubbed-drift");
