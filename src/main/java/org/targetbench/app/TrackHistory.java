@@ -46,7 +46,7 @@ final class TrackHistory implements TrackSink {
         GrayF32 img = pending;
         BufferedImage kept = null;
         if (img != null && imageBytes + (long) img.width * img.height <= IMAGE_BUDGET_BYTES) {
-            kept = ImageFiles.toBuffered(img);
+            kept = grey8(img);
             imageBytes += (long) img.width * img.height;
         }
         rows.add(r);
@@ -55,6 +55,18 @@ final class TrackHistory implements TrackSink {
     }
 
     synchronized void finish(TrackResult r) { result = r; }
+
+    /** The frame as 8-bit grey, rounded and clipped to 0..255 as {@link ImageFiles#toBuffered} does, written straight into the raster's bytes. */
+    static BufferedImage grey8(GrayF32 img) {
+        BufferedImage bi = new BufferedImage(img.width, img.height, BufferedImage.TYPE_BYTE_GRAY);
+        byte[] px = ((java.awt.image.DataBufferByte) bi.getRaster().getDataBuffer()).getData();
+        for (int y = 0; y < img.height; y++) {
+            int row = img.startIndex + y * img.stride, out = y * img.width;
+            for (int x = 0; x < img.width; x++)
+                px[out + x] = (byte) (int) Math.max(0, Math.min(255, Math.rint(img.data[row + x])));
+        }
+        return bi;
+    }
 
     /** The finished run, or null while it runs. */
     synchronized TrackResult result() { return result; }

@@ -46,6 +46,8 @@ final class TrackView extends JPanel {
     /** Frames of path each trail keeps. */
     static final int TRAIL_FRAMES = 40;
     static final String LOADED = "the loaded frames";
+    /** Least time between two redraws of the survival chart while a run goes, nanoseconds. */
+    private static final long CHART_EVERY_NS = 300_000_000L;
 
     private final AppContext ctx;
     private final JComboBox<String> what;
@@ -160,9 +162,14 @@ final class TrackView extends JPanel {
                 scrub.setMaximum(last);
                 scrub.setValue(last);
                 showFrame(last);
-                survivalChart = TrackPlots.survival(h.allFigures());
-                replaceTab(0, survivalChart);
+                long now = System.nanoTime();
+                if (now - chartDrawn > CHART_EVERY_NS) { // the chart is rebuilt a few times a second, not per frame
+                    chartDrawn = now;
+                    survivalChart = TrackPlots.survival(h.allFigures());
+                    replaceTab(0, survivalChart);
+                }
             }
+            private long chartDrawn;
             @Override protected void done() {
                 worker = null;
                 run.setEnabled(true);
