@@ -227,6 +227,19 @@ final class CompareView extends JPanel implements Session.Listener {
         perFrame.repaint();
     }
 
+    /** A theme switch redraws the chart in the new theme's colours (it is themed when built). */
+    @Override
+    public void updateUI() {
+        super.updateUI();
+        if (last != null) javax.swing.SwingUtilities.invokeLater(() -> plotPerFrame(last));
+    }
+
+    /** The repeatability-per-frame chart, or null before a comparison. */
+    org.jfree.chart.ChartPanel perFrameChart() {
+        for (java.awt.Component c : perFrame.getComponents()) if (c instanceof org.jfree.chart.ChartPanel cp) return cp;
+        return null;
+    }
+
     /** Series in the repeatability-per-frame chart (0 before a comparison). */
     int perFrameSeries() {
         for (java.awt.Component c : perFrame.getComponents())

@@ -200,6 +200,13 @@ final class TrackView extends JPanel {
                 s.frames(), Ui.fmt(100 * s.survivalAtEnd(), 1), r.stop().label()));
     }
 
+    /** A theme switch redraws the charts in the new theme's colours (they are themed when built). */
+    @Override
+    public void updateUI() {
+        super.updateUI();
+        if (plots != null && worker == null) javax.swing.SwingUtilities.invokeLater(() -> drawCharts(history == null ? null : history.result()));
+    }
+
     private void drawCharts(TrackResult r) {
         List<org.targetbench.score.FrameTracking> f = history == null ? List.of() : history.allFigures();
         survivalChart = TrackPlots.survival(f);
@@ -208,6 +215,8 @@ final class TrackView extends JPanel {
         replaceTab(0, survivalChart);
         replaceTab(1, driftChart);
         replaceTab(2, jitterChart);
+        if (shown != null && history != null && shown.index() < history.size())
+            for (ChartPanel p : new ChartPanel[]{survivalChart, driftChart}) TrackPlots.markFrame(p, history.rows(shown.index()).frame());
     }
 
     private void replaceTab(int i, ChartPanel p) {

@@ -222,6 +222,29 @@ class TrackCompareGuiTest {
         assertEquals(summary(cli, "mean_ms_per_frame_in_run"), summary(app, "mean_ms_per_frame_in_run"));
     }
 
+    @Test
+    @Order(5)
+    void theChartsFollowATheme() throws Exception {
+        javax.swing.JMenuItem theme = gui.robot.finder().findByName("menu.theme", javax.swing.JMenuItem.class, false);
+        GuiActionRunner.execute(() -> { theme.doClick(); return null; });
+        try {
+            java.awt.Color bg = GuiActionRunner.execute(() -> javax.swing.UIManager.getColor("Panel.background"));
+            assertTrue(bg.getRed() + bg.getGreen() + bg.getBlue() < 3 * 128, "dark now: " + bg);
+            gui.show("Track");
+            for (int tab = 0; tab < 3; tab++) {
+                int t = tab;
+                gui.waitFor("chart " + tab + " in the dark theme", () -> bg.equals(trackView().chart(t).getChart().getBackgroundPaint()));
+            }
+            GuiActionRunner.execute(() -> trackView().plots().setSelectedIndex(0));
+            gui.shot("track-dark");
+            gui.show("Compare");
+            gui.waitFor("per-frame chart in the dark theme", () -> bg.equals(compareView().perFrameChart().getChart().getBackgroundPaint()));
+            gui.shot("compare-dark");
+        } finally {
+            GuiActionRunner.execute(() -> { theme.doClick(); return null; });
+        }
+    }
+
     /** Runs the command line in this process. */
     private static int cli(String... args) {
         var cl = Main.commandLine();
