@@ -161,13 +161,13 @@ final class TrackView extends JPanel {
                 int last = chunks.get(chunks.size() - 1);
                 scrub.setMaximum(last);
                 scrub.setValue(last);
-                showFrame(last);
                 long now = System.nanoTime();
                 if (now - chartDrawn > CHART_EVERY_NS) { // the chart is rebuilt a few times a second, not per frame
                     chartDrawn = now;
                     survivalChart = TrackPlots.survival(h.allFigures());
                     replaceTab(0, survivalChart);
                 }
+                showFrame(last);
             }
             private long chartDrawn;
             @Override protected void done() {
