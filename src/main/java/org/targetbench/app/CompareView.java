@@ -38,12 +38,22 @@ final class CompareView extends JPanel implements Session.Listener {
     private final JSpinner panes = Ui.named(new JSpinner(new SpinnerNumberModel(2, 2, 4, 1)), "compare.panes", "How many detectors side by side");
     private final JPanel grid = new JPanel(new GridLayout(1, 2, 4, 4));
     private final List<Pane> paneList = new ArrayList<>();
-    private final DefaultTableModel ranking = new DefaultTableModel(new Object[]{"Rank", "Detector", "Repeatability", "Worst", "Frames", "Points/frame", "Loc. RMS", "Found", "Coverage"}, 0) {
+    private final DefaultTableModel ranking = new DefaultTableModel(HEADERS, 0) {
         @Override public boolean isCellEditable(int r, int c) { return false; }
     };
+    /** Ranking headers, each with its unit on a second line (two lines on every column, so the header is two lines tall). */
+    static final String[] HEADERS = {head("Rank", "#"), head("Detector", ""), head("Repeatability", "0..1"), head("Worst", "0..1"),
+            head("Frames", "n"), head("Points", "per frame"), head("Loc. RMS", "px"), head("Found", "%"), head("Coverage", "%")};
+
+    private static String head(String name, String unit) {
+        return "<html><center>" + name + "<br>" + (unit.isEmpty() ? "&nbsp;" : unit) + "</center></html>";
+    }
+
     private final JProgressBar progress = Ui.named(new JProgressBar(), "compare.progress", null);
     private final JButton runAll;
     private SwingWorker<CompareResult, Integer> worker;
+    private final JButton save;
+    private CompareResult last;
     private final JLabel frameLabel = Ui.named(new JLabel(" "), "compare.frame", null);
     private final JPanel perFrame = new JPanel(new BorderLayout());
     /** Why this ranking may differ from the Stress view's. */
@@ -78,7 +88,8 @@ final class CompareView extends JPanel implements Session.Listener {
             List<org.targetbench.detect.Detection> pts = d.points().get(t);
             canvas.setOverlay(pts == null ? Map.of() : Map.of(t, pts), List.of());
             var f = d.figures().get(t);
-            figures.setText(f == null ? " " : "  " + f.count() + " points   repeatability " + Ui.fmt(f.repeatability(), 3) + "   coverage " + Ui.pct(f.coverage()));
+            figures.setText(f == null ? " " : "  " + f.count() + " points   repeatability " + Ui.fmt(f.repeatability(), 3) + " (0..1)   coverage "
+                    + Ui.pct(f.coverage()).replace("%", " %"));
         }
     }
 
@@ -89,28 +100,40 @@ final class CompareView extends JPanel implements Session.Listener {
         setName("view.compare");
         panes.addChangeListener(e -> rebuild());
         runAll = Ui.button("compare.run", "Score all frames", "Run every detector on every loaded frame and rank them", this::runAll);
-        add(Ui.row(new JLabel("Detectors side by side:"), panes,
+        JPanel top = new JPanel(new BorderLayout());
+        top.add(Ui.row(new JLabel("Detectors side by side:"), panes,
                 Ui.button("compare.first", "|<", "First frame", () -> session.setFrameIndex(0)),
                 Ui.button("compare.prev", "<", "Previous frame", () -> session.setFrameIndex(session.frameIndex() - 1)),
-                frameLabel,
                 Ui.button("compare.next", ">", "Next frame", () -> session.setFrameIndex(session.frameIndex() + 1)),
                 Ui.button("compare.last", ">|", "Last frame", () -> session.setFrameIndex(session.frames().size() - 1)),
-                new JLabel("  (the previewed condition follows the live view)")), BorderLayout.NORTH);
+                frameLabel), BorderLayout.NORTH);
+        top.add(Ui.row(Ui.named(new JLabel("The frames are shown under the condition previewed in the Live view."), "compare.condition", null)), BorderLayout.SOUTH);
+        add(top, BorderLayout.NORTH);
         add(grid, BorderLayout.CENTER);
         JPanel bottom = new JPanel(new BorderLayout());
-        bottom.add(Ui.row(runAll, Ui.button("compare.cancel", "Cancel", "Stop the running comparison", this::cancel), progress), BorderLayout.NORTH);
+        save = Ui.button("compare.save", "Save results...", "Write detections.csv, repeatability.csv, summary.json, overlays/ (and dot-bias.csv when the scene is known), as the command line's compare does", this::save);
+        save.setEnabled(false);
+        bottom.add(Ui.row(runAll, Ui.button("compare.cancel", "Cancel", "Stop the running comparison", this::cancel), progress, save), BorderLayout.NORTH);
         JTable table = Ui.named(new JTable(ranking), "compare.ranking", null);
-        DetailPane.columnTips(table, "Rank by mean repeatability; ties by the fraction of true features found, then by points per frame", "Detector", "Mean repeatability, 0..1: " + Ui.TIP_REPEATABILITY,
-                "Lowest repeatability over the frames, 0..1", "Frames scored against the reference", "Mean points per frame",
-                "Localisation RMS against true feature positions, px: " + Ui.TIP_LOCALISATION, "Fraction of true features found, %",
-                "Coverage, %: " + Ui.TIP_COVERAGE);
+        DetailPane.columnTips(table, "Rank, 1 = best: by mean repeatability on these frames; ties by the share of true features found, then by points per frame (the command line's compare ranking).",
+                "Detector, with its default settings or those edited in Live: Settings.",
+                "Mean repeatability over the frames, 0..1 (no unit): " + Ui.TIP_REPEATABILITY + " The 1.5 px radius is the command line's --epsilon default.",
+                "Lowest repeatability of any one frame, 0..1 (no unit); same rule and radius.",
+                "Frames scored against the reference, a count: those with a known homography from the reference frame.",
+                "Mean points per frame, a count; at most the detector's feature limit (500 by default, --max-features).",
+                "Localisation RMS against the true feature positions, px: " + Ui.TIP_LOCALISATION,
+                "Share of true features with a point within 3 px, percent; needs ground truth.",
+                "Coverage, percent: " + Ui.TIP_COVERAGE);
+        table.getTableHeader().setReorderingAllowed(false);
+        int[] widths = {44, 100, 100, 60, 60, 84, 72, 60, 76};
+        for (int i = 0; i < widths.length; i++) table.getColumnModel().getColumn(i).setPreferredWidth(widths[i]);
         table.setDefaultRenderer(Object.class, DetailPane.renderer(table.getDefaultRenderer(Object.class)));
         JScrollPane sp = new JScrollPane(table);
-        sp.setPreferredSize(new Dimension(600, 150));
-        perFrame.setPreferredSize(new Dimension(480, 190));
+        sp.setPreferredSize(new Dimension(680, 170));
+        perFrame.setPreferredSize(new Dimension(440, 250));
         perFrame.add(new JLabel("  Score all frames to plot repeatability per frame."), BorderLayout.CENTER);
         javax.swing.JSplitPane split = new javax.swing.JSplitPane(javax.swing.JSplitPane.HORIZONTAL_SPLIT, sp, perFrame);
-        split.setResizeWeight(0.55);
+        split.setResizeWeight(0.6);
         bottom.add(split, BorderLayout.CENTER);
         JLabel note = Ui.named(new JLabel(RANKING_NOTE), "compare.note", RANKING_NOTE);
         bottom.add(note, BorderLayout.SOUTH);
@@ -148,6 +171,8 @@ final class CompareView extends JPanel implements Session.Listener {
         progress.setMaximum(frames.size());
         progress.setValue(0);
         ranking.setRowCount(0);
+        last = null;
+        save.setEnabled(false);
         ctx.status().accept("Scoring " + configs.size() + " detectors on " + frames.size() + " frames...");
         worker = new SwingWorker<>() {
             @Override protected CompareResult doInBackground() throws Exception {
@@ -188,13 +213,31 @@ final class CompareView extends JPanel implements Session.Listener {
             lines.add(new org.targetbench.report.Charts.Series(t.label(), x, y, org.targetbench.report.Palette.of(t)));
         }
         var chart = ChartLook.themed(ChartLook.markedAndDistinct(org.targetbench.report.Charts.yRange(org.targetbench.report.Charts.lines(
-                "Repeatability per frame (against the reference)", "frame", "repeatability, 0..1", lines, false), -0.02, 1.02)));
+                "Repeatability per frame (against the reference)", "frame (number)", "repeatability (0..1)", lines, false), -0.02, 1.02)));
+        ((org.jfree.chart.axis.NumberAxis) chart.getXYPlot().getDomainAxis()).setStandardTickUnits(org.jfree.chart.axis.NumberAxis.createIntegerTickUnits());
         org.jfree.chart.ChartPanel cp = new org.jfree.chart.ChartPanel(chart);
+        cp.setMinimumDrawWidth(200); // drawn at its size, never scaled down (which shrinks and clips its text)
+        cp.setMinimumDrawHeight(120);
+        cp.setMaximumDrawWidth(4000);
+        cp.setMaximumDrawHeight(3000);
         cp.setName("compare.perframe");
         perFrame.removeAll();
         perFrame.add(cp, BorderLayout.CENTER);
         perFrame.revalidate();
         perFrame.repaint();
+    }
+
+    /** A theme switch redraws the chart in the new theme's colours (it is themed when built). */
+    @Override
+    public void updateUI() {
+        super.updateUI();
+        if (last != null) javax.swing.SwingUtilities.invokeLater(() -> plotPerFrame(last));
+    }
+
+    /** The repeatability-per-frame chart, or null before a comparison. */
+    org.jfree.chart.ChartPanel perFrameChart() {
+        for (java.awt.Component c : perFrame.getComponents()) if (c instanceof org.jfree.chart.ChartPanel cp) return cp;
+        return null;
     }
 
     /** Series in the repeatability-per-frame chart (0 before a comparison). */
@@ -217,10 +260,31 @@ final class CompareView extends JPanel implements Session.Listener {
                     Ui.fmt(s.localisation().rmsPx(), 3), Ui.pct(s.localisation().foundFraction()), Ui.pct(s.meanOccupancy())});
         progress.setValue(progress.getMaximum());
         plotPerFrame(r);
+        last = r;
+        save.setEnabled(true);
         ctx.status().accept("Scored " + r.frameCount() + " frames; best: " + r.ranked().get(0).detector().label());
     }
 
-    /** The loaded frames as a source, for the shared comparison run. */
+    private void save() {
+        if (last == null) return;
+        javax.swing.JFileChooser fc = new javax.swing.JFileChooser(ctx.prefs().get("lastCompareFolder", System.getProperty("user.dir")));
+        fc.setFileSelectionMode(javax.swing.JFileChooser.DIRECTORIES_ONLY);
+        fc.setDialogTitle("Folder for the comparison results");
+        if (fc.showSaveDialog(ctx.window()) != javax.swing.JFileChooser.APPROVE_OPTION) return;
+        saveTo(fc.getSelectedFile().toPath());
+    }
 
-
+    /** Writes the last comparison into {@code dir} as the command line's compare does; says so in the status bar. */
+    boolean saveTo(java.nio.file.Path dir) {
+        if (last == null) return false;
+        ctx.prefs().put("lastCompareFolder", dir.toString());
+        try {
+            List<String> files = CompareSave.write(last, session, dir);
+            ctx.status().accept("Comparison written to " + dir + ": " + String.join(", ", files));
+            return true;
+        } catch (Exception e) {
+            ctx.status().accept("Could not write the comparison: " + e.getMessage());
+            return false;
+        }
+    }
 }

@@ -58,8 +58,12 @@ public final class FrameCanvas extends JComponent {
         repaint();
     }
 
-    /** How a marker is drawn: an outlined ring, or a diagonal cross (for points that failed a filter). */
-    public enum Shape { RING, CROSS }
+    /**
+     * How a marker is drawn: an outlined ring, a diagonal cross (for points that failed a filter), or one of the
+     * outlined square, triangle, diamond and plus (the ends of tracks, one shape per way of ending, so colour is not
+     * the only cue).
+     */
+    public enum Shape { RING, CROSS, SQUARE, TRIANGLE, DIAMOND, PLUS }
 
     /** Nearest marker with a tip within this many screen pixels shows its tip on hover. */
     static final double TIP_RADIUS_PX = 9;
@@ -116,10 +120,55 @@ public final class FrameCanvas extends JComponent {
     }
 
     public void setFrame(GrayF32 frame) {
-        boolean first = image == null || image.getWidth() != frame.width || image.getHeight() != frame.height;
-        image = ImageFiles.toBuffered(frame);
+        setImage(ImageFiles.toBuffered(frame));
+    }
+
+    /** Shows an image already converted for display (the zoom stays unless the size changed or the view was fitted). */
+    public void setImage(BufferedImage frame) {
+        boolean first = image == null || image.getWidth() != frame.getWidth() || image.getHeight() != frame.getHeight();
+        image = frame;
         if (first || fitted) fit();
         repaint();
+    }
+
+    private String note = "";
+
+    /** A line drawn in the top-left corner over the frame (empty for none), e.g. what frame is shown. */
+    public void setNote(String text) {
+        note = text == null ? "" : text;
+        repaint();
+    }
+
+    /** Draws a marker shape of half-size {@code r} at ({@code mx}, {@code my}) in component pixels, with a dark outline (also for legends). */
+    static void drawShape(Graphics2D g, Shape shape, double mx, double my, double r, Color colour) {
+        if (shape == Shape.RING) {
+            Overlay.ring(g, mx, my, colour, r);
+            return;
+        }
+        java.awt.geom.Path2D.Double p = new java.awt.geom.Path2D.Double();
+        switch (shape) {
+            case CROSS -> {
+                p.moveTo(mx - r, my - r); p.lineTo(mx + r, my + r);
+                p.moveTo(mx - r, my + r); p.lineTo(mx + r, my - r);
+            }
+            case PLUS -> {
+                p.moveTo(mx - r, my); p.lineTo(mx + r, my);
+                p.moveTo(mx, my - r); p.lineTo(mx, my + r);
+            }
+            case SQUARE -> p.append(new java.awt.geom.Rectangle2D.Double(mx - r, my - r, 2 * r, 2 * r), false);
+            case TRIANGLE -> {
+                p.moveTo(mx, my - r); p.lineTo(mx + r, my + r); p.lineTo(mx - r, my + r); p.closePath();
+            }
+            default -> { // DIAMOND
+                p.moveTo(mx, my - r); p.lineTo(mx + r, my); p.lineTo(mx, my + r); p.lineTo(mx - r, my); p.closePath();
+            }
+        }
+        g.setColor(Color.BLACK);
+        g.setStroke(new java.awt.BasicStroke(3f));
+        g.draw(p);
+        g.setColor(colour);
+        g.setStroke(new java.awt.BasicStroke(1.5f));
+        g.draw(p);
     }
 
     public void setOverlay(Map<DetectorType, List<Detection>> points, List<ProjectedFeature> truth) {
@@ -197,17 +246,7 @@ public final class FrameCanvas extends JComponent {
             }
             for (Marker m : markers) {
                 double mx = (m.x() + 0.5) * zoom, my = (m.y() + 0.5) * zoom;
-                if (m.shape() == Shape.CROSS) {
-                    g.setColor(Color.BLACK);
-                    g.setStroke(new java.awt.BasicStroke(3f));
-                    double r = m.radius();
-                    g.draw(new java.awt.geom.Line2D.Double(mx - r, my - r, mx + r, my + r));
-                    g.draw(new java.awt.geom.Line2D.Double(mx - r, my + r, mx + r, my - r));
-                    g.setColor(m.colour());
-                    g.setStroke(new java.awt.BasicStroke(1.5f));
-                    g.draw(new java.awt.geom.Line2D.Double(mx - r, my - r, mx + r, my + r));
-                    g.draw(new java.awt.geom.Line2D.Double(mx - r, my + r, mx + r, my - r));
-                } else Overlay.ring(g, mx, my, m.colour(), m.radius());
+                drawShape(g, m.shape(), mx, my, m.radius(), m.colour());
                 if (m.label().isEmpty()) continue;
                 g.setColor(Color.BLACK);
                 g.drawString(m.label(), (float) mx + 10, (float) my - 9);
@@ -216,6 +255,13 @@ public final class FrameCanvas extends JComponent {
             }
             g.setTransform(saved);
             if (!points.isEmpty() || !truth.isEmpty()) Overlay.legend(g, points, !truth.isEmpty());
+            if (!note.isEmpty()) {
+                g.setColor(new Color(0, 0, 0, 170));
+                java.awt.FontMetrics fm = g.getFontMetrics();
+                g.fillRect(4, getHeight() - fm.getHeight() - 10, fm.stringWidth(note) + 12, fm.getHeight() + 6);
+                g.setColor(Color.WHITE);
+                g.drawString(note, 10, getHeight() - 7 - fm.getDescent());
+            }
         } finally {
             g.dispose();
         }

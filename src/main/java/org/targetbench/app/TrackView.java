@@ -1,14 +1,13 @@
 package org.targetbench.app;
 
-import org.targetbench.source.FrameList;
 import org.jfree.chart.ChartPanel;
-import org.jfree.chart.JFreeChart;
 import org.targetbench.detect.DetectorConfig;
 import org.targetbench.detect.DetectorType;
 import org.targetbench.pipeline.MotionScenarios;
 import org.targetbench.pipeline.TrackResult;
 import org.targetbench.pipeline.TrackRun;
-import org.targetbench.report.Charts;
+import org.targetbench.report.Palette;
+import org.targetbench.source.FrameList;
 import org.targetbench.source.FrameSource;
 import org.targetbench.track.KltConfig;
 import org.targetbench.track.TrackOutcome;
@@ -16,58 +15,56 @@ import org.targetbench.track.TrackPoint;
 
 import javax.swing.JButton;
 import javax.swing.JComboBox;
+import javax.swing.JFileChooser;
 import javax.swing.JLabel;
 import javax.swing.JPanel;
-import javax.swing.JScrollPane;
+import javax.swing.JSlider;
+import javax.swing.JSpinner;
 import javax.swing.JSplitPane;
-import javax.swing.JTable;
+import javax.swing.JTabbedPane;
+import javax.swing.SpinnerNumberModel;
 import javax.swing.SwingWorker;
-import javax.swing.table.DefaultTableModel;
 import java.awt.BorderLayout;
-import java.awt.GridLayout;
 import java.awt.Color;
 import java.awt.Dimension;
+import java.nio.file.Path;
 import java.util.ArrayList;
-import java.util.EnumMap;
 import java.util.List;
 import java.util.Locale;
-import java.util.Map;
 import java.util.concurrent.ExecutionException;
 import java.util.concurrent.atomic.AtomicBoolean;
 
 /**
- * KLT tracking of the loaded frames or of a synthetic motion of the demo target: tracks drawn coloured by their outcome
- * with a legend, the survival curve growing as frames are tracked, and the survival, forward-backward, drift and
- * jitter figures when the run ends. The run is the command line's {@code track} run.
+ * KLT tracking of the loaded frames or of a synthetic motion of the demo target, by the command line's {@code track}
+ * run with its default settings. While it runs, the newest frame shows its tracks; when it ends, the scrubber shows
+ * any frame with the tracks as they were then: each live track with a trail of its last {@link #TRAIL_FRAMES} frames,
+ * and every track that has ended by then marked where it ended, in the colour and shape of how it ended (colours of
+ * their own, {@link Palette#of(TrackOutcome)}). Beside the frame: survival, drift and jitter charts and the run's
+ * figures with units; Save writes what {@code track} writes, through the same writer.
  */
 final class TrackView extends JPanel {
-    /**
-     * Outcome colours, a palette of their own (Paul Tol's "bright" scheme) so outcomes never read as the detector colours
-     * (Okabe-Ito); ended tracks are also drawn as crosses where they died, so colour is not the only cue.
-     */
-    static final Map<TrackOutcome, Color> COLOURS = new EnumMap<>(Map.of(
-            TrackOutcome.STARTED, new Color(102, 204, 238), TrackOutcome.TRACKED, new Color(34, 136, 51),
-            TrackOutcome.LOST_FORWARD_BACKWARD, new Color(238, 102, 119), TrackOutcome.LEFT_IMAGE, new Color(204, 187, 68),
-            TrackOutcome.RESIDUAL_TOO_LARGE, new Color(170, 51, 119), TrackOutcome.DIVERGED, new Color(68, 119, 170),
-            TrackOutcome.TOO_FLAT, new Color(187, 187, 187)));
-    /** Trail colour (the path of a live track), and how many frames of path each trail keeps. */
-    static final Color TRAIL = new Color(34, 136, 51, 170);
+    /** Frames of path each trail keeps. */
     static final int TRAIL_FRAMES = 40;
-
     static final String LOADED = "the loaded frames";
+    /** Least time between two redraws of the survival chart while a run goes, nanoseconds. */
+    private static final long CHART_EVERY_NS = 300_000_000L;
 
     private final AppContext ctx;
     private final JComboBox<String> what;
-    private final JComboBox<DetectorType> seeding = Ui.named(new JComboBox<>(DetectorType.values()), "track.detector", "Detector that seeds the tracks");
+    private final JComboBox<DetectorType> seeding = Ui.named(new JComboBox<>(DetectorType.values()), "track.detector",
+            "Detector that picks the points on the first frame (the command line's --detector)");
+    private final JSpinner frameCount = Ui.named(new JSpinner(new SpinnerNumberModel(0, 0, 100_000, 10)), "track.frames",
+            "Most frames to track; 0 tracks every frame (the command line's --frame-count)");
     private final FrameCanvas canvas = new FrameCanvas("track.canvas");
-    private final JPanel chartHolder = new JPanel(new BorderLayout());
-    private final DefaultTableModel figures = new DefaultTableModel(new Object[]{"Figure", "Value"}, 0) {
-        @Override public boolean isCellEditable(int r, int c) { return false; }
-    };
-    private final JButton run, stop;
+    private final JSlider scrub = Ui.named(new JSlider(0, 0, 0), "track.scrub", "Show any frame of the finished run with its tracks as they were then");
+    private final JLabel frameLabel = Ui.named(new JLabel("frame -"), "track.frame", null);
+    private final JTabbedPane plots = Ui.named(new JTabbedPane(), "track.plots", null);
+    private final TrackFigures figures = new TrackFigures();
+    private final JButton run, stop, save;
     private final AtomicBoolean cancel = new AtomicBoolean();
-    private final List<double[]> survival = new ArrayList<>();
-    private SwingWorker<TrackResult, Object[]> worker;
+    private ChartPanel survivalChart, driftChart, jitterChart;
+    private TrackHistory history;
+    private SwingWorker<TrackResult, Integer> worker;
 
     TrackView(AppContext ctx) {
         super(new BorderLayout(6, 6));
@@ -82,19 +79,41 @@ final class TrackView extends JPanel {
         seeding.setRenderer(Ui.detectorRenderer());
         run = Ui.button("track.run", "Track", "Track from the first frame to the last", this::start);
         stop = Ui.button("track.stop", "Stop", "Stop tracking; what was measured is kept", () -> cancel.set(true));
+        save = Ui.button("track.save", "Save...", "Write tracks.csv, survival.csv, drift.csv (with truth) and summary.json, as the command line's track does", this::save);
         stop.setEnabled(false);
-        add(Ui.row(new JLabel("Source"), what, new JLabel("Seeded by"), seeding, run, stop), BorderLayout.NORTH);
-        JTable t = Ui.named(new JTable(figures), "track.figures", null);
-        t.setToolTipText(Ui.TIP_SURVIVAL);
-        JSplitPane right = new JSplitPane(JSplitPane.VERTICAL_SPLIT, chartHolder, new JScrollPane(t));
-        right.setResizeWeight(0.6);
-        right.setPreferredSize(new Dimension(520, 500));
-        JSplitPane split = new JSplitPane(JSplitPane.HORIZONTAL_SPLIT, canvas, right);
-        split.setResizeWeight(0.7); // a large frame pane
-        canvas.setMinimumSize(new Dimension(560, 400));
-        right.setMinimumSize(new Dimension(360, 300));
+        save.setEnabled(false);
+        ((JSpinner.DefaultEditor) frameCount.getEditor()).getTextField().setColumns(5);
+        add(Ui.row(new JLabel("Source"), what, new JLabel("Seeded by"), seeding, new JLabel("Frames (0: all)"), frameCount, run, stop, save), BorderLayout.NORTH);
+
+        scrub.setEnabled(false);
+        scrub.addChangeListener(e -> {
+            if (history != null && history.size() > 0 && scrub.isEnabled()) showFrame(scrub.getValue());
+        });
+        JPanel framePane = new JPanel(new BorderLayout(4, 4));
+        framePane.add(canvas, BorderLayout.CENTER);
+        JPanel scrubRow = new JPanel(new BorderLayout(6, 0));
+        scrubRow.add(new JLabel("Frame"), BorderLayout.WEST);
+        scrubRow.add(scrub, BorderLayout.CENTER);
+        frameLabel.setPreferredSize(new Dimension(frameLabel.getFontMetrics(frameLabel.getFont()).stringWidth(" frame 00000 (00000 of 00000) "), frameLabel.getPreferredSize().height));
+        scrubRow.add(frameLabel, BorderLayout.EAST);
+        framePane.add(scrubRow, BorderLayout.SOUTH);
+
+        JPanel chartSide = new JPanel(new BorderLayout());
+        chartSide.add(plots, BorderLayout.CENTER);
+        chartSide.add(legend(), BorderLayout.SOUTH);
+        JSplitPane right = new JSplitPane(JSplitPane.VERTICAL_SPLIT, chartSide, figures.pane());
+        right.setResizeWeight(0.62);
+        JSplitPane split = new JSplitPane(JSplitPane.HORIZONTAL_SPLIT, framePane, right);
+        split.setResizeWeight(0.6); // a large frame pane
+        framePane.setMinimumSize(new Dimension(480, 360));
+        right.setMinimumSize(new Dimension(400, 300));
+        canvas.setPreferredSize(new Dimension(640, 480));
+        right.setPreferredSize(new Dimension(460, 480));
         add(split, BorderLayout.CENTER);
-        drawChart();
+        plots.addTab("Survival", null, new JPanel(), Ui.TIP_SURVIVAL);
+        plots.addTab("Drift", null, new JPanel(), "Distance of each tracked point from where truth puts it, per frame, px");
+        plots.addTab("Jitter", null, new JPanel(), "Spread of each track's position while nothing moved, px");
+        drawCharts(null);
     }
 
     void start() {
@@ -105,39 +124,58 @@ final class TrackView extends JPanel {
             ctx.status().accept("Load a source first");
             return;
         }
-        Peek source = new Peek(LOADED.equals(choice) ? new FrameList(s.sourceName(), s.frames(), s.reference().name())
-                : MotionScenarios.open(choice.substring("synthetic: ".length())));
+        FrameSource in;
+        try {
+            in = LOADED.equals(choice) ? new FrameList(s.sourceName(), s.frames(), s.reference().name())
+                    : MotionScenarios.open(choice.substring("synthetic: ".length()));
+        } catch (IllegalArgumentException e) {
+            ctx.status().accept("Cannot track: " + e.getMessage());
+            return;
+        }
         DetectorConfig seed = DetectorConfig.defaults((DetectorType) seeding.getSelectedItem());
+        int most = (Integer) frameCount.getValue();
+        TrackHistory h = new TrackHistory();
+        history = h;
         cancel.set(false);
-        survival.clear();
-        paths.clear();
-        deaths.clear();
-        figures.setRowCount(0);
         run.setEnabled(false);
         stop.setEnabled(true);
+        save.setEnabled(false);
+        scrub.setEnabled(false);
+        figures.clear();
+        drawCharts(null);
         ctx.status().accept("Tracking " + choice + "...");
         worker = new SwingWorker<>() {
             @Override protected TrackResult doInBackground() throws Exception {
-                try (Peek src = source) {
-                    return new TrackRun(new KltConfig(), seed, 30, false, 0).run(src, (rows, f) ->
-                            publish(new Object[]{rows, f, src.last}), (d, tot, w) -> { }, cancel::get);
+                try (Peek src = new Peek(in, h)) {
+                    // the command line's defaults: its tracker settings, survival at frame 30, not marked static
+                    TrackResult r = new TrackRun(new KltConfig(), seed, 30, false, most).run(src, (rows, f) -> {
+                        h.frame(rows, f);
+                        publish(h.size() - 1);
+                    }, (d, tot, w) -> { }, cancel::get);
+                    h.finish(r);
+                    return r;
                 }
             }
-            @Override protected void process(List<Object[]> chunks) {
-                for (Object[] c : chunks) accumulate((org.targetbench.track.TrackFrame) c[0]);
-                for (Object[] c : chunks) survival.add(new double[]{((org.targetbench.score.FrameTracking) c[1]).frame(),
-                        ((org.targetbench.score.FrameTracking) c[1]).aliveFraction()});
-                Object[] last = chunks.get(chunks.size() - 1);
-                if (last[2] != null) canvas.setFrame((boofcv.struct.image.GrayF32) last[2]);
-                showTracks((org.targetbench.track.TrackFrame) last[0]);
-                drawChart();
+            @Override protected void process(List<Integer> chunks) {
+                if (history != h) return;
+                int last = chunks.get(chunks.size() - 1);
+                scrub.setMaximum(last);
+                scrub.setValue(last);
+                long now = System.nanoTime();
+                if (now - chartDrawn > CHART_EVERY_NS) { // the chart is rebuilt a few times a second, not per frame
+                    chartDrawn = now;
+                    survivalChart = TrackPlots.survival(h.allFigures());
+                    replaceTab(0, survivalChart);
+                }
+                showFrame(last);
             }
+            private long chartDrawn;
             @Override protected void done() {
                 worker = null;
                 run.setEnabled(true);
                 stop.setEnabled(false);
                 try {
-                    show(get());
+                    finished(get());
                 } catch (ExecutionException e) {
                     ctx.status().accept("Tracking failed: " + e.getCause().getMessage());
                 } catch (InterruptedException e) {
@@ -148,103 +186,171 @@ final class TrackView extends JPanel {
         worker.execute();
     }
 
-    /** Per track id, its recent path; and where tracks ended, with how. */
-    private final Map<Integer, java.util.ArrayDeque<double[]>> paths = new java.util.HashMap<>();
-    private final List<TrackPoint> deaths = new ArrayList<>();
-
-    private void accumulate(org.targetbench.track.TrackFrame rows) {
-        for (TrackPoint p : rows.points()) {
-            if (p.outcome() == TrackOutcome.TRACKED || p.outcome() == TrackOutcome.STARTED) {
-                var q = paths.computeIfAbsent(p.trackId(), k -> new java.util.ArrayDeque<>());
-                q.addLast(new double[]{p.x(), p.y()});
-                while (q.size() > TRAIL_FRAMES) q.removeFirst();
-            } else if (paths.remove(p.trackId()) != null || deaths.stream().noneMatch(d -> d.trackId() == p.trackId())) deaths.add(p);
-        }
+    private void finished(TrackResult r) {
+        int last = history.size() - 1;
+        scrub.setMaximum(last);
+        scrub.setValue(last);
+        scrub.setEnabled(true);
+        save.setEnabled(true);
+        drawCharts(r);
+        showFrame(last);
+        figures.show(r);
+        var s = r.score();
+        ctx.status().accept(String.format(Locale.ROOT, "Tracked %d frames: survival %s %% at the end; %s. Drag the frame slider to see any frame.",
+                s.frames(), Ui.fmt(100 * s.survivalAtEnd(), 1), r.stop().label()));
     }
 
-    /** Tracks that ended so far (one cross each). */
-    int deathCount() { return deaths.size(); }
+    /** A theme switch redraws the charts in the new theme's colours (they are themed when built). */
+    @Override
+    public void updateUI() {
+        super.updateUI();
+        if (plots != null && worker == null) javax.swing.SwingUtilities.invokeLater(() -> drawCharts(history == null ? null : history.result()));
+    }
 
-    private void showTracks(org.targetbench.track.TrackFrame rows) {
+    private void drawCharts(TrackResult r) {
+        List<org.targetbench.score.FrameTracking> f = history == null ? List.of() : history.allFigures();
+        survivalChart = TrackPlots.survival(f);
+        driftChart = TrackPlots.drift(f, r);
+        jitterChart = TrackPlots.jitter(r);
+        replaceTab(0, survivalChart);
+        replaceTab(1, driftChart);
+        replaceTab(2, jitterChart);
+        if (shown != null && history != null && shown.index() < history.size())
+            for (ChartPanel p : new ChartPanel[]{survivalChart, driftChart}) TrackPlots.markFrame(p, history.rows(shown.index()).frame());
+    }
+
+    private void replaceTab(int i, ChartPanel p) {
+        plots.setComponentAt(i, p);
+        plots.revalidate();
+        plots.repaint();
+    }
+
+    /** Shows frame {@code i} of the run (0-based position in the run) with its tracks as they were then. */
+    void showFrame(int i) {
+        TrackHistory.Scene sc = history.scene(i, TRAIL_FRAMES);
+        var img = history.image(i);
+        if (img != null) canvas.setImage(img);
         List<FrameCanvas.Trail> trails = new ArrayList<>();
-        for (var q : paths.values()) {
-            double[] x = new double[q.size()], y = new double[q.size()];
-            int i = 0;
-            for (double[] p : q) { x[i] = p[0]; y[i] = p[1]; i++; }
-            trails.add(new FrameCanvas.Trail(x, y, TRAIL));
+        Color trail = withAlpha(Palette.of(TrackOutcome.TRACKED), 170);
+        for (List<double[]> path : sc.trails().values()) {
+            double[] x = new double[path.size()], y = new double[path.size()];
+            for (int k = 0; k < x.length; k++) { x[k] = path.get(k)[0]; y[k] = path.get(k)[1]; }
+            trails.add(new FrameCanvas.Trail(x, y, trail));
         }
         canvas.setTrails(trails);
         List<FrameCanvas.Marker> marks = new ArrayList<>();
-        for (TrackPoint p : deaths)
-            marks.add(new FrameCanvas.Marker(p.x(), p.y(), "", COLOURS.get(p.outcome()), 4, FrameCanvas.Shape.CROSS,
-                    "track " + p.trackId() + " ended at frame " + p.frame() + ": " + p.outcome().name().toLowerCase(Locale.ROOT).replace('_', ' ')));
-        for (TrackPoint p : rows.points())
-            if (p.outcome() == TrackOutcome.TRACKED || p.outcome() == TrackOutcome.STARTED)
-                marks.add(new FrameCanvas.Marker(p.x(), p.y(), "", COLOURS.get(p.outcome()), 4));
+        for (TrackPoint p : sc.ended())
+            marks.add(new FrameCanvas.Marker(p.x(), p.y(), "", Palette.of(p.outcome()), 4.5, shape(p.outcome()),
+                    "track " + p.trackId() + " ended at frame " + p.frame() + ": " + words(p.outcome())));
+        for (TrackPoint p : sc.live())
+            marks.add(new FrameCanvas.Marker(p.x(), p.y(), "", Palette.of(p.outcome()), 4, FrameCanvas.Shape.RING,
+                    "track " + p.trackId() + (p.outcome() == TrackOutcome.STARTED ? " started here" : String.format(Locale.ROOT,
+                            " tracked, forward-backward error %s px", Ui.fmt(p.fbError(), 3)))));
         canvas.setMarkers(marks);
+        int index = history.rows(i).frame();
+        frameLabel.setText(String.format(Locale.ROOT, " frame %d (%d of %d) ", index, i + 1, history.size()));
+        canvas.setNote(String.format(Locale.ROOT, "frame %d: %d tracks alive, %d ended so far%s", index, sc.live().size(), sc.ended().size(),
+                img == null ? " (picture not kept: memory)" : ""));
+        shown = sc;
+        for (ChartPanel p : new ChartPanel[]{survivalChart, driftChart}) if (p != null) TrackPlots.markFrame(p, index);
     }
 
-    private void drawChart() {
-        double[] x = new double[survival.size()], y = new double[survival.size()];
-        for (int i = 0; i < x.length; i++) {
-            x[i] = survival.get(i)[0];
-            y[i] = survival.get(i)[1];
-        }
-        JFreeChart c = ChartLook.themed(Charts.yRange(Charts.lines("Survival of the first frame's tracks", "frame", "alive fraction",
-                List.of(new Charts.Series("alive", x, y, COLOURS.get(TrackOutcome.TRACKED))), false), 0, 1.05));
-        ChartPanel cp = new ChartPanel(c);
-        cp.setName("track.survival");
-        chartHolder.removeAll();
-        chartHolder.add(cp, BorderLayout.CENTER);
-        chartHolder.add(legend(), BorderLayout.SOUTH);
-        chartHolder.revalidate();
-        chartHolder.repaint();
+    private TrackHistory.Scene shown;
+
+    /** What the frame pane shows now (null before a run). */
+    TrackHistory.Scene shownScene() { return shown; }
+
+    TrackHistory history() { return history; }
+
+    /** The chart of a tab: 0 survival, 1 drift, 2 jitter. */
+    ChartPanel chart(int tab) { return (ChartPanel) plots.getComponentAt(tab); }
+
+    JTabbedPane plots() { return plots; }
+
+    JSlider scrubber() { return scrub; }
+
+    /** Shape of a track's end marker: one per way of ending, so colour is not the only cue. */
+    static FrameCanvas.Shape shape(TrackOutcome o) {
+        return switch (o) {
+            case STARTED, TRACKED -> FrameCanvas.Shape.RING;
+            case LOST_FORWARD_BACKWARD -> FrameCanvas.Shape.CROSS;
+            case LEFT_IMAGE -> FrameCanvas.Shape.SQUARE;
+            case RESIDUAL_TOO_LARGE -> FrameCanvas.Shape.TRIANGLE;
+            case DIVERGED -> FrameCanvas.Shape.DIAMOND;
+            case TOO_FLAT -> FrameCanvas.Shape.PLUS;
+        };
     }
+
+    static String words(TrackOutcome o) {
+        return switch (o) {
+            case STARTED -> "started";
+            case TRACKED -> "tracked";
+            case LOST_FORWARD_BACKWARD -> "lost: forward-backward";
+            case LEFT_IMAGE -> "left the image";
+            case RESIDUAL_TOO_LARGE -> "residual too large";
+            case DIVERGED -> "diverged";
+            case TOO_FLAT -> "too flat";
+        };
+    }
+
+    private static Color withAlpha(Color c, int a) { return new Color(c.getRed(), c.getGreen(), c.getBlue(), a); }
 
     private JPanel legend() {
-        JPanel p = new JPanel(new GridLayout(0, 2));
-        p.setToolTipText("Live tracks: rings with a trail of their last " + TRAIL_FRAMES + " frames; ended tracks: a cross (x) where they ended, coloured by how");
-        for (var e : COLOURS.entrySet()) p.add(new JLabel(e.getKey().name().toLowerCase(Locale.ROOT).replace('_', ' ')
-                + (e.getKey() == TrackOutcome.TRACKED || e.getKey() == TrackOutcome.STARTED ? "" : " (x)"), Ui.swatch(e.getValue()), JLabel.LEFT));
+        JPanel p = new JPanel(new java.awt.GridLayout(0, 2, 8, 0));
+        p.setName("track.legend");
+        p.setToolTipText("Live tracks: rings with a trail of their last " + TRAIL_FRAMES + " frames; ended tracks: a mark where they ended, its colour and shape saying how");
+        for (TrackOutcome o : TrackOutcome.values()) {
+            JLabel l = new JLabel(words(o), new javax.swing.Icon() {
+                @Override public void paintIcon(java.awt.Component c, java.awt.Graphics g, int x, int y) {
+                    java.awt.Graphics2D g2 = (java.awt.Graphics2D) g.create();
+                    g2.setRenderingHint(java.awt.RenderingHints.KEY_ANTIALIASING, java.awt.RenderingHints.VALUE_ANTIALIAS_ON);
+                    FrameCanvas.drawShape(g2, shape(o), x + 7, y + 7, 4.5, Palette.of(o));
+                    g2.dispose();
+                }
+                @Override public int getIconWidth() { return 14; }
+                @Override public int getIconHeight() { return 14; }
+            }, JLabel.LEFT);
+            l.setName("track.legend." + o.csvName());
+            p.add(l);
+        }
         return p;
     }
 
-    private void show(TrackResult r) {
-        var s = r.score();
-        row("frames tracked", Integer.toString(s.frames()));
-        row("initial tracks", Integer.toString(s.initialTracks()));
-        row("survival at frame " + s.survivalAtFrame(), Ui.fmt(s.survivalAtN(), 3));
-        row("survival at the end", Ui.fmt(s.survivalAtEnd(), 3));
-        row("median lifetime", s.medianLifetime().isPresent() ? s.medianLifetime().getAsInt() + " frames" : "longer than the run");
-        row("forward-backward error p50 / p95", Ui.fmt(s.forwardBackward().p50(), 3) + " / " + Ui.fmt(s.forwardBackward().p95(), 3) + " px");
-        row("drift against truth p50 / p95 / max", s.framesWithTruth() == 0 ? "no truth"
-                : Ui.fmt(s.drift().p50(), 3) + " / " + Ui.fmt(s.drift().p95(), 3) + " / " + Ui.fmt(s.drift().max(), 3) + " px");
-        row("jitter while still p50", s.staticFrames() == 0 ? "no still stretch" : Ui.fmt(s.jitter().p50(), 3) + " px");
-        for (var e : s.ended().entrySet()) row("ended: " + e.getKey().name().toLowerCase(Locale.ROOT).replace('_', ' '), Integer.toString(e.getValue()));
-        row("run ended because", r.stop().label());
-        ctx.status().accept(String.format(Locale.ROOT, "Tracked %d frames: survival %.2f at the end", s.frames(), s.survivalAtEnd()));
+    private void save() {
+        if (history == null || history.result() == null) return;
+        JFileChooser fc = new JFileChooser(ctx.prefs().get("lastTrackFolder", System.getProperty("user.dir")));
+        fc.setFileSelectionMode(JFileChooser.DIRECTORIES_ONLY);
+        fc.setDialogTitle("Folder for the tracking results");
+        if (fc.showSaveDialog(ctx.window()) != JFileChooser.APPROVE_OPTION) return;
+        saveTo(fc.getSelectedFile().toPath());
     }
 
-    private void row(String k, String v) { figures.addRow(new Object[]{k, v}); }
+    /** Writes the finished run into {@code dir}; says in the status bar what was written, or why not. */
+    boolean saveTo(Path dir) {
+        ctx.prefs().put("lastTrackFolder", dir.toString());
+        try {
+            List<String> files = history.save(dir);
+            ctx.status().accept("Tracking results written to " + dir + ": " + String.join(", ", files));
+            return true;
+        } catch (Exception e) {
+            ctx.status().accept("Could not write the tracking results: " + e.getMessage());
+            return false;
+        }
+    }
 
+    /** Passes a source through, handing each frame to the history before the tracker's rows for it arrive. */
+    private static final class Peek extends org.targetbench.source.ForwardingSource {
+        private final TrackHistory h;
 
-    /** Passes a source through, keeping the last frame delivered so the view can draw the tracks on it. */
-    private static final class Peek implements FrameSource {
-        private final FrameSource in;
-        volatile boofcv.struct.image.GrayF32 last;
+        Peek(FrameSource in, TrackHistory h) {
+            super(in);
+            this.h = h;
+        }
 
-        Peek(FrameSource in) { this.in = in; }
-
-        @Override public String description() { return in.description(); }
-        @Override public int width() { return in.width(); }
-        @Override public int height() { return in.height(); }
-        @Override public int frameCount() { return in.frameCount(); }
-        @Override public String referenceName() { return in.referenceName(); }
         @Override public java.util.Optional<org.targetbench.source.SourceFrame> next() throws org.targetbench.source.SourceException {
-            var f = in.next();
-            f.ifPresent(x -> last = x.image());
+            var f = source.next();
+            f.ifPresent(x -> h.offer(x.image()));
             return f;
         }
-        @Override public void close() { in.close(); }
     }
 }

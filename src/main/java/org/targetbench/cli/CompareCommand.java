@@ -2,6 +2,7 @@ package org.targetbench.cli;
 
 import org.targetbench.export.AtomicOutput;
 import org.targetbench.export.CompareWriter;
+import org.targetbench.formats.CompareDotBias;
 import org.targetbench.pipeline.CompareResult;
 import org.targetbench.pipeline.CompareRun;
 import org.targetbench.report.OverlayWriter;

@@ -1,4 +1,4 @@
-package org.targetbench.cli;
+package org.targetbench.formats;
 
 import org.targetbench.camera.CameraModel;
 import org.targetbench.camera.Pose;
@@ -19,12 +19,12 @@ import java.util.TreeMap;
 /**
  * The dot bias of a compared frame folder, when the scene is known: {@code target.json}, {@code camera.json} and
  * {@code poses.json} (one pose per frame, in frame order) in the frame folder or in the folder above it, the layout
- * {@code demo} writes. Nothing otherwise.
+ * {@code demo} writes. Nothing otherwise. Shared by the command line's {@code compare} and the workbench's Compare save.
  */
-final class CompareDotBias {
+public final class CompareDotBias {
     private CompareDotBias() {}
 
-    static List<DotBiasTable.Row> rows(Path frames, CompareResult result) throws SourceException {
+    public static List<DotBiasTable.Row> rows(Path frames, CompareResult result) throws SourceException {
         for (Path dir : new Path[]{frames, frames.toAbsolutePath().getParent()}) {
             if (dir == null) continue;
             Path t = dir.resolve("target.json"), c = dir.resolve("camera.json"), p = dir.resolve("poses.json");
