@@ -127,7 +127,7 @@ public final class TargetFile {
         };
     }
 
-    private static FeatureKind parseKind(JsonIn in, String s, String where) throws SourceException {
+    static FeatureKind parseKind(JsonIn in, String s, String where) throws SourceException {
         return switch (s.toLowerCase(Locale.ROOT)) {
             case "x-corner" -> FeatureKind.X_CORNER;
             case "dot-centre" -> FeatureKind.DOT_CENTRE;
