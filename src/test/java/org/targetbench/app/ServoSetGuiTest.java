@@ -211,7 +211,7 @@ class ServoSetGuiTest {
         ServoSet set = GuiActionRunner.execute(() -> workbench.session().servoSet());
         PickRun.Result pick = GuiActionRunner.execute(() -> workbench.session().pick());
         Path dir = tmp.resolve("edited");
-        export(dir);
+        export(dir, true);
         assertEquals(set, ServoSetReader.read(dir.resolve("servo-set.json")));
         Map<Integer, String[]> rows = selectionRows(dir.resolve("servo-set-selection.csv"));
         assertEquals(pick.candidates().size(), rows.size(), "one row per candidate");
@@ -235,7 +235,7 @@ class ServoSetGuiTest {
         // rows do not linger beside it
         assertTrue(GuiActionRunner.execute(() -> workbench.rehearseView().loadSet(dir.resolve("servo-set.json"))));
         WorkbenchGuiTest.waitFor("loaded", () -> workbench.session().pick() == null && workbench.session().servoSet() != null);
-        export(dir);
+        export(dir, false);
         Map<Integer, String[]> again = selectionRows(dir.resolve("servo-set-selection.csv"));
         assertEquals(inSet.keySet(), again.keySet(), "only the set's points");
         for (var e : again.entrySet()) {
@@ -256,18 +256,13 @@ class ServoSetGuiTest {
     }
 
     /** Exports through the window: the safety notice (once per session), the not-rehearsed prompt, the folder chooser. */
-    static void export(Path dir) throws Exception {
+    static void export(Path dir, boolean first) throws Exception {
         Files.createDirectories(dir);
         window.list("nav").selectItem("Export");
         GuiActionRunner.execute(() -> window.label("status").target().setText(" "));
         window.button("export.write").click();
-        for (int i = 0; i < 2; i++) {
-            var pane = window.optionPane(timeout(WorkbenchGuiTest.WAIT_MS));
-            String title = GuiActionRunner.execute(() -> ((javax.swing.JDialog) javax.swing.SwingUtilities.getWindowAncestor(pane.target())).getTitle());
-            WorkbenchGuiTest.press(pane.okButton());
-            WorkbenchGuiTest.awaitDialogsClosed();
-            if (title.equals(ExportView.UNREHEARSED_TITLE)) break;
-        }
+        if (first) answerOk(SAFETY_TITLE);
+        answerOk(ExportView.UNREHEARSED_TITLE);
         var chooser = window.fileChooser(timeout(WorkbenchGuiTest.WAIT_MS)).target();
         GuiActionRunner.execute(() -> {
             chooser.setCurrentDirectory(dir.getParent().toFile());
@@ -275,6 +270,23 @@ class ServoSetGuiTest {
             chooser.approveSelection();
         });
         WorkbenchGuiTest.waitFor("exported", () -> window.label("status").target().getText().startsWith("Exported"));
+    }
+
+    /** Title of the safety notice shown before the first export of a session. */
+    static final String SAFETY_TITLE = "Before exporting a servo set";
+
+    /** Waits for the option pane titled {@code title} and answers OK (what its OK button does). */
+    static void answerOk(String title) {
+        WorkbenchGuiTest.waitFor("dialog '" + title + "'", () -> pane(title) != null);
+        GuiActionRunner.execute(() -> pane(title).setValue(javax.swing.JOptionPane.OK_OPTION));
+        WorkbenchGuiTest.waitFor("dialog '" + title + "' closed", () -> pane(title) == null);
+    }
+
+    private static javax.swing.JOptionPane pane(String title) {
+        for (java.awt.Window w : java.awt.Window.getWindows())
+            if (w instanceof javax.swing.JDialog d && d.isShowing() && title.equals(d.getTitle()))
+                for (javax.swing.JOptionPane p : findAll(d, javax.swing.JOptionPane.class)) return p;
+        return null;
     }
 
     /** Selection rows by candidate id, fields unquoted (CSV as {@code export.Csv} writes it). */
