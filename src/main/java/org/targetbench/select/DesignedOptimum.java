@@ -113,7 +113,9 @@ public final class DesignedOptimum {
         Set<FeatureKind> missingKinds = new LinkedHashSet<>(), filteredKinds = new LinkedHashSet<>();
         Selection.Why firstFilter = null;
         List<Candidate> asCandidates = new ArrayList<>();
-        for (Selection.Chosen ch : best.chosen()) {
+        List<Selection.Chosen> byId = new ArrayList<>(best.chosen());
+        byId.sort(java.util.Comparator.comparingInt(ch -> ch.candidate().featureId()));
+        for (Selection.Chosen ch : byId) {
             int f = ch.candidate().featureId();
             FeatureKind k = design.features().get(f).kind();
             ids.add(f);

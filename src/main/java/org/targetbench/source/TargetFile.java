@@ -119,7 +119,8 @@ public final class TargetFile {
         return d;
     }
 
-    static String kindName(FeatureKind k) {
+    /** The name of a feature kind in the files: x-corner, dot-centre or corner (an L-corner). */
+    public static String kindName(FeatureKind k) {
         return switch (k) {
             case X_CORNER -> "x-corner";
             case DOT_CENTRE -> "dot-centre";
