@@ -83,7 +83,8 @@ class ServoSetGuiTest {
 
     static void choose(String detector) {
         window.list("nav").selectItem("Servo set");
-        window.comboBox("servo.detector").selectItem(detector);
+        GuiActionRunner.execute(() -> window.comboBox("servo.detector").target().setSelectedItem(detector));
+        window.comboBox("servo.detector").requireSelection(detector);
         window.button("servo.choose").click();
         WorkbenchGuiTest.waitFor("set chosen with " + detector, () -> workbench.session().pick() != null
                 && workbench.session().pick().detector().equals(detector) && workbench.session().servoSet() != null);
