@@ -48,7 +48,6 @@ final class XCornerMatcher {
     private static final int GLOBAL_KEEP = 40;
     private static final double HYPOTHESIS_SLOPE = 0.25, HYPOTHESIS_BASE_PX = 3;
 
-    private final TargetDesign design;
     /** The designed x-corners, the only features matched (L-corners and dot centres are predicted, never matched). */
     private final List<TargetFeature> xFeatures;
     private final Optional<CameraModel> camera;
@@ -56,7 +55,6 @@ final class XCornerMatcher {
     private DetectChessboardCornersXPyramid<GrayF32> xcorners;
 
     XCornerMatcher(TargetDesign design, Optional<CameraModel> camera, RegisterConfig config) {
-        this.design = design;
         this.xFeatures = design.features().stream().filter(f -> f.kind() == FeatureKind.X_CORNER).toList();
         this.camera = camera;
         this.config = config;
