@@ -110,7 +110,8 @@ final class DetectionRunner implements Session.Listener {
             List<Detection> found = det.detect(shown);
             points.put(c.type(), found);
             List<Detection> refPts = h.isPresent() ? referenceCache.computeIfAbsent(ref.name() + "/" + c.type(), k -> det.detect(ref.image())) : List.of();
-            FrameScoring.Scored sc = FrameScoring.score(refPts, found, h.map(warp::after), ref.image().width, ref.image().height, truth,
+            FrameScoring.Scored sc = FrameScoring.score(refPts, found, h.map(warp::after), ref.image().width, ref.image().height,
+                    Localisation.findableBy(c.type(), truth),
                     shown.width, shown.height, Repeatability.DEFAULT_EPSILON);
             figures.put(c.type(), new Session.FrameFigures(found.size(), sc.repeatabilityOrNaN(), sc.spread().cellOccupancy(), sc.localisationRmsPx()));
         }

@@ -104,10 +104,10 @@ final class ExportView extends JPanel implements Session.Listener {
         List<String> files = new ArrayList<>();
         try (AtomicOutput out = AtomicOutput.open(dir)) {
             files.addAll(ServoSetFiles.write(set, java.util.Optional.ofNullable(session.rehearsal()), session.rehearsalElapsedS(), out, "servo-set", "rehearsal/"));
-            if (session.pick() != null) {
-                ServoWriters.writeSelection(session.pick().selection(), set, out.file("servo-set-selection.csv"));
-                files.add("servo-set-selection.csv");
-            }
+            // the selection file always comes from the state the set comes from: the choice and its hand edits, or the set alone
+            if (session.pick() != null) ServoWriters.writeSelection(session.pick().selection(), set, out.file("servo-set-selection.csv"));
+            else ServoWriters.writeSelection(set, out.file("servo-set-selection.csv"));
+            files.add("servo-set-selection.csv");
             if (session.rehearsal() != null)
                 for (String f : RehearsalReport.write(session.rehearsal(), set, "servo-set.json", out, "rehearsal/")) files.add("rehearsal/" + f);
             out.commit();

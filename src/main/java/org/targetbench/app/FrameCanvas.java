@@ -183,6 +183,9 @@ public final class FrameCanvas extends JComponent {
         repaint();
     }
 
+    /** The markers drawn now. */
+    List<Marker> markers() { return markers; }
+
     /** Called with the image pixel (pixel-centre convention) of a single click. */
     public void onClick(Consumer<Point2D> listener) { clickListener = listener; }
 

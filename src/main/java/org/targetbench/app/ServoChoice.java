@@ -73,6 +73,18 @@ final class ServoChoice {
         return set.withPoints(pts);
     }
 
+    /**
+     * "NOTE: designed features ... would give cond(L*) ..., but ...": the better-conditioned set of the design's own
+     * features the selection did not take, and why ({@link org.targetbench.select.DesignedOptimum}); null when there is
+     * none or the set as it stands (hand edits included) is already as well conditioned.
+     */
+    static String betterDesignedNote(PickRun.Result pick, ServoSet set) {
+        if (pick == null || set == null || pick.betterDesigned().isEmpty()) return null;
+        var b = pick.betterDesigned().get();
+        if (!(b.condition() < set.condition() * (1 - org.targetbench.select.DesignedOptimum.MARGIN))) return null;
+        return "NOTE: " + Reasons.betterDesigned(b, pick.detector());
+    }
+
     /** The candidate nearest to an image point within {@code radius} px, or null. */
     static Candidate nearest(List<Candidate> candidates, double x, double y, double radius) {
         return candidates.stream().filter(c -> Math.hypot(c.u() - x, c.v() - y) <= radius)

@@ -230,6 +230,8 @@ final class ServoView extends JPanel implements Session.Listener {
         for (ServoPoint p : failing) lines.add("WARN: point #" + p.id() + " was added by hand and failed a filter: "
                 + Reasons.rejected(ServoChoice.failedFilter(pick.selection().rejected(), p.id())));
         f.forEach(x -> lines.add(x.severity() + ": " + Reasons.finding(x)));
+        String better = ServoChoice.betterDesignedNote(pick, set);
+        if (better != null) lines.add(better);
         findings.setText(lines.isEmpty() ? "No warnings." : "<html>" + String.join("<br>", lines) + "</html>");
         for (ServoPoint p : set.points())
             chosen.addRow(new Object[]{p.id(), Ui.fmt(p.u(), 2), Ui.fmt(p.v(), 2), Ui.fmt(p.zM(), 4), p.reason()});

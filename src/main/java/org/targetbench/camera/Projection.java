@@ -2,11 +2,13 @@ package org.targetbench.camera;
 
 import boofcv.struct.distort.Point2Transform2_F64;
 import georegression.struct.point.Point2D_F64;
+import org.targetbench.target.FeatureKind;
 import org.targetbench.target.TargetDesign;
 import org.targetbench.target.TargetFeature;
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Optional;
 
 /**
  * Projection of planar target points through a pose and a camera, and the plane-induced homography between two
@@ -15,8 +17,30 @@ import java.util.List;
 public final class Projection {
     private Projection() {}
 
-    /** A target feature as seen in one image. {@code depthM} is the camera-frame Z in metres. */
-    public record ProjectedFeature(int featureId, double u, double v, double depthM) {}
+    /**
+     * A target feature as seen in one image. {@code depthM} is the camera-frame Z in metres; {@code kind} what the
+     * feature looks like, empty when unknown (a truth file that does not say), in which case every detector is judged on it.
+     */
+    public record ProjectedFeature(int featureId, double u, double v, double depthM, Optional<FeatureKind> kind) {
+        public ProjectedFeature {
+            kind = kind == null ? Optional.empty() : kind;
+        }
+
+        /** A feature of unknown kind. */
+        public ProjectedFeature(int featureId, double u, double v, double depthM) {
+            this(featureId, u, v, depthM, Optional.empty());
+        }
+
+        /** A feature of a known kind. */
+        public ProjectedFeature(int featureId, double u, double v, double depthM, FeatureKind kind) {
+            this(featureId, u, v, depthM, Optional.of(kind));
+        }
+
+        /** The same feature at another pixel. */
+        public ProjectedFeature at(double u, double v) {
+            return new ProjectedFeature(featureId, u, v, depthM, kind);
+        }
+    }
 
     /**
      * Pixel of each target feature that is drawn ({@link org.targetbench.target.FeatureVisibility}), lies in front of the
@@ -31,7 +55,7 @@ public final class Projection {
             double[] pc = pose.targetToCamera(f.xMm(), f.yMm());
             if (!(pc[2] > 0)) continue;
             toPixel.compute(pc[0] / pc[2], pc[1] / pc[2], px);
-            if (camera.inImage(px.x, px.y)) out.add(new ProjectedFeature(f.id(), px.x, px.y, pc[2]));
+            if (camera.inImage(px.x, px.y)) out.add(new ProjectedFeature(f.id(), px.x, px.y, pc[2], f.kind()));
         }
         return out;
     }

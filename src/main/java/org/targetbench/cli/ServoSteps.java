@@ -72,6 +72,7 @@ final class ServoSteps {
         String b = Reasons.tally(why, true);
         w.println("Rejected " + s.rejected().size() + " candidates" + (b.isEmpty() ? "" : " (" + b + ")") + "; every reason is in the selection CSV.");
         for (SetDiagnostics.Finding f : SetDiagnostics.check(set.points())) w.println("Warning: " + Reasons.finding(f));
+        r.betterDesigned().ifPresent(x -> w.println("Note: " + Reasons.betterDesigned(x, r.detector()) + "."));
     }
 
     /** Refuses sets that must not be rehearsed (fewer than 4 points, collinear), with one line naming the file. */

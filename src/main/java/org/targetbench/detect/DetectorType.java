@@ -1,5 +1,7 @@
 package org.targetbench.detect;
 
+import org.targetbench.target.FeatureKind;
+
 import java.util.Arrays;
 import java.util.Locale;
 import java.util.stream.Collectors;
@@ -34,6 +36,21 @@ public enum DetectorType {
 
     /** True for the detectors built for one kind of target feature (dots, x-corners) rather than for any texture. */
     public boolean designMatched() { return this == DOTS || this == XCORNER; }
+
+    /**
+     * Whether this detector is built to find designed features of kind {@code k}. A design-matched detector finds its
+     * own kind only: the x-corner saddle detector no L-corner or dot centre (an L-corner has no saddle), the dot
+     * detector no corner (derived from what each responds to). The generic detectors are built for no designed kind
+     * in particular and are judged on every designed feature, as before L-corners were listed. Scores that count found
+     * truth (localisation error and the fraction of true features found) count only the kinds a detector finds.
+     */
+    public boolean finds(FeatureKind k) {
+        return switch (this) {
+            case XCORNER -> k == FeatureKind.X_CORNER;
+            case DOTS -> k == FeatureKind.DOT_CENTRE;
+            default -> true;
+        };
+    }
 
     /** Name shown to people. */
     public String label() { return label; }

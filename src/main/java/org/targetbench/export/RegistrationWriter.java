@@ -37,11 +37,11 @@ public final class RegistrationWriter {
             }
         }
         try (PrintWriter w = new PrintWriter(Files.newBufferedWriter(registeredCsv, StandardCharsets.UTF_8))) {
-            w.println("frame,feature_id,target_x_mm,target_y_mm,x,y");
+            w.println("frame,feature_id,target_x_mm,target_y_mm,x,y,kind");
             for (RegisterRun.Frame f : result.frames())
                 for (Registration.PredictedFeature p : f.registration().predicted())
                     w.println(Csv.text(f.name()) + "," + p.featureId() + "," + Csv.num(p.xMm(), 4) + "," + Csv.num(p.yMm(), 4) + ","
-                            + Csv.num(p.u(), 4) + "," + Csv.num(p.v(), 4));
+                            + Csv.num(p.u(), 4) + "," + Csv.num(p.v(), 4) + "," + org.targetbench.source.TargetFile.kindName(p.kind()));
         }
     }
 

@@ -74,6 +74,23 @@ public final class ServoWriters {
         }
     }
 
+    /**
+     * The selection file of a set with no choice behind it (read from a file): every point "chosen" with the reason it
+     * carries, and nothing else, so that an earlier selection file in the folder is replaced and never contradicts the
+     * set. The re-detection counts are unknown and left empty.
+     */
+    public static void writeSelection(org.targetbench.servo.ServoSet set, Path file) throws IOException {
+        try (BufferedWriter w = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
+            w.write(SELECTION_HEADER + "\n");
+            for (org.targetbench.servo.ServoPoint p : set.points()) {
+                var r = p.robustness();
+                w.write(p.id() + "," + Csv.num(p.u(), 3) + "," + Csv.num(p.v(), 3) + ",chosen," + Csv.text(p.reason()) + "," + opt(r.repeatability(), 4)
+                        + ",,," + opt(r.localisationErrorPx(), 4) + "," + opt(r.trackSurvival(), 4) + "," + opt(r.jitterPx(), 4) + ","
+                        + Csv.num(p.zM(), 6) + "," + Csv.num(p.targetXMm(), 3) + "," + Csv.num(p.targetYMm(), 3) + "," + p.featureId() + "\n");
+            }
+        }
+    }
+
     private static void row(BufferedWriter w, Candidate c, String status, String reason) throws IOException {
         var r = c.robustness();
         w.write(c.id() + "," + Csv.num(c.u(), 3) + "," + Csv.num(c.v(), 3) + "," + status + "," + Csv.text(reason) + "," + opt(r.repeatability(), 4) + ","

@@ -2,6 +2,7 @@ package org.targetbench.pipeline;
 
 import org.targetbench.camera.CameraModel;
 import org.targetbench.camera.Homography;
+import org.targetbench.camera.Projection.ProjectedFeature;
 import org.targetbench.detect.Detection;
 import org.targetbench.detect.DetectorConfig;
 import org.targetbench.detect.DetectorType;
@@ -169,14 +170,15 @@ public final class CompareRun {
             for (Raw r : list) {
                 FrameInfo f = r.frame();
                 Optional<Homography> hm = f == ref ? Optional.empty() : f.truth().fromReference();
-                FrameScoring.Scored sc = FrameScoring.score(refDet, r.detections(), hm, w, h, f.truth().features(), w, h, epsilon);
+                List<ProjectedFeature> findable = Localisation.findableBy(r.type(), f.truth().features());
+                FrameScoring.Scored sc = FrameScoring.score(refDet, r.detections(), hm, w, h, findable, w, h, epsilon);
                 if (f != ref && hm.isEmpty() && undistortedH.containsKey(f.name()))
                     sc = sc.withRepeatability(Repeatability.score(undistorted(refDet), undistorted(r.detections()), undistortedH.get(f.name()),
                             w, h, w, h, epsilon));
                 sc.repeatability().ifPresent(rr -> rr.repeatability().ifPresent(reps::add));
                 if (sc.localisation().isPresent()) {
                     dists.add(sc.locDistances());
-                    nTrue += f.truth().features().size();
+                    nTrue += findable.size();
                 }
                 var spread = sc.spread();
                 scores.add(new FrameScore(r.type(), f.index(), f.name(), r.detections(), sc.repeatability(), sc.localisation(), sc.locDistances(), spread));

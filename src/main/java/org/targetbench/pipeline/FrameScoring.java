@@ -51,7 +51,8 @@ public final class FrameScoring {
      * @param found         the points on this frame
      * @param fromReference maps reference pixels to this frame's pixels; empty for no repeatability
      * @param refWidth      reference frame width, pixels (likewise height)
-     * @param truth         true feature positions in this frame (may be empty)
+     * @param truth         true feature positions in this frame that the detector is built to find
+     *                      ({@link Localisation#findableBy}; may be empty)
      * @param width         this frame's width, pixels (likewise height)
      * @param epsilon       match radius, pixels
      */

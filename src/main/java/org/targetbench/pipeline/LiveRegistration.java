@@ -51,7 +51,7 @@ public final class LiveRegistration implements LiveScoring.Registration {
         last = Optional.of(r.note());
         if (!r.registered()) return Optional.empty();
         List<ProjectedFeature> pts = new ArrayList<>();
-        for (Registration.PredictedFeature p : r.predicted()) pts.add(new ProjectedFeature(p.featureId(), p.u(), p.v(), p.depthM()));
+        for (Registration.PredictedFeature p : r.predicted()) pts.add(new ProjectedFeature(p.featureId(), p.u(), p.v(), p.depthM(), p.kind()));
         return Optional.of(new FrameTruth(r.designToImage(), pts));
     }
 

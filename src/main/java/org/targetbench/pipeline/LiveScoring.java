@@ -132,8 +132,9 @@ public final class LiveScoring {
                         frame.width, frame.height, Repeatability.DEFAULT_EPSILON).repeatability().orElse(Double.NaN);
             }
             double loc = Double.NaN, share = Double.NaN;
-            if (truth.isPresent() && !truth.get().features().isEmpty()) {
-                LocalisationResult l = Localisation.score(truth.get().features(), found, Localisation.DEFAULT_RADIUS);
+            var findable = truth.isPresent() ? Localisation.findableBy(e.getKey(), truth.get().features()) : List.<org.targetbench.camera.Projection.ProjectedFeature>of();
+            if (!findable.isEmpty()) {
+                LocalisationResult l = Localisation.score(findable, found, Localisation.DEFAULT_RADIUS);
                 loc = l.rmsPx();
                 share = l.foundFraction();
             }

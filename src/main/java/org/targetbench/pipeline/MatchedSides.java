@@ -59,9 +59,10 @@ final class MatchedSides {
         for (int k = 0; k < views.size(); k++) {
             List<Detection> found = det.detect(views.get(k).image());
             if (k == 0) square = found;
-            for (double v : Localisation.distances(views.get(k).features(), found, Localisation.DEFAULT_RADIUS)) if (!Double.isNaN(v)) raw.add(v);
+            var truth = Localisation.findableBy(config.type(), views.get(k).features());
+            for (double v : Localisation.distances(truth, found, Localisation.DEFAULT_RADIUS)) if (!Double.isNaN(v)) raw.add(v);
             if (dots)
-                for (double v : Localisation.distances(views.get(k).features(), DotBiasCorrection.correct(found, design, camera, poses.get(k)),
+                for (double v : Localisation.distances(truth, DotBiasCorrection.correct(found, design, camera, poses.get(k)),
                         Localisation.DEFAULT_RADIUS)) if (!Double.isNaN(v)) corrected.add(v);
         }
         double score = Double.NaN;

@@ -10,6 +10,7 @@ import org.targetbench.detect.Detection;
 import org.targetbench.select.Candidate;
 import org.targetbench.select.CandidateConfig;
 import org.targetbench.select.Candidates;
+import org.targetbench.select.DesignedOptimum;
 import org.targetbench.select.Selection;
 import org.targetbench.select.SelectConfig;
 import org.targetbench.select.ServoPointSelector;
@@ -44,9 +45,15 @@ public final class PickRun {
 
     /**
      * Everything a pick produced. {@code set} is empty when the selection found no acceptable set (see its outcome).
+     * {@code betterDesigned} names a set of the design's own features that conditions better than the chosen one and
+     * why it was not taken ({@link DesignedOptimum}); empty when the choice is as good or the design is unknown.
      */
     public record Result(String detector, List<Candidate> candidates, Selection selection, Optional<ServoSet> set,
-                         String poseMethod) {}
+                         String poseMethod, Optional<DesignedOptimum.Better> betterDesigned) {
+        public Result(String detector, List<Candidate> candidates, Selection selection, Optional<ServoSet> set, String poseMethod) {
+            this(detector, candidates, selection, set, poseMethod, Optional.empty());
+        }
+    }
 
     /**
      * What a pick starts from: one comparison's detections and what is known of its scene.
@@ -227,6 +234,9 @@ public final class PickRun {
         }
         Selection sel = ServoPointSelector.select(cands, camera.width(), camera.height(), sc);
         if (sel.outcome() != Selection.Outcome.SELECTED) return new Result(detector, cands, sel, Optional.empty(), poseMethod);
+        List<Candidate> candsFinal = cands;
+        Optional<DesignedOptimum.Better> better = design.flatMap(d -> DesignedOptimum.check(sel, candsFinal, DesignedOptimum.designedPoints(d, camera, pose),
+                d, camera.width(), camera.height(), sc));
         List<ServoPoint> pts = new ArrayList<>();
         for (Selection.Chosen ch : sel.chosen()) {
             pts.add(ServoPoint.of(ch.candidate(), Reasons.chosen(ch)));
@@ -235,7 +245,7 @@ public final class PickRun {
         ServoSet set = new ServoSet(toolVersion, created, camera, design.map(TargetDesign::id).orElse("unknown"), designRef,
                 Optional.of(pose), poseMethod, detector, data.detectorSettings().getOrDefault(detector, "{}"), trackerNote, pts,
                 sel.condition(), sel.sigmaMin());
-        return new Result(detector, cands, sel, Optional.of(set), poseMethod);
+        return new Result(detector, cands, sel, Optional.of(set), poseMethod, better);
     }
 
     private static String jsonString(String s) {

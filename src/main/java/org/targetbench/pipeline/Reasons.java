@@ -1,7 +1,9 @@
 package org.targetbench.pipeline;
 
 import org.targetbench.camera.Calibration;
+import org.targetbench.select.DesignedOptimum;
 import org.targetbench.select.Selection;
+import org.targetbench.target.FeatureKind;
 import org.targetbench.servo.ControlLaw;
 import org.targetbench.servo.RehearsalResult;
 import org.targetbench.servo.RehearsalWarning;
@@ -90,6 +92,41 @@ public final class Reasons {
                     r.pointId(), fmt(r.value()), r.swapObjective(), r.limit());
             case SET_REFUSED -> "passes the filters; " + r.refusal().map(Reasons::refusal).orElse("no acceptable servo set");
         };
+    }
+
+    /**
+     * Why a better-conditioned set of the design's own features was not chosen, e.g. "designed features 48, 57, 70, 79
+     * (L-corners) would give cond(L*) 37.96 instead of 66.37, but the xcorner detector found nothing on 48, 57, 70, 79
+     * (L-corners): choose a detector that finds them". Feature ids are the design's, not candidate ids.
+     */
+    public static String betterDesigned(DesignedOptimum.Better b, String detector) {
+        String set = String.format(Locale.ROOT, "designed features %s (%s) would give cond(L*) %.2f instead of %.2f", ids(b.featureIds()),
+                kinds(new java.util.LinkedHashSet<>(b.kinds())), b.condition(), b.chosenCondition());
+        return set + switch (b.why()) {
+            case NOT_DETECTED -> String.format(Locale.ROOT, ", but the %s detector found nothing on %s (%s): choose a detector that finds them",
+                    detector, ids(b.blocking()), kinds(b.blockingKinds()));
+            case FILTERED -> String.format(Locale.ROOT, ", but the candidates on %s (%s) failed a filter (%s): see their rows for the figures",
+                    ids(b.blocking()), kinds(b.blockingKinds()), b.filter().map(Reasons::filterName).orElse("a filter"));
+            case OBJECTIVE -> ", but the chosen set scores better once image coverage is weighed in (objective log10 cond(L*) - w · coverage)";
+            case SEARCH -> ", and it scores better on the objective too: the greedy search did not reach it; add its points by hand";
+        };
+    }
+
+    private static String ids(List<Integer> ids) {
+        List<String> s = new ArrayList<>();
+        for (int i : ids) s.add(Integer.toString(i));
+        return String.join(", ", s);
+    }
+
+    /** "L-corners and x-corners". */
+    public static String kinds(java.util.Set<FeatureKind> ks) {
+        List<String> s = new ArrayList<>();
+        for (FeatureKind k : ks) s.add(switch (k) {
+            case X_CORNER -> "x-corners";
+            case CORNER -> "L-corners";
+            case DOT_CENTRE -> "dot centres";
+        });
+        return String.join(" and ", s);
     }
 
     /** A short group name for a rejection, for one-line tallies. */

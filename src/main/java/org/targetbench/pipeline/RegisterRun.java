@@ -96,7 +96,7 @@ public final class RegisterRun {
             Registration r = fr.registration();
             if (!r.registered()) continue;
             List<ProjectedFeature> pts = new ArrayList<>();
-            for (Registration.PredictedFeature p : r.predicted()) pts.add(new ProjectedFeature(p.featureId(), p.u(), p.v(), p.depthM()));
+            for (Registration.PredictedFeature p : r.predicted()) pts.add(new ProjectedFeature(p.featureId(), p.u(), p.v(), p.depthM(), p.kind()));
             Optional<Homography> h = distorted ? Optional.empty() : Optional.of(r.designToImage().orElseThrow().after(gRefInv).normalised());
             out.put(fr.name(), new FrameTruth(h, pts));
         }

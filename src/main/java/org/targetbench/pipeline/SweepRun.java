@@ -150,7 +150,7 @@ public final class SweepRun {
             PointDetector det = detectors.get(d).get();
             List<Detection> found = det.detect(image);
             FrameScoring.Scored sc = FrameScoring.score(ref[d][c.frame()], found, Optional.of(warp), bf.image().width, bf.image().height,
-                    truth, image.width, image.height, config.epsilon);
+                    Localisation.findableBy(det.type(), truth), image.width, image.height, config.epsilon);
             double survival = config.trackFrames > 0 ? survival(c, bf, image, found, perturber, seed) : Double.NaN;
             out.add(new SweepRow(det.type(), c.p(), c.level(), c.value(), c.frame(), sc.repeatability().orElseThrow().repeatability(),
                     sc.localisationRmsPx(), found.size(), sc.spread().cellOccupancy(), survival));
@@ -207,7 +207,7 @@ public final class SweepRun {
         List<ProjectedFeature> out = new ArrayList<>();
         for (ProjectedFeature f : truth) {
             double[] m = warp.apply(f.u(), f.v());
-            if (m[0] >= 0 && m[1] >= 0 && m[0] <= w - 1 && m[1] <= h - 1) out.add(new ProjectedFeature(f.featureId(), m[0], m[1], f.depthM()));
+            if (m[0] >= 0 && m[1] >= 0 && m[0] <= w - 1 && m[1] <= h - 1) out.add(f.at(m[0], m[1]));
         }
         return out;
     }

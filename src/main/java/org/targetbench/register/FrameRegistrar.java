@@ -29,7 +29,8 @@ import java.util.Optional;
  *
  * <p>Method, per frame:
  * <ol>
- *   <li><b>Correspondences.</b> Designs with a grid finder (checkerboard, dot grid, square grid) use it
+ *   <li><b>Correspondences.</b> Only x-corners, dot centres or the grid finder's anchors are matched; every designed
+ *   feature, the outer L-corners of a checkerboard included, is predicted from the fitted model. Designs with a grid finder (checkerboard, dot grid, square grid) use it
  *   ({@link GridFinder}, BoofCV [1]). Designs of x-corners without one (random x-corner fields, marker grids, and
  *   checkerboards whose grid finder failed, e.g. partly out of view) match BoofCV's x-corner candidates [2] to the
  *   designed features: first around the previous frame's prediction; failing that (or on the first frame) by a
@@ -97,7 +98,7 @@ public final class FrameRegistrar {
         this.camera = camera;
         this.config = config.copy();
         this.grid = GridFinder.forDesign(design);
-        this.xcornerDesign = !design.features().isEmpty() && design.features().stream().allMatch(f -> f.kind() == FeatureKind.X_CORNER);
+        this.xcornerDesign = design.features().stream().anyMatch(f -> f.kind() == FeatureKind.X_CORNER);
         this.matcher = new XCornerMatcher(design, camera, this.config);
         this.symmetries = symmetries(design);
     }
@@ -340,7 +341,7 @@ public final class FrameRegistrar {
             if (!Double.isFinite(p[0]) || !Double.isFinite(p[1])) continue;
             if (p[0] < -0.5 || p[1] < -0.5 || p[0] > imageW - 0.5 || p[1] > imageH - 0.5) continue;
             double z = f.pose.map(pose -> pose.targetToCamera(t.xMm(), t.yMm())[2]).orElse(Double.NaN);
-            out.add(new Registration.PredictedFeature(t.id(), t.xMm(), t.yMm(), p[0], p[1], z));
+            out.add(new Registration.PredictedFeature(t.id(), t.xMm(), t.yMm(), p[0], p[1], z, t.kind()));
         }
         return out;
     }
@@ -351,8 +352,12 @@ public final class FrameRegistrar {
     private boolean enoughInView(Fit f) {
         boolean designed = f.matches.stream().allMatch(m -> m.featureId() >= 0);
         if (!designed) return true; // a grid finder found its whole grid
+        // only the kinds that were matched count (a checkerboard's outer L-corners are predicted, never matched)
+        java.util.EnumSet<FeatureKind> matched = java.util.EnumSet.noneOf(FeatureKind.class);
+        for (Match m : f.matches) matched.add(design.features().get(m.featureId()).kind());
         int inView = 0;
         for (TargetFeature t : design.features()) {
+            if (!matched.contains(t.kind())) continue;
             double[] p = project(f, t.xMm(), t.yMm());
             if (p[0] >= -0.5 && p[1] >= -0.5 && p[0] <= imageW - 0.5 && p[1] <= imageH - 0.5) inView++;
         }

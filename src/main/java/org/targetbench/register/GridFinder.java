@@ -9,6 +9,7 @@ import boofcv.factory.fiducial.FactoryFiducialCalibration;
 import boofcv.struct.geo.PointIndex2D_F64;
 import boofcv.struct.image.GrayF32;
 import georegression.struct.point.Point2D_F64;
+import org.targetbench.target.FeatureKind;
 import org.targetbench.target.TargetDesign;
 import org.targetbench.target.TargetFeature;
 
@@ -22,7 +23,8 @@ import java.util.Optional;
  * designs (the one {@code calibrate} uses), the regular circle-grid finder for {@code dots} and the square-grid finder
  * for {@code squares}. The finder reports its key points with indices into its own layout; the layout is tied to
  * the design's millimetres by the one turn or mirror of the layout (about its centroid) that lays its anchors (the
- * inner corners, dot centres or square corners) onto the designed features. A symmetric layout fits in several ways:
+ * inner corners, dot centres or square corners) onto the designed features of that kind (a checkerboard's outer
+ * L-corners are no anchors). A symmetric layout fits in several ways:
  * each is returned, and {@link FrameRegistrar} keeps the one the image and the page facing the camera agree with.
  *
  * <p>For a dot grid the key points are the circles' tangent points, which a perspective view keeps exactly (a
@@ -49,26 +51,31 @@ final class GridFinder {
 
     private final DetectSingleFiducialCalibration detector;
     private final double offset;
+    /** The kind of designed feature the layout's anchors are (inner x-corners, square corners, dot centres). */
+    private final FeatureKind anchorKind;
     /** Layout key points in design millimetres, one list per way the layout fits the design. */
     private final List<double[][]> layouts = new ArrayList<>();
 
     private GridFinder(DetectSingleFiducialCalibration detector, double offset, List<Point2D_F64> layout,
-                       List<double[]> layoutAnchors, TargetDesign design) {
+                       List<double[]> layoutAnchors, TargetDesign design, FeatureKind anchorKind) {
         this.detector = detector;
         this.offset = offset;
+        this.anchorKind = anchorKind;
+        List<TargetFeature> anchors = design.features().stream().filter(f -> f.kind() == anchorKind).toList();
+        if (anchors.isEmpty()) return;
         double lx = 0, ly = 0, dx = 0, dy = 0;
         for (double[] a : layoutAnchors) { lx += a[0]; ly += a[1]; }
-        for (TargetFeature f : design.features()) { dx += f.xMm(); dy += f.yMm(); }
+        for (TargetFeature f : anchors) { dx += f.xMm(); dy += f.yMm(); }
         lx /= layoutAnchors.size(); ly /= layoutAnchors.size();
-        dx /= design.features().size(); dy /= design.features().size();
+        dx /= anchors.size(); dy /= anchors.size();
         int[][] turns = {{1, 0, 0, 1}, {0, -1, 1, 0}, {-1, 0, 0, -1}, {0, 1, -1, 0},
                 {1, 0, 0, -1}, {0, 1, 1, 0}, {-1, 0, 0, 1}, {0, -1, -1, 0}};
         for (int[] a : turns) {
-            boolean fits = layoutAnchors.size() == design.features().size();
+            boolean fits = layoutAnchors.size() == anchors.size();
             for (double[] p : layoutAnchors) {
                 if (!fits) break;
                 double x = a[0] * (p[0] - lx) + a[1] * (p[1] - ly) + dx, y = a[2] * (p[0] - lx) + a[3] * (p[1] - ly) + dy;
-                fits = nearestFeature(design, x, y) >= 0;
+                fits = nearestFeature(design, x, y, anchorKind) >= 0;
             }
             if (!fits) continue;
             double[][] mm = new double[layout.size()][];
@@ -88,13 +95,13 @@ final class GridFinder {
                 case "checkerboard" -> {
                     int rows = num(p, "rows").intValue(), cols = num(p, "cols").intValue();
                     var d = FactoryFiducialCalibration.chessboardX(null, new ConfigGridDimen(rows, cols, num(p, "square_mm").doubleValue()));
-                    return usable(new GridFinder(d, CHESS_OFFSET_PX, d.getLayout(), xy(d.getLayout()), design));
+                    return usable(new GridFinder(d, CHESS_OFFSET_PX, d.getLayout(), xy(d.getLayout()), design, FeatureKind.X_CORNER));
                 }
                 case "squares" -> {
                     int rows = num(p, "rows").intValue(), cols = num(p, "cols").intValue();
                     double sq = num(p, "square_mm").doubleValue(), pitch = num(p, "pitch_mm").doubleValue();
                     var d = FactoryFiducialCalibration.squareGrid(new ConfigSquareGrid(), new ConfigGridDimen(rows, cols, sq, pitch - sq));
-                    return usable(new GridFinder(d, SQUARE_OFFSET_PX, d.getLayout(), xy(d.getLayout()), design));
+                    return usable(new GridFinder(d, SQUARE_OFFSET_PX, d.getLayout(), xy(d.getLayout()), design, FeatureKind.CORNER));
                 }
                 case "dots" -> {
                     int rows = num(p, "rows").intValue(), cols = num(p, "cols").intValue();
@@ -107,7 +114,7 @@ final class GridFinder {
                         for (int k = 0; k < 4; k++) { x += layout.get(i + k).x; y += layout.get(i + k).y; }
                         centres.add(new double[]{x / 4, y / 4});
                     }
-                    return usable(new GridFinder(d, CIRCLE_OFFSET_PX, layout, centres, design));
+                    return usable(new GridFinder(d, CIRCLE_OFFSET_PX, layout, centres, design, FeatureKind.DOT_CENTRE));
                 }
                 default -> { return Optional.empty(); }
             }
@@ -133,9 +140,9 @@ final class GridFinder {
         return out;
     }
 
-    private static int nearestFeature(TargetDesign design, double x, double y) {
+    private static int nearestFeature(TargetDesign design, double x, double y, FeatureKind kind) {
         for (TargetFeature f : design.features())
-            if (Math.abs(f.xMm() - x) < LAYOUT_TOL_MM && Math.abs(f.yMm() - y) < LAYOUT_TOL_MM) return f.id();
+            if (f.kind() == kind && Math.abs(f.xMm() - x) < LAYOUT_TOL_MM && Math.abs(f.yMm() - y) < LAYOUT_TOL_MM) return f.id();
         return -1;
     }
 
@@ -152,7 +159,7 @@ final class GridFinder {
             List<Match> ms = new ArrayList<>();
             for (PointIndex2D_F64 p : obs.points) {
                 double[] d = mm[p.index];
-                ms.add(new Match(d[0], d[1], p.p.x - offset, p.p.y - offset, nearestFeature(design, d[0], d[1])));
+                ms.add(new Match(d[0], d[1], p.p.x - offset, p.p.y - offset, nearestFeature(design, d[0], d[1], anchorKind)));
             }
             out.add(ms);
         }

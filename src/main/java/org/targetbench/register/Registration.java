@@ -42,6 +42,8 @@ public record Registration(RegistrationNote note, Optional<Pose> pose, Optional<
      * @param u         pixel x (pixel-centre convention)
      * @param v         pixel y
      * @param depthM    camera-frame depth, metres; NaN without intrinsics
+     * @param kind      what the designed feature looks like (every kind is predicted; only x-corners are matched)
      */
-    public record PredictedFeature(int featureId, double xMm, double yMm, double u, double v, double depthM) {}
+    public record PredictedFeature(int featureId, double xMm, double yMm, double u, double v, double depthM,
+                                   org.targetbench.target.FeatureKind kind) {}
 }

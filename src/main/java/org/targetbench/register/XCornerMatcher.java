@@ -9,6 +9,7 @@ import georegression.struct.point.Point2D_F64;
 import org.targetbench.camera.CameraModel;
 import org.targetbench.camera.Homography;
 import org.targetbench.target.TargetDesign;
+import org.targetbench.target.FeatureKind;
 import org.targetbench.target.TargetFeature;
 
 import java.util.ArrayList;
@@ -47,13 +48,14 @@ final class XCornerMatcher {
     private static final int GLOBAL_KEEP = 40;
     private static final double HYPOTHESIS_SLOPE = 0.25, HYPOTHESIS_BASE_PX = 3;
 
-    private final TargetDesign design;
+    /** The designed x-corners, the only features matched (L-corners and dot centres are predicted, never matched). */
+    private final List<TargetFeature> xFeatures;
     private final Optional<CameraModel> camera;
     private final RegisterConfig config;
     private DetectChessboardCornersXPyramid<GrayF32> xcorners;
 
     XCornerMatcher(TargetDesign design, Optional<CameraModel> camera, RegisterConfig config) {
-        this.design = design;
+        this.xFeatures = design.features().stream().filter(f -> f.kind() == FeatureKind.X_CORNER).toList();
         this.camera = camera;
         this.config = config;
     }
@@ -67,7 +69,7 @@ final class XCornerMatcher {
         xcorners.process(image);
         List<ChessboardCorner> found = new ArrayList<>(xcorners.getCorners().toList());
         found.sort(Comparator.comparingDouble((ChessboardCorner c) -> -c.intensity));
-        int keepCandidates = Math.max(config.maxCandidates, design.features().size() + design.features().size() / 2);
+        int keepCandidates = Math.max(config.maxCandidates, xFeatures.size() + xFeatures.size() / 2);
         if (found.size() > keepCandidates) found = new ArrayList<>(found.subList(0, keepCandidates));
         // raw pixels (pixel-centre convention) and working pixels (undistorted when intrinsics are given)
         int n = found.size();
@@ -105,7 +107,7 @@ final class XCornerMatcher {
     private List<Match> toMatches(List<int[]> m, double[][] raw) {
         List<Match> ms = new ArrayList<>();
         for (int[] fm : m) {
-            TargetFeature t = design.features().get(fm[0]);
+            TargetFeature t = xFeatures.get(fm[0]);
             ms.add(new Match(t.xMm(), t.yMm(), raw[fm[1]][0], raw[fm[1]][1], t.id()));
         }
         return ms;
@@ -120,7 +122,7 @@ final class XCornerMatcher {
             if (m.size() < 4) return m;
             List<double[]> from = new ArrayList<>(), to = new ArrayList<>();
             for (int[] fm : m) {
-                TargetFeature t = design.features().get(fm[0]);
+                TargetFeature t = xFeatures.get(fm[0]);
                 from.add(new double[]{t.xMm(), t.yMm()});
                 to.add(work[fm[1]]);
             }
@@ -134,7 +136,7 @@ final class XCornerMatcher {
     /** One-to-one matches (feature index, candidate index) within the radius, closest pairs first. */
     private List<int[]> assign(Homography h, double[][] work, double radius) {
         List<double[]> pairs = new ArrayList<>();
-        List<TargetFeature> fs = design.features();
+        List<TargetFeature> fs = xFeatures;
         for (int f = 0; f < fs.size(); f++) {
             double[] p = h.apply(fs.get(f).xMm(), fs.get(f).yMm());
             for (int c = 0; c < work.length; c++) {
@@ -160,7 +162,7 @@ final class XCornerMatcher {
      * of the best few hypotheses.
      */
     private List<List<int[]>> globalHypotheses(double[][] work, int n) {
-        List<TargetFeature> fs = design.features();
+        List<TargetFeature> fs = xFeatures;
         int m = fs.size();
         final int keep = GLOBAL_KEEP;
         List<Object[]> best = new ArrayList<>(); // {score, matches}

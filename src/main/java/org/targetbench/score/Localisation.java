@@ -2,6 +2,7 @@ package org.targetbench.score;
 
 import org.targetbench.camera.Projection.ProjectedFeature;
 import org.targetbench.detect.Detection;
+import org.targetbench.detect.DetectorType;
 
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -11,7 +12,8 @@ import java.util.List;
  * How close detections come to the true positions of designed features: for each true feature, the distance to the
  * nearest detection within {@value #DEFAULT_RADIUS} px counts as found; RMS, median and 95th percentile over the found
  * ones, and the fraction found. A detection may serve more than one true feature (features closer than the radius are
- * a design fault the feasibility check reports, not a scoring matter).
+ * a design fault the feasibility check reports, not a scoring matter). Callers pass the true features the detector is
+ * built to find ({@link #findableBy}).
  */
 public final class Localisation {
     /** Search radius around each true feature, pixels. */
@@ -21,6 +23,17 @@ public final class Localisation {
 
     public static LocalisationResult score(List<ProjectedFeature> truth, List<Detection> detections, double radius) {
         return summarise(distances(truth, detections, radius), truth.size());
+    }
+
+    /**
+     * The true features a detector of type {@code t} is built to find ({@link DetectorType#finds}): an x-corner
+     * detector is not held to a checkerboard's outer L-corners, nor a dot detector to corners. Features of unknown
+     * kind count for every detector. Localisation and the fraction found are counted over these.
+     */
+    public static List<ProjectedFeature> findableBy(DetectorType t, List<ProjectedFeature> truth) {
+        List<ProjectedFeature> out = new ArrayList<>(truth.size());
+        for (ProjectedFeature f : truth) if (f.kind().isEmpty() || t.finds(f.kind().get())) out.add(f);
+        return out.size() == truth.size() ? truth : out;
     }
 
     /** Distance from each true feature to its nearest detection, for the features found within {@code radius}. */

@@ -119,7 +119,8 @@ public final class TargetFile {
         return d;
     }
 
-    static String kindName(FeatureKind k) {
+    /** The name of a feature kind in the files: x-corner, dot-centre or corner (an L-corner). */
+    public static String kindName(FeatureKind k) {
         return switch (k) {
             case X_CORNER -> "x-corner";
             case DOT_CENTRE -> "dot-centre";
@@ -127,7 +128,7 @@ public final class TargetFile {
         };
     }
 
-    private static FeatureKind parseKind(JsonIn in, String s, String where) throws SourceException {
+    static FeatureKind parseKind(JsonIn in, String s, String where) throws SourceException {
         return switch (s.toLowerCase(Locale.ROOT)) {
             case "x-corner" -> FeatureKind.X_CORNER;
             case "dot-centre" -> FeatureKind.DOT_CENTRE;

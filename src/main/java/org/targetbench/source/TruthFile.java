@@ -83,7 +83,9 @@ public final class TruthFile {
                 for (int i = 0; i < e.getValue().size(); i++) {
                     JsonNode p = e.getValue().get(i);
                     String w = where + "[" + i + "]";
-                    list.add(new ProjectedFeature(in.integer(p, "id", w), in.number(p, "u", w), in.number(p, "v", w), in.number(p, "z_m", w, Double.NaN)));
+                    java.util.Optional<org.targetbench.target.FeatureKind> kind = p.has("kind")
+                            ? java.util.Optional.of(TargetFile.parseKind(in, in.text(p, "kind", w), w)) : java.util.Optional.empty();
+                    list.add(new ProjectedFeature(in.integer(p, "id", w), in.number(p, "u", w), in.number(p, "v", w), in.number(p, "z_m", w, Double.NaN), kind));
                 }
                 pts.put(e.getKey(), list);
             }
@@ -116,8 +118,10 @@ public final class TruthFile {
             });
             if (!e.getValue().features().isEmpty()) {
                 ArrayNode a = ps.putArray(e.getKey());
-                for (ProjectedFeature f : e.getValue().features())
-                    a.addObject().put("id", f.featureId()).put("u", f.u()).put("v", f.v()).put("z_m", f.depthM());
+                for (ProjectedFeature f : e.getValue().features()) {
+                    ObjectNode o = a.addObject().put("id", f.featureId()).put("u", f.u()).put("v", f.v()).put("z_m", f.depthM());
+                    f.kind().ifPresent(k -> o.put("kind", TargetFile.kindName(k)));
+                }
             }
         }
         (pretty ? JsonIn.MAPPER.writerWithDefaultPrettyPrinter() : JsonIn.MAPPER.writer()).writeValue(file.toFile(), root);

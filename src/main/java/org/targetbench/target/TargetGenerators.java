@@ -22,7 +22,10 @@ public final class TargetGenerators {
 
     /**
      * Checkerboard of {@code rows} x {@code cols} squares, the top-left square black, inside a white margin.
-     * Features are the (rows-1) x (cols-1) inner x-corners, numbered row by row.
+     * Features are the (rows-1) x (cols-1) inner x-corners, numbered row by row, then the outer L-corners: the corners of
+     * the squares on the board's boundary that meet the white margin (every grid point on the boundary next to a
+     * black square, the four outer board corners among them when those squares are black), numbered row by row over
+     * the grid points. The inner x-corners keep ids 0..(rows-1)(cols-1)-1 whatever follows them.
      */
     public static TargetDesign checkerboard(String id, int rows, int cols, double squareMm, double marginMm) {
         if (rows < 2 || cols < 2) throw new IllegalArgumentException("checkerboard needs at least 2 x 2 squares, got " + rows + " x " + cols);
@@ -39,6 +42,15 @@ public final class TargetGenerators {
         for (int r = 1; r < rows; r++)
             for (int c = 1; c < cols; c++)
                 features.add(new TargetFeature(features.size(), marginMm + c * squareMm, marginMm + r * squareMm, FeatureKind.X_CORNER));
+        for (int r = 0; r <= rows; r++)
+            for (int c = 0; c <= cols; c++) {
+                if (r > 0 && r < rows && c > 0 && c < cols) continue; // inner grid point: an x-corner, listed above
+                boolean black = false;
+                for (int sr = r - 1; sr <= r; sr++)
+                    for (int sc = c - 1; sc <= c; sc++)
+                        black |= sr >= 0 && sr < rows && sc >= 0 && sc < cols && (sr + sc) % 2 == 0;
+                if (black) features.add(new TargetFeature(features.size(), marginMm + c * squareMm, marginMm + r * squareMm, FeatureKind.CORNER));
+            }
         Map<String, Object> p = new LinkedHashMap<>();
         p.put("rows", rows); p.put("cols", cols); p.put("square_mm", squareMm); p.put("margin_mm", marginMm);
         return new TargetDesign(id, "Checkerboard " + cols + "x" + rows + " @ " + fmt(squareMm) + " mm", 2 * marginMm + cols * squareMm,

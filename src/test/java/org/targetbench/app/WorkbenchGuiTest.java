@@ -610,7 +610,8 @@ class WorkbenchGuiTest {
         waitFor("registered", () -> workbench.session().sourceName().contains("registered to fixture-cb15 (3 of 4 frames)")
                 && workbench.session().detections() != null);
         assertTrue(GuiActionRunner.execute(() -> workbench.session().scene().isPresent()), "the registered poses make the scene (depth for the servo view)");
-        assertEquals(48, GuiActionRunner.execute(() -> workbench.session().frames().get(1).truth().features().size()));
+        // the 48 inner x-corners and the 32 outer L-corners of the board, all predicted from the registration
+        assertEquals(48 + 32, GuiActionRunner.execute(() -> workbench.session().frames().get(1).truth().features().size()));
         assertTrue(GuiActionRunner.execute(() -> workbench.session().frames().get(1).truth().fromReference().isPresent()), "no distortion: homography truth");
         assertTrue(GuiActionRunner.execute(() -> workbench.session().frames().get(3).truth().features().isEmpty()), "the blank frame has no truth");
         GuiActionRunner.execute(() -> workbench.session().setFrameIndex(3));

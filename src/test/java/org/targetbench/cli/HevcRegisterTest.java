@@ -72,7 +72,7 @@ class HevcRegisterTest {
 
     private static List<String> registered(Path out) throws IOException {
         List<String> rows = Files.readAllLines(out.resolve("registered.csv"));
-        assertEquals("frame,feature_id,target_x_mm,target_y_mm,x,y", rows.get(0));
+        assertEquals("frame,feature_id,target_x_mm,target_y_mm,x,y,kind", rows.get(0));
         return rows.subList(1, rows.size());
     }
 }

@@ -71,7 +71,7 @@ class RegisterCliTest {
         assertTrue(rows.get(4).startsWith("frame_003.png,not_found,"), rows.get(4));
         for (int i : new int[]{1, 2, 3, 5}) assertTrue(rows.get(i).contains(",registered,10,"), rows.get(i));
         List<String> pts = Files.readAllLines(out.resolve("registered.csv"));
-        assertEquals("frame,feature_id,target_x_mm,target_y_mm,x,y", pts.get(0));
+        assertEquals("frame,feature_id,target_x_mm,target_y_mm,x,y,kind", pts.get(0));
         assertEquals(1 + 4 * 10, pts.size());
         String truth = Files.readString(out.resolve("truth.json"));
         assertTrue(truth.contains("\"poses\"") && truth.contains("\"frame_004.png\""), truth);

@@ -38,8 +38,11 @@ class RefinementStageTest {
         CameraModel cam = distorted
                 ? new CameraModel(640, 480, 532, 530, 321.2, 238.7, -0.21, 0.05, 0, 0.0008, -0.0005)
                 : TestScenes.VGA;
-        return new SyntheticRenderer(cam, new RenderConfig())
+        var full = new SyntheticRenderer(cam, new RenderConfig())
                 .render(design, Pose.facing(design.widthMm(), design.heightMm(), 0.35, tiltX, tiltY, roll, 0.004, -0.003));
+        // the saddle refinement is judged on the x-corners (the board's outer L-corners are truth too, of another kind)
+        return new SyntheticRenderer.Rendered(full.image(), full.features().stream()
+                .filter(f -> f.kind().orElseThrow() == org.targetbench.target.FeatureKind.X_CORNER).toList());
     }
 
     /** {RMS px, matched share} of the detections against the true corners. */

@@ -12,7 +12,9 @@ class TargetGeneratorsTest {
         TargetDesign d = TargetGenerators.checkerboard("cb", 7, 9, 15, 12);
         assertEquals(9 * 15 + 24, d.widthMm(), EXACT);
         assertEquals(7 * 15 + 24, d.heightMm(), EXACT);
-        assertEquals(6 * 8, d.features().size());
+        assertEquals(6 * 8 + 2 * (7 + 9), d.features().size(), "48 inner x-corners, then every boundary grid point (all touch a black square on 7 x 9)");
+        for (int i = 0; i < d.features().size(); i++)
+            assertEquals(i < 48 ? FeatureKind.X_CORNER : FeatureKind.CORNER, d.features().get(i).kind(), "feature " + i);
         TargetFeature first = d.features().get(0);
         assertEquals(27, first.xMm(), EXACT);
         assertEquals(27, first.yMm(), EXACT);
@@ -24,6 +26,25 @@ class TargetGeneratorsTest {
         assertEquals(0.0, d.reflectance(28, 28), EXACT);
         assertEquals(1.0, d.reflectance(5, 5), EXACT, "quiet zone is white");
         assertTrue(Double.isNaN(d.reflectance(-1, 5)), "off the page");
+    }
+
+    @Test
+    void checkerboardOuterLCornersAreTheBoundaryCornersOfBlackSquares() {
+        TargetDesign d = TargetGenerators.checkerboard("cb", 7, 8, 15, 12);
+        // 7 x 8: the top-right and bottom-right boundary squares are white, so those two board corners are no L-corners
+        assertEquals(6 * 7 + 2 * (7 + 8) - 2, d.features().size());
+        java.util.List<TargetFeature> l = d.features().stream().filter(f -> f.kind() == FeatureKind.CORNER).toList();
+        assertEquals(28, l.size());
+        assertTrue(l.stream().anyMatch(f -> f.xMm() == 12 && f.yMm() == 12), "top-left board corner");
+        assertTrue(l.stream().anyMatch(f -> f.xMm() == 12 && f.yMm() == 12 + 7 * 15), "bottom-left board corner");
+        assertTrue(l.stream().noneMatch(f -> f.xMm() == 12 + 8 * 15 && f.yMm() == 12), "top-right square is white");
+        for (TargetFeature f : l) {
+            // an L-corner: exactly one of the four quadrants around it is black (derived from the layout)
+            int black = 0;
+            for (double[] q : new double[][]{{-1, -1}, {1, -1}, {-1, 1}, {1, 1}}) if (d.reflectance(f.xMm() + q[0], f.yMm() + q[1]) == 0.0) black++;
+            assertEquals(1, black, "L-corner at " + f.xMm() + ", " + f.yMm());
+            assertTrue(FeatureVisibility.drawn(d, f));
+        }
     }
 
     @Test
