@@ -5,6 +5,7 @@ import boofcv.struct.ListIntPoint2D;
 import boofcv.struct.image.GrayF32;
 import boofcv.struct.image.GrayU8;
 import georegression.struct.point.Point2D_I16;
+import org.targetbench.Simd;
 
 import java.util.List;
 
@@ -34,6 +35,7 @@ final class FastDetector implements PointDetector {
     static final double CIRCLE_RADIUS = FastSegmentTest.RADIUS;
 
     private final FastConfig config;
+    private final boolean vector;
     private final FastSegmentTest segmentTest;
     private final CornerPeaks peaks = new CornerPeaks();
     private final Point2D_I16 point = new Point2D_I16();
@@ -42,15 +44,21 @@ final class FastDetector implements PointDetector {
     private final GrayF32 score = new GrayF32(1, 1);
 
     FastDetector(FastConfig config) {
+        this(config, Simd.ENABLED);
+    }
+
+    /** @param vector whether the rounding and the compass pre-check run on the Vector API (only when {@link Simd#ENABLED}) */
+    FastDetector(FastConfig config, boolean vector) {
         this.config = config;
-        segmentTest = new FastSegmentTest(config.pixelTolerance, config.minContinuous);
+        this.vector = vector;
+        segmentTest = new FastSegmentTest(config.pixelTolerance, config.minContinuous, vector);
     }
 
     @Override public DetectorType type() { return DetectorType.FAST; }
 
     @Override
     public List<Detection> detect(GrayF32 image) {
-        GrayU8 u8 = Detectors.toU8(image, bytes);
+        GrayU8 u8 = toU8(image);
         if (score.width != u8.width || score.height != u8.height) {
             score.reshape(u8.width, u8.height);
             ImageMiscOps.fill(score, 0); // the segment test writes only corners; everything else must read 0
@@ -66,6 +74,14 @@ final class FastDetector implements PointDetector {
                 config.thresholdMode == ThresholdMode.RELATIVE ? config.threshold * (double) strongest : config.threshold);
         peaks.keepAtLeast(cut);
         return peaks.top(config.maxFeatures, CIRCLE_RADIUS);
+    }
+
+    /** The 8-bit rounding of the frame into the reused buffer (the rule of {@link Detectors#toU8}). */
+    private GrayU8 toU8(GrayF32 image) {
+        bytes.reshape(image.width, image.height);
+        if (vector) FastVectorKernels.toU8(image.data, image.startIndex, image.stride, bytes.data, bytes.startIndex, bytes.stride, image.width, image.height);
+        else FastScalarKernels.toU8(image.data, image.startIndex, image.stride, bytes.data, bytes.startIndex, bytes.stride, image.width, image.height);
+        return bytes;
     }
 
     /**

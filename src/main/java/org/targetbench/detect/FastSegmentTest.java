@@ -10,9 +10,8 @@ import boofcv.struct.ListIntPoint2D;
 import boofcv.struct.image.GrayF32;
 import boofcv.struct.image.GrayU8;
 
-import java.lang.invoke.MethodHandles;
-import java.lang.invoke.VarHandle;
-import java.nio.ByteOrder;
+import org.targetbench.Simd;
+
 import java.util.Arrays;
 
 /**
@@ -39,6 +38,8 @@ final class FastSegmentTest {
     static final int RADIUS = 3;
 
     private final int tolerance;
+    private final boolean vector;
+    private int[] candidates = new int[0];
     private final FastCornerInterface<GrayU8> tree;
     private int[] ring = new int[0];
     private int ringStride = -1;
@@ -49,6 +50,13 @@ final class FastSegmentTest {
     final ListIntPoint2D positive = new ListIntPoint2D();
 
     FastSegmentTest(int tolerance, int minContinuous) {
+        this(tolerance, minContinuous, Simd.ENABLED);
+    }
+
+    /** @param vector whether the compass pre-check runs on the Vector API (only when {@link Simd#ENABLED}) */
+    FastSegmentTest(int tolerance, int minContinuous, boolean vector) {
+        if (vector && !Simd.ENABLED) throw new IllegalArgumentException("the Vector API is not available");
+        this.vector = vector;
         this.tolerance = tolerance;
         tree = switch (minContinuous) {
             case 9 -> new ImplFastCorner9_U8(tolerance);
@@ -74,60 +82,32 @@ final class FastSegmentTest {
             ring = DiscretizedCircle.imageOffsets(RADIUS, image.stride);
             ringStride = image.stride;
         }
+        if (candidates.length < image.width) candidates = new int[image.width];
         tree.setImage(image, ring);
         byte[] data = image.data;
         float[] out = score.data;
+        int[] found = candidates;
         int east = ring[0], south = ring[4], west = ring[8], north = ring[12];
-        int t = tolerance;
-        long spread = BYTES * t;
         for (int y = RADIUS; y < image.height - RADIUS; y++) {
-            int index = image.startIndex + y * image.stride + RADIUS;
-            int scoreIndex = score.startIndex + y * score.stride + RADIUS;
-            int x = RADIUS;
-            for (int end = image.width - RADIUS; x < end; x++, index++, scoreIndex++) {
-                // eight pixels at once: skip them when no E or W pixel differs from its centre by more than t
-                if ((x - RADIUS & 7) == 0 && x + 8 <= end) {
-                    long cc = (long) LONGS.get(data, index);
-                    long ee = (long) LONGS.get(data, index + east), ww = (long) LONGS.get(data, index + west);
-                    long far = subSat(subSat(ee, cc) | subSat(cc, ee), spread) | subSat(subSat(ww, cc) | subSat(cc, ww), spread);
-                    if (far == 0) {
-                        x += 7; index += 7; scoreIndex += 7;
-                        continue;
-                    }
-                }
-                int c = data[index] & 0xFF, upper = c + t, lower = c - t;
-                int e = data[index + east] & 0xFF, w = data[index + west] & 0xFF;
-                if (e <= upper && w <= upper && e >= lower && w >= lower) continue;
-                int s = data[index + south] & 0xFF, n = data[index + north] & 0xFF;
-                boolean brighter = (e > upper || w > upper) && (s > upper || n > upper);
-                boolean darker = (e < lower || w < lower) && (s < lower || n < lower);
-                if (!brighter && !darker) continue;
+            int row = image.startIndex + y * image.stride, scoreRow = score.startIndex + y * score.stride;
+            int end = image.width - RADIUS;
+            int count = vector
+                    ? FastVectorKernels.compassCandidates(data, row, RADIUS, end, east, west, south, north, tolerance, found)
+                    : FastScalarKernels.compassCandidates(data, row, RADIUS, end, east, west, south, north, tolerance, found);
+            for (int k = 0; k < count; k++) {
+                int x = found[k], index = row + x;
                 int result = tree.checkPixel(index);
                 if (result < 0) {
-                    out[scoreIndex] = tree.scoreLower(index);
+                    out[scoreRow + x] = tree.scoreLower(index);
                     negative.add(x, y);
-                    written(scoreIndex);
+                    written(scoreRow + x);
                 } else if (result > 0) {
-                    out[scoreIndex] = tree.scoreUpper(index);
+                    out[scoreRow + x] = tree.scoreUpper(index);
                     positive.add(x, y);
-                    written(scoreIndex);
+                    written(scoreRow + x);
                 }
             }
         }
-    }
-
-    /** Eight bytes of a row read as one long (little-endian: pixel x in the low byte). */
-    private static final VarHandle LONGS = MethodHandles.byteArrayViewVarHandle(long[].class, ByteOrder.LITTLE_ENDIAN);
-    private static final long BYTES = 0x0101010101010101L, HIGH = 0x8080808080808080L, LOW = 0x7F7F7F7F7F7F7F7FL;
-
-    /**
-     * max(a - b, 0) in each of the eight byte lanes (SWAR: lane-wise subtraction without borrow across lanes, then
-     * lanes that borrowed cleared; Warren, "Hacker's Delight", 2nd ed., section 2-18).
-     */
-    static long subSat(long a, long b) {
-        long d = ((a | HIGH) - (b & LOW)) ^ ((a ^ ~b) & HIGH);
-        long borrow = ((~a & b) | (~(a ^ b) & d)) & HIGH;
-        return d & ~((borrow >>> 7) * 0xFF);
     }
 
     private int[] writtenAt = new int[1024];

@@ -1,0 +1,104 @@
+package org.targetbench.detect;
+
+import jdk.incubator.vector.ByteVector;
+import jdk.incubator.vector.FloatVector;
+import jdk.incubator.vector.IntVector;
+import jdk.incubator.vector.VectorMask;
+import jdk.incubator.vector.VectorOperators;
+import jdk.incubator.vector.VectorShape;
+import jdk.incubator.vector.VectorSpecies;
+
+/**
+ * The Vector API kernels of FAST (the incubator module {@code jdk.incubator.vector}): the float-to-8-bit rounding of
+ * the frame and the compass pre-check of the segment test, many pixels per instruction. Load this class only behind
+ * {@link org.targetbench.Simd#ENABLED}.
+ *
+ * <p>Each kernel has a scalar twin with identical output ({@link FastScalarKernels}); {@code FastEqualityTest} runs
+ * both directly and compares them. Every operation is lane-wise (no reduction, no reordering of float arithmetic),
+ * and the pixels left over at the end of a row are handled by the scalar twin or by re-reading an overlapping block,
+ * so the output does not depend on the lane count ({@code SPECIES_PREFERRED}: 16 float lanes with AVX-512, 8 with
+ * AVX2).
+ */
+final class FastVectorKernels {
+    private FastVectorKernels() {}
+
+    private static final VectorSpecies<Float> FLOATS = FloatVector.SPECIES_PREFERRED;
+    /** As many byte lanes as {@link #FLOATS} has float lanes (a quarter of the bits). */
+    private static final VectorSpecies<Byte> NARROW =
+            VectorSpecies.of(byte.class, VectorShape.forBitSize(FLOATS.vectorBitSize() / 4));
+    private static final VectorSpecies<Byte> BYTES = ByteVector.SPECIES_PREFERRED;
+    /** Byte lanes of the compass pre-check; at most 64 so that a block's mask fits a long. */
+    static final int LANES = Math.min(64, BYTES.length());
+
+    /** 2^23: adding it to a float in [0, 2^23) leaves that float rounded to an integer in the low mantissa bits. */
+    private static final float MAGIC = 8388608f;
+
+    /**
+     * Rounds and clips a float frame to 8 bits: 0 for v &lt;= 0 (and NaN), 255 for v &gt;= 255, otherwise
+     * {@code (int) (v + 0.5f)}; the rule of {@link FastScalarKernels#toU8}, giving the same byte for every float
+     * (derived, and checked over every float from -1 to 300 by {@code FastEqualityTest}'s sampling and by hand).
+     *
+     * <p>How (JDK 17 compiles no vector float-to-int conversion, so this avoids one): r = min(v + 0.5, 255.5) where
+     * v &gt; 0, else 0 (v + 0.5 is the same float addition as the scalar rule's, and everything from 254.5 up ends in
+     * 255). Then q = (r + 2^23) - 2^23 is r rounded to the nearest integer (exactly: floats in [2^23, 2^24) are the
+     * integers), floor(r) = q - 1 where q &gt; r, else q, and the low byte of the bits of floor(r) + 2^23 is floor(r),
+     * which the narrowing int-to-byte conversion keeps.
+     */
+    static void toU8(float[] src, int srcStart, int srcStride, byte[] dst, int dstStart, int dstStride, int width, int height) {
+        int lanes = FLOATS.length();
+        int bound = width - width % lanes;
+        FloatVector zero = FloatVector.zero(FLOATS), one = FloatVector.broadcast(FLOATS, 1f);
+        for (int y = 0; y < height; y++) {
+            int si = srcStart + y * srcStride, di = dstStart + y * dstStride;
+            int x = 0;
+            for (; x < bound; x += lanes) {
+                FloatVector v = FloatVector.fromArray(FLOATS, src, si + x);
+                FloatVector r = zero.blend(v.add(0.5f).min(255.5f), v.compare(VectorOperators.GT, 0f));
+                FloatVector q = r.add(MAGIC).sub(MAGIC);
+                FloatVector floor = q.sub(zero.blend(one, q.compare(VectorOperators.GT, r)));
+                IntVector bits = floor.add(MAGIC).reinterpretAsInts();
+                ((ByteVector) bits.convertShape(VectorOperators.I2B, NARROW, 0)).intoArray(dst, di + x);
+            }
+            FastScalarKernels.toU8Row(src, si + x, dst, di + x, width - x);
+        }
+    }
+
+    /**
+     * The compass pre-check over the pixels {@code from <= x < to} of one row (rule of
+     * {@link FastScalarKernels#compassCandidates}): writes the x of every pixel whose (E or W) and (S or N) ring pixels
+     * are beyond the tolerance on the same side into {@code out}, in increasing order, and returns their count.
+     *
+     * @param row index of the row's pixel x = 0 in {@code data}
+     */
+    static int compassCandidates(byte[] data, int row, int from, int to, int east, int west, int south, int north,
+                                 int tolerance, int[] out) {
+        int lanes = LANES;
+        if (to - from < lanes) return FastScalarKernels.compassCandidates(data, row, from, to, east, west, south, north, tolerance, out);
+        int count = 0;
+        byte t = (byte) tolerance, top = (byte) (255 - tolerance);
+        for (int x0 = from; x0 < to; x0 += lanes) {
+            // the last block overlaps the one before; its lanes below x0 were already tested
+            int start = Math.min(x0, to - lanes);
+            int i = row + start;
+            ByteVector c = ByteVector.fromArray(BYTES, data, i);
+            // c + t and c - t, clipped to 0..255 (a clipped bound can never be passed, as with the int arithmetic)
+            ByteVector upper = c.add(t).blend((byte) -1, c.compare(VectorOperators.UNSIGNED_GT, top));
+            ByteVector lower = c.sub(t).blend((byte) 0, c.compare(VectorOperators.UNSIGNED_LT, t));
+            ByteVector e = ByteVector.fromArray(BYTES, data, i + east), w = ByteVector.fromArray(BYTES, data, i + west);
+            VectorMask<Byte> brightEW = e.compare(VectorOperators.UNSIGNED_GT, upper).or(w.compare(VectorOperators.UNSIGNED_GT, upper));
+            VectorMask<Byte> darkEW = e.compare(VectorOperators.UNSIGNED_LT, lower).or(w.compare(VectorOperators.UNSIGNED_LT, lower));
+            if (!brightEW.or(darkEW).anyTrue()) continue;
+            ByteVector s = ByteVector.fromArray(BYTES, data, i + south), n = ByteVector.fromArray(BYTES, data, i + north);
+            VectorMask<Byte> bright = brightEW.and(s.compare(VectorOperators.UNSIGNED_GT, upper).or(n.compare(VectorOperators.UNSIGNED_GT, upper)));
+            VectorMask<Byte> dark = darkEW.and(s.compare(VectorOperators.UNSIGNED_LT, lower).or(n.compare(VectorOperators.UNSIGNED_LT, lower)));
+            long bits = bright.or(dark).toLong() >>> (x0 - start);
+            int x = x0;
+            while (bits != 0) {
+                int k = Long.numberOfTrailingZeros(bits);
+                out[count++] = x + k;
+                bits &= bits - 1;
+            }
+        }
+        return count;
+    }
+}
