@@ -1,33 +1,34 @@
 package org.targetbench.detect;
 
-import boofcv.alg.feature.detect.intensity.impl.FastCornerInterface;
-import boofcv.alg.feature.detect.intensity.impl.ImplFastCorner10_U8;
-import boofcv.alg.feature.detect.intensity.impl.ImplFastCorner11_U8;
-import boofcv.alg.feature.detect.intensity.impl.ImplFastCorner12_U8;
-import boofcv.alg.feature.detect.intensity.impl.ImplFastCorner9_U8;
 import boofcv.misc.DiscretizedCircle;
 import boofcv.struct.ListIntPoint2D;
 import boofcv.struct.image.GrayF32;
 import boofcv.struct.image.GrayU8;
-
 import org.targetbench.Simd;
 
 import java.util.Arrays;
 
 /**
- * The FAST segment test over a whole 8-bit image: BoofCV's generated decision tree and score, preceded by a cheap
- * rejection of pixels that cannot be corners.
+ * The FAST segment test over a whole 8-bit image: a cheap rejection of pixels that cannot be corners, then, for the
+ * rest, the exact segment test on two 16-bit ring patterns and BoofCV's score.
  *
  * <p>A pixel of grey c is a corner when at least n (9..12) contiguous pixels of the 16-pixel ring of radius 3 are all
- * brighter than c + t, or all darker than c - t. The ring's compass pixels E, S, W, N (offsets (3,0), (0,3), (-3,0),
- * (0,-3)) sit at ring positions 0, 4, 8 and 12, so every arc of 9 or more contiguous positions holds two neighbouring
- * compass pixels: one of E and W, and one of S and N. A pixel is therefore only handed to the decision tree when
- * (E or W) and (S or N) are beyond the tolerance on the same side; for every other pixel the tree would answer "no
- * corner" and the score is 0. This is the high-speed test of Rosten &amp; Drummond 2006 [1], in the form that holds
- * for n = 9. Before that, eight neighbouring pixels are checked at once: their centres, E and W pixels are read as
- * three longs, and the group is skipped when every |E - c| and |W - c| is within the tolerance (lane-wise
- * saturating byte arithmetic, exact), which is the first half of the same test. The output (score image and
- * candidate lists) is the same as BoofCV's {@code FastCornerDetector}.
+ * brighter than c + t, or all darker than c - t [1]. The ring's compass pixels E, S, W, N (offsets (3,0), (0,3),
+ * (-3,0), (0,-3)) sit at ring positions 0, 4, 8 and 12, so every arc of 9 or more contiguous positions holds two
+ * neighbouring compass pixels: one of E and W, and one of S and N. A pixel is therefore only tested further when
+ * (E or W) and (S or N) are beyond the tolerance on the same side (the high-speed test of [1], in the form that holds
+ * for n = 9); every other pixel scores 0. That pre-check runs on many pixels at once: 32 or 64 per instruction with
+ * the Vector API ({@link FastVectorKernels}), else eight per long ({@link FastScalarKernels}); both give the same
+ * candidates.
+ *
+ * <p>Each candidate's ring becomes two bit patterns (bit k set when ring pixel k is brighter than c + t, or darker
+ * than c - t), and an arc of n ones is found by doubling on the pattern written twice in one int: bit k of
+ * r<sub>2m</sub> = r<sub>m</sub> &amp; (r<sub>m</sub> &gt;&gt;&gt; m) says that bits k..k+2m-1 are all set. This is
+ * the rule BoofCV's generated decision trees ({@code ImplFastCorner9_U8} .. {@code 12}) decide; they were replaced
+ * after checking by hand that both answer alike on all 3^16 ways of a ring being brighter, darker or neither, for each
+ * n ({@code FastEqualityTest} repeats the check on a sample). The score of a corner is BoofCV's: the sum of
+ * p - c over the ring pixels beyond the tolerance on the corner's side (negative for darker rings). The output
+ * (score image and candidate lists) is the same as BoofCV's {@code FastCornerDetector}.
  *
  * <p>Caveat: single threaded, whatever BoofCV's concurrency setting.
  *
@@ -40,7 +41,8 @@ final class FastSegmentTest {
     private final int tolerance;
     private final boolean vector;
     private int[] candidates = new int[0];
-    private final FastCornerInterface<GrayU8> tree;
+    private final byte[] flags;
+    private final int minContinuous;
     private int[] ring = new int[0];
     private int ringStride = -1;
 
@@ -57,14 +59,11 @@ final class FastSegmentTest {
     FastSegmentTest(int tolerance, int minContinuous, boolean vector) {
         if (vector && !Simd.ENABLED) throw new IllegalArgumentException("the Vector API is not available");
         this.vector = vector;
+        flags = new byte[vector ? FastVectorKernels.LANES : 0];
+        if (minContinuous < 9 || minContinuous > 12)
+            throw new IllegalArgumentException("FAST needs 9..12 contiguous pixels, got " + minContinuous);
         this.tolerance = tolerance;
-        tree = switch (minContinuous) {
-            case 9 -> new ImplFastCorner9_U8(tolerance);
-            case 10 -> new ImplFastCorner10_U8(tolerance);
-            case 11 -> new ImplFastCorner11_U8(tolerance);
-            case 12 -> new ImplFastCorner12_U8(tolerance);
-            default -> throw new IllegalArgumentException("FAST needs 9..12 contiguous pixels, got " + minContinuous);
-        };
+        this.minContinuous = minContinuous;
     }
 
     /**
@@ -83,31 +82,52 @@ final class FastSegmentTest {
             ringStride = image.stride;
         }
         if (candidates.length < image.width) candidates = new int[image.width];
-        tree.setImage(image, ring);
         byte[] data = image.data;
         float[] out = score.data;
-        int[] found = candidates;
-        int east = ring[0], south = ring[4], west = ring[8], north = ring[12];
+        int[] found = candidates, r = ring;
+        int east = r[0], south = r[4], west = r[8], north = r[12], t = tolerance, n = minContinuous;
         for (int y = RADIUS; y < image.height - RADIUS; y++) {
             int row = image.startIndex + y * image.stride, scoreRow = score.startIndex + y * score.stride;
             int end = image.width - RADIUS;
             int count = vector
-                    ? FastVectorKernels.compassCandidates(data, row, RADIUS, end, east, west, south, north, tolerance, found)
-                    : FastScalarKernels.compassCandidates(data, row, RADIUS, end, east, west, south, north, tolerance, found);
+                    ? FastVectorKernels.compassCandidates(data, row, RADIUS, end, east, west, south, north, t, found, flags)
+                    : FastScalarKernels.compassCandidates(data, row, RADIUS, end, east, west, south, north, t, found);
             for (int k = 0; k < count; k++) {
                 int x = found[k], index = row + x;
-                int result = tree.checkPixel(index);
-                if (result < 0) {
-                    out[scoreRow + x] = tree.scoreLower(index);
-                    negative.add(x, y);
-                    written(scoreRow + x);
-                } else if (result > 0) {
-                    out[scoreRow + x] = tree.scoreUpper(index);
-                    positive.add(x, y);
-                    written(scoreRow + x);
+                int c = data[index] & 0xFF, upper = c + t, lower = c - t;
+                int bright = 0, dark = 0;
+                for (int j = 0; j < 16; j++) {
+                    int p = data[index + r[j]] & 0xFF;
+                    bright |= ((upper - p) >>> 31) << j;
+                    dark |= ((p - lower) >>> 31) << j;
                 }
+                int side = hasArc(bright, n) ? bright : hasArc(dark, n) ? dark : 0;
+                if (side == 0) continue;
+                int sum = 0;
+                for (int j = 0; j < 16; j++) sum += ((data[index + r[j]] & 0xFF) - c) & -(side >>> j & 1);
+                out[scoreRow + x] = sum;
+                if (side == dark) negative.add(x, y);
+                else positive.add(x, y);
+                written(scoreRow + x);
             }
         }
+    }
+
+    /**
+     * Whether the 16-bit ring pattern holds {@code n} (9..12) cyclically contiguous ones: the pattern written twice
+     * in an int, then runs doubled (bit k of r<sub>m</sub>: bits k..k+m-1 all set) up to 8 and joined with the run of
+     * n - 8 that follows.
+     */
+    static boolean hasArc(int pattern, int n) {
+        int d = pattern | pattern << 16;
+        int r2 = d & (d >>> 1), r4 = r2 & (r2 >>> 2), r8 = r4 & (r4 >>> 4);
+        int tail = switch (n) {
+            case 9 -> d;
+            case 10 -> r2;
+            case 11 -> r2 & (d >>> 2);
+            default -> r4;
+        };
+        return (r8 & (tail >>> 8) & 0xFFFF) != 0;
     }
 
     private int[] writtenAt = new int[1024];

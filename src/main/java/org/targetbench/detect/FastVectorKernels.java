@@ -8,6 +8,10 @@ import jdk.incubator.vector.VectorOperators;
 import jdk.incubator.vector.VectorShape;
 import jdk.incubator.vector.VectorSpecies;
 
+import java.lang.invoke.MethodHandles;
+import java.lang.invoke.VarHandle;
+import java.nio.ByteOrder;
+
 /**
  * The Vector API kernels of FAST (the incubator module {@code jdk.incubator.vector}): the float-to-8-bit rounding of
  * the frame and the compass pre-check of the segment test, many pixels per instruction. Load this class only behind
@@ -27,8 +31,10 @@ final class FastVectorKernels {
     private static final VectorSpecies<Byte> NARROW =
             VectorSpecies.of(byte.class, VectorShape.forBitSize(FLOATS.vectorBitSize() / 4));
     private static final VectorSpecies<Byte> BYTES = ByteVector.SPECIES_PREFERRED;
-    /** Byte lanes of the compass pre-check; at most 64 so that a block's mask fits a long. */
-    static final int LANES = Math.min(64, BYTES.length());
+    /** Byte lanes of the compass pre-check. */
+    static final int LANES = BYTES.length();
+    /** Eight bytes of an array read as one long (little-endian: lane j in byte j). */
+    private static final VarHandle LONGS = MethodHandles.byteArrayViewVarHandle(long[].class, ByteOrder.LITTLE_ENDIAN);
 
     /** 2^23: adding it to a float in [0, 2^23) leaves that float rounded to an integer in the low mantissa bits. */
     private static final float MAGIC = 8388608f;
@@ -68,10 +74,11 @@ final class FastVectorKernels {
      * {@link FastScalarKernels#compassCandidates}): writes the x of every pixel whose (E or W) and (S or N) ring pixels
      * are beyond the tolerance on the same side into {@code out}, in increasing order, and returns their count.
      *
-     * @param row index of the row's pixel x = 0 in {@code data}
+     * @param row   index of the row's pixel x = 0 in {@code data}
+     * @param flags scratch of at least {@link #LANES} bytes
      */
     static int compassCandidates(byte[] data, int row, int from, int to, int east, int west, int south, int north,
-                                 int tolerance, int[] out) {
+                                 int tolerance, int[] out, byte[] flags) {
         int lanes = LANES;
         if (to - from < lanes) return FastScalarKernels.compassCandidates(data, row, from, to, east, west, south, north, tolerance, out);
         int count = 0;
@@ -91,12 +98,16 @@ final class FastVectorKernels {
             ByteVector s = ByteVector.fromArray(BYTES, data, i + south), n = ByteVector.fromArray(BYTES, data, i + north);
             VectorMask<Byte> bright = brightEW.and(s.compare(VectorOperators.UNSIGNED_GT, upper).or(n.compare(VectorOperators.UNSIGNED_GT, upper)));
             VectorMask<Byte> dark = darkEW.and(s.compare(VectorOperators.UNSIGNED_LT, lower).or(n.compare(VectorOperators.UNSIGNED_LT, lower)));
-            long bits = bright.or(dark).toLong() >>> (x0 - start);
-            int x = x0;
-            while (bits != 0) {
-                int k = Long.numberOfTrailingZeros(bits);
-                out[count++] = x + k;
-                bits &= bits - 1;
+            // the mask as bytes (JDK 17 compiles no mask-to-long), read back eight lanes to a long
+            ByteVector.zero(BYTES).blend((byte) -1, bright.or(dark)).intoArray(flags, 0);
+            for (int j = 0; j < lanes; j += 8) {
+                long bits = (long) LONGS.get(flags, j);
+                while (bits != 0) {
+                    int lowest = Long.numberOfTrailingZeros(bits) & ~7;
+                    int x = start + j + (lowest >>> 3);
+                    if (x >= x0) out[count++] = x;
+                    bits &= ~(0xFFL << lowest);
+                }
             }
         }
         return count;
