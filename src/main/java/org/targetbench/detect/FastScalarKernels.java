@@ -5,8 +5,8 @@ import java.lang.invoke.VarHandle;
 import java.nio.ByteOrder;
 
 /**
- * The scalar twins of {@link FastVectorKernels}: the float-to-8-bit rounding of the frame and the compass pre-check
- * of the segment test, one pixel (or eight bytes in a long) at a time. These are the paths taken without the Vector
+ * The scalar twins of {@link FastVectorKernels}: the float-to-8-bit rounding of the frame and the segment test, one
+ * pixel (or eight bytes in a long) at a time. These are the paths taken without the Vector
  * API, and the definition the vector kernels must reproduce exactly ({@code FastEqualityTest}).
  */
 final class FastScalarKernels {
@@ -59,6 +59,53 @@ final class FastScalarKernels {
             if (brighter || darker) out[count++] = x;
         }
         return count;
+    }
+
+    /** Flag on an x from {@link #corners}: the ring is darker than the centre (else brighter). */
+    static final int DARK = 1 << 30;
+
+    /**
+     * The segment test over the pixels {@code from <= x < to} of one row: writes the x of every corner into
+     * {@code out} in increasing order, or'ed with {@link #DARK} when its arc is darker than the centre, and returns
+     * their count. Only the pixels that pass {@link #compassCandidates} are tested further: their ring becomes two bit
+     * patterns (bit k set when ring pixel k is brighter than c + t, or darker than c - t), searched for an arc of n
+     * by {@link #hasArc}.
+     *
+     * @param ring the 16 ring offsets ({@code DiscretizedCircle.imageOffsets(3, stride)}); E, S, W, N at 0, 4, 8, 12
+     */
+    static int corners(byte[] data, int row, int from, int to, int[] ring, int tolerance, int n, int[] out) {
+        int candidates = compassCandidates(data, row, from, to, ring[0], ring[8], ring[4], ring[12], tolerance, out);
+        int count = 0;
+        for (int k = 0; k < candidates; k++) {
+            int x = out[k], index = row + x;
+            int c = data[index] & 0xFF, upper = c + tolerance, lower = c - tolerance;
+            int bright = 0, dark = 0;
+            for (int j = 0; j < 16; j++) {
+                int p = data[index + ring[j]] & 0xFF;
+                bright |= ((upper - p) >>> 31) << j;
+                dark |= ((p - lower) >>> 31) << j;
+            }
+            if (hasArc(bright, n)) out[count++] = x;
+            else if (hasArc(dark, n)) out[count++] = x | DARK;
+        }
+        return count;
+    }
+
+    /**
+     * Whether the 16-bit ring pattern holds {@code n} (9..12) cyclically contiguous ones: the pattern written twice in
+     * an int, runs doubled (bit k of r<sub>2m</sub> = r<sub>m</sub> &amp; (r<sub>m</sub> &gt;&gt;&gt; m): bits
+     * k..k+2m-1 all set) up to 8, then joined with the run of n - 8 that follows.
+     */
+    static boolean hasArc(int pattern, int n) {
+        int d = pattern | pattern << 16;
+        int r2 = d & (d >>> 1), r4 = r2 & (r2 >>> 2), r8 = r4 & (r4 >>> 4);
+        int tail = switch (n) {
+            case 9 -> d;
+            case 10 -> r2;
+            case 11 -> r2 & (d >>> 2);
+            default -> r4;
+        };
+        return (r8 & (tail >>> 8) & 0xFFFF) != 0;
     }
 
     /** Eight bytes of a row read as one long (little-endian: pixel x in the low byte). */

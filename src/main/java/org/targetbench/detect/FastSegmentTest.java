@@ -59,7 +59,7 @@ final class FastSegmentTest {
     FastSegmentTest(int tolerance, int minContinuous, boolean vector) {
         if (vector && !Simd.ENABLED) throw new IllegalArgumentException("the Vector API is not available");
         this.vector = vector;
-        flags = new byte[vector ? FastVectorKernels.LANES : 0];
+        flags = new byte[vector ? Math.max(8, FastVectorKernels.LANES) : 0];
         if (minContinuous < 9 || minContinuous > 12)
             throw new IllegalArgumentException("FAST needs 9..12 contiguous pixels, got " + minContinuous);
         this.tolerance = tolerance;
@@ -85,49 +85,28 @@ final class FastSegmentTest {
         byte[] data = image.data;
         float[] out = score.data;
         int[] found = candidates, r = ring;
-        int east = r[0], south = r[4], west = r[8], north = r[12], t = tolerance, n = minContinuous;
+        int t = tolerance, n = minContinuous;
         for (int y = RADIUS; y < image.height - RADIUS; y++) {
             int row = image.startIndex + y * image.stride, scoreRow = score.startIndex + y * score.stride;
             int end = image.width - RADIUS;
             int count = vector
-                    ? FastVectorKernels.compassCandidates(data, row, RADIUS, end, east, west, south, north, t, found, flags)
-                    : FastScalarKernels.compassCandidates(data, row, RADIUS, end, east, west, south, north, t, found);
+                    ? FastVectorKernels.corners(data, row, RADIUS, end, r, t, n, found, flags)
+                    : FastScalarKernels.corners(data, row, RADIUS, end, r, t, n, found);
             for (int k = 0; k < count; k++) {
-                int x = found[k], index = row + x;
-                int c = data[index] & 0xFF, upper = c + t, lower = c - t;
-                int bright = 0, dark = 0;
+                boolean darker = (found[k] & FastScalarKernels.DARK) != 0;
+                int x = found[k] & ~FastScalarKernels.DARK, index = row + x;
+                // BoofCV's score: the sum of p - c over the ring pixels beyond the tolerance on the corner's side
+                int c = data[index] & 0xFF, upper = c + t, lower = c - t, sum = 0;
                 for (int j = 0; j < 16; j++) {
                     int p = data[index + r[j]] & 0xFF;
-                    bright |= ((upper - p) >>> 31) << j;
-                    dark |= ((p - lower) >>> 31) << j;
+                    sum += (p - c) & (darker ? (p - lower) >> 31 : (upper - p) >> 31);
                 }
-                int side = hasArc(bright, n) ? bright : hasArc(dark, n) ? dark : 0;
-                if (side == 0) continue;
-                int sum = 0;
-                for (int j = 0; j < 16; j++) sum += ((data[index + r[j]] & 0xFF) - c) & -(side >>> j & 1);
                 out[scoreRow + x] = sum;
-                if (side == dark) negative.add(x, y);
+                if (darker) negative.add(x, y);
                 else positive.add(x, y);
                 written(scoreRow + x);
             }
         }
-    }
-
-    /**
-     * Whether the 16-bit ring pattern holds {@code n} (9..12) cyclically contiguous ones: the pattern written twice
-     * in an int, then runs doubled (bit k of r<sub>m</sub>: bits k..k+m-1 all set) up to 8 and joined with the run of
-     * n - 8 that follows.
-     */
-    static boolean hasArc(int pattern, int n) {
-        int d = pattern | pattern << 16;
-        int r2 = d & (d >>> 1), r4 = r2 & (r2 >>> 2), r8 = r4 & (r4 >>> 4);
-        int tail = switch (n) {
-            case 9 -> d;
-            case 10 -> r2;
-            case 11 -> r2 & (d >>> 2);
-            default -> r4;
-        };
-        return (r8 & (tail >>> 8) & 0xFFFF) != 0;
     }
 
     private int[] writtenAt = new int[1024];

@@ -14,7 +14,7 @@ import java.nio.ByteOrder;
 
 /**
  * The Vector API kernels of FAST (the incubator module {@code jdk.incubator.vector}): the float-to-8-bit rounding of
- * the frame and the compass pre-check of the segment test, many pixels per instruction. Load this class only behind
+ * the frame and the segment test, many pixels per instruction. Load this class only behind
  * {@link org.targetbench.Simd#ENABLED}.
  *
  * <p>Each kernel has a scalar twin with identical output ({@link FastScalarKernels}); {@code FastEqualityTest} runs
@@ -31,7 +31,7 @@ final class FastVectorKernels {
     private static final VectorSpecies<Byte> NARROW =
             VectorSpecies.of(byte.class, VectorShape.forBitSize(FLOATS.vectorBitSize() / 4));
     private static final VectorSpecies<Byte> BYTES = ByteVector.SPECIES_PREFERRED;
-    /** Byte lanes of the compass pre-check. */
+    /** Byte lanes of the segment test (16, 32 or 64: a multiple of 8). */
     static final int LANES = BYTES.length();
     /** Eight bytes of an array read as one long (little-endian: lane j in byte j). */
     private static final VarHandle LONGS = MethodHandles.byteArrayViewVarHandle(long[].class, ByteOrder.LITTLE_ENDIAN);
@@ -70,19 +70,23 @@ final class FastVectorKernels {
     }
 
     /**
-     * The compass pre-check over the pixels {@code from <= x < to} of one row (rule of
-     * {@link FastScalarKernels#compassCandidates}): writes the x of every pixel whose (E or W) and (S or N) ring pixels
-     * are beyond the tolerance on the same side into {@code out}, in increasing order, and returns their count.
+     * The segment test over the pixels {@code from <= x < to} of one row: the rule, output and order of
+     * {@link FastScalarKernels#corners}. Per block of {@link #LANES} pixels: the compass pre-check (E and W first, and
+     * the block skipped when no lane passes), then, when a lane passes, the whole ring: for each of the 16 + n - 1
+     * ring positions in turn (the first n - 1 twice, so arcs through position 0 count), the length of the current run
+     * of brighter (darker) pixels per lane, and its maximum; a corner where the maximum reaches n.
      *
      * @param row   index of the row's pixel x = 0 in {@code data}
+     * @param ring  the 16 ring offsets ({@code DiscretizedCircle.imageOffsets(3, stride)}); E, S, W, N at 0, 4, 8, 12
      * @param flags scratch of at least {@link #LANES} bytes
      */
-    static int compassCandidates(byte[] data, int row, int from, int to, int east, int west, int south, int north,
-                                 int tolerance, int[] out, byte[] flags) {
+    static int corners(byte[] data, int row, int from, int to, int[] ring, int tolerance, int n, int[] out, byte[] flags) {
         int lanes = LANES;
-        if (to - from < lanes) return FastScalarKernels.compassCandidates(data, row, from, to, east, west, south, north, tolerance, out);
+        if (to - from < lanes) return FastScalarKernels.corners(data, row, from, to, ring, tolerance, n, out);
         int count = 0;
-        byte t = (byte) tolerance, top = (byte) (255 - tolerance);
+        int east = ring[0], south = ring[4], west = ring[8], north = ring[12];
+        byte t = (byte) tolerance, top = (byte) (255 - tolerance), one = 1, length = (byte) n;
+        ByteVector zero = ByteVector.zero(BYTES);
         for (int x0 = from; x0 < to; x0 += lanes) {
             // the last block overlaps the one before; its lanes below x0 were already tested
             int start = Math.min(x0, to - lanes);
@@ -95,17 +99,29 @@ final class FastVectorKernels {
             VectorMask<Byte> brightEW = e.compare(VectorOperators.UNSIGNED_GT, upper).or(w.compare(VectorOperators.UNSIGNED_GT, upper));
             VectorMask<Byte> darkEW = e.compare(VectorOperators.UNSIGNED_LT, lower).or(w.compare(VectorOperators.UNSIGNED_LT, lower));
             if (!brightEW.or(darkEW).anyTrue()) continue;
-            ByteVector s = ByteVector.fromArray(BYTES, data, i + south), n = ByteVector.fromArray(BYTES, data, i + north);
-            VectorMask<Byte> bright = brightEW.and(s.compare(VectorOperators.UNSIGNED_GT, upper).or(n.compare(VectorOperators.UNSIGNED_GT, upper)));
-            VectorMask<Byte> dark = darkEW.and(s.compare(VectorOperators.UNSIGNED_LT, lower).or(n.compare(VectorOperators.UNSIGNED_LT, lower)));
-            // the mask as bytes (JDK 17 compiles no mask-to-long), read back eight lanes to a long
-            ByteVector.zero(BYTES).blend((byte) -1, bright.or(dark)).intoArray(flags, 0);
+            ByteVector s = ByteVector.fromArray(BYTES, data, i + south), nn = ByteVector.fromArray(BYTES, data, i + north);
+            VectorMask<Byte> bright = brightEW.and(s.compare(VectorOperators.UNSIGNED_GT, upper).or(nn.compare(VectorOperators.UNSIGNED_GT, upper)));
+            VectorMask<Byte> dark = darkEW.and(s.compare(VectorOperators.UNSIGNED_LT, lower).or(nn.compare(VectorOperators.UNSIGNED_LT, lower)));
+            if (!bright.or(dark).anyTrue()) continue;
+            ByteVector runBright = zero, runDark = zero, longestBright = zero, longestDark = zero;
+            for (int k = 0; k < 15 + n; k++) {
+                ByteVector p = ByteVector.fromArray(BYTES, data, i + ring[k & 15]);
+                runBright = zero.blend(runBright.add(one), p.compare(VectorOperators.UNSIGNED_GT, upper));
+                runDark = zero.blend(runDark.add(one), p.compare(VectorOperators.UNSIGNED_LT, lower));
+                longestBright = longestBright.max(runBright);
+                longestDark = longestDark.max(runDark);
+            }
+            VectorMask<Byte> brightCorner = longestBright.compare(VectorOperators.GE, length);
+            VectorMask<Byte> darkCorner = longestDark.compare(VectorOperators.GE, length);
+            if (!brightCorner.or(darkCorner).anyTrue()) continue;
+            // the masks as bytes, 1 brighter and 2 darker (JDK 17 compiles no mask-to-long), read back eight to a long
+            zero.blend((byte) 1, brightCorner).blend((byte) 2, darkCorner).intoArray(flags, 0);
             for (int j = 0; j < lanes; j += 8) {
                 long bits = (long) LONGS.get(flags, j);
                 while (bits != 0) {
                     int lowest = Long.numberOfTrailingZeros(bits) & ~7;
                     int x = start + j + (lowest >>> 3);
-                    if (x >= x0) out[count++] = x;
+                    if (x >= x0) out[count++] = (bits >>> lowest & 0xFF) == 2 ? x | FastScalarKernels.DARK : x;
                     bits &= ~(0xFFL << lowest);
                 }
             }

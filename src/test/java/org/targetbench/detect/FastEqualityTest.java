@@ -1,5 +1,10 @@
 package org.targetbench.detect;
 
+import boofcv.alg.feature.detect.intensity.impl.FastCornerInterface;
+import boofcv.alg.feature.detect.intensity.impl.ImplFastCorner10_U8;
+import boofcv.alg.feature.detect.intensity.impl.ImplFastCorner11_U8;
+import boofcv.alg.feature.detect.intensity.impl.ImplFastCorner12_U8;
+import boofcv.alg.feature.detect.intensity.impl.ImplFastCorner9_U8;
 import boofcv.misc.DiscretizedCircle;
 import boofcv.struct.image.GrayF32;
 import boofcv.struct.image.GrayU8;
@@ -85,7 +90,7 @@ class FastEqualityTest {
     }
 
     @Test
-    void vectorCompassCheckEqualsScalarCompassCheck() {
+    void vectorSegmentTestEqualsScalarSegmentTest() {
         assumeTrue(Simd.ENABLED, "needs --add-modules jdk.incubator.vector");
         Random random = new Random(7);
         for (int width : new int[]{7, 20, 70, 71, 133, 640}) {
@@ -96,22 +101,68 @@ class FastEqualityTest {
                     for (int i = 1; i < image.data.length; i++)
                         image.data[i] = (byte) (((image.data[i] & 0xFF) + (image.data[i - 1] & 0xFF)) / 2);
                 int[] ring = DiscretizedCircle.imageOffsets(FastSegmentTest.RADIUS, image.stride);
-                for (int tolerance : new int[]{1, 20, 60, 200, 254}) {
-                    int[] scalar = new int[width], vector = new int[width];
-                    byte[] flags = new byte[FastVectorKernels.LANES];
-                    for (int y = 3; y < image.height - 3; y++) {
-                        int row = y * image.stride;
-                        for (int from : new int[]{3, 4})
-                            for (int to : new int[]{width - 3, width - 4}) {
-                                if (to < from) continue;
-                                int ns = FastScalarKernels.compassCandidates(image.data, row, from, to, ring[0], ring[8], ring[4], ring[12], tolerance, scalar);
-                                int nv = FastVectorKernels.compassCandidates(image.data, row, from, to, ring[0], ring[8], ring[4], ring[12], tolerance, vector, flags);
-                                String what = "width " + width + " blur " + blur + " t " + tolerance + " row " + y + " x " + from + ".." + to;
-                                assertArrayEquals(Arrays.copyOf(scalar, ns), Arrays.copyOf(vector, nv), what);
-                            }
+                for (int tolerance : new int[]{1, 20, 60, 200, 254})
+                    for (int n = 9; n <= 12; n++) {
+                        int[] scalar = new int[width], vector = new int[width];
+                        byte[] flags = new byte[Math.max(8, FastVectorKernels.LANES)];
+                        for (int y = 3; y < image.height - 3; y++) {
+                            int row = y * image.stride;
+                            for (int from : new int[]{3, 4})
+                                for (int to : new int[]{width - 3, width - 4}) {
+                                    if (to < from) continue;
+                                    int ns = FastScalarKernels.corners(image.data, row, from, to, ring, tolerance, n, scalar);
+                                    int nv = FastVectorKernels.corners(image.data, row, from, to, ring, tolerance, n, vector, flags);
+                                    String what = "width " + width + " blur " + blur + " t " + tolerance + " n " + n + " row " + y + " x " + from + ".." + to;
+                                    assertArrayEquals(Arrays.copyOf(scalar, ns), Arrays.copyOf(vector, nv), what);
+                                }
+                        }
                     }
-                }
             }
+        }
+    }
+
+    /**
+     * The arc test that replaced BoofCV's generated decision trees answers as they do (derived: both decide "n
+     * contiguous ring pixels beyond the tolerance on one side"; checked by hand on all 3^16 patterns for n = 9..12,
+     * here on a seeded sample and on every single arc of 7 to 16 pixels).
+     */
+    @Test
+    void arcTestAnswersAsBoofCvsDecisionTree() {
+        Random random = new Random(3);
+        int tolerance = 20, centre = 3 * 7 + 3;
+        GrayU8 image = new GrayU8(7, 7);
+        int[] ring = DiscretizedCircle.imageOffsets(FastSegmentTest.RADIUS, image.stride);
+        image.data[centre] = (byte) 128;
+        for (int n = 9; n <= 12; n++) {
+            FastCornerInterface<GrayU8> tree = switch (n) {
+                case 9 -> new ImplFastCorner9_U8(tolerance);
+                case 10 -> new ImplFastCorner10_U8(tolerance);
+                case 11 -> new ImplFastCorner11_U8(tolerance);
+                default -> new ImplFastCorner12_U8(tolerance);
+            };
+            tree.setImage(image, ring);
+            int corners = 0;
+            for (int trial = 0; trial < 200_000; trial++) {
+                int[] classes = new int[16]; // 0 neither, 1 brighter, 2 darker
+                if (trial < 16 * 10) { // one arc of 7..16 brighter or darker pixels from every start, the rest neither
+                    int start = trial % 16, length = 7 + trial / 16 % 10;
+                    for (int k = 0; k < length; k++) classes[(start + k) % 16] = 1 + trial % 2;
+                } else {
+                    int bias = random.nextInt(3); // mostly one class, so that long arcs occur
+                    for (int k = 0; k < 16; k++) classes[k] = random.nextInt(4) == 0 ? random.nextInt(3) : bias;
+                }
+                int bright = 0, dark = 0;
+                for (int k = 0; k < 16; k++) {
+                    image.data[centre + ring[k]] = (byte) (classes[k] == 0 ? 128 : classes[k] == 1 ? 200 : 50);
+                    if (classes[k] == 1) bright |= 1 << k;
+                    if (classes[k] == 2) dark |= 1 << k;
+                }
+                int expected = Integer.signum(tree.checkPixel(centre));
+                int actual = FastScalarKernels.hasArc(bright, n) ? 1 : FastScalarKernels.hasArc(dark, n) ? -1 : 0;
+                assertEquals(expected, actual, "n " + n + ", brighter " + Integer.toBinaryString(bright) + ", darker " + Integer.toBinaryString(dark));
+                if (actual != 0) corners++;
+            }
+            assertTrue(corners > 1000, "n " + n + ": the sample must hold corners");
         }
     }
 
