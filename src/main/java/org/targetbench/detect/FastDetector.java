@@ -99,14 +99,19 @@ final class FastDetector implements PointDetector {
             int centre = score.startIndex + y * score.stride + x;
             float v = d[centre];
             if (sign < 0 ? (v > 0f || v == -Float.MAX_VALUE) : (v < 0f || v == Float.MAX_VALUE)) continue;
+            // the same rule with the sign folded in (multiplying by -1f is exact): a peak beats every other s*score
+            float sg = sign, sv = sg * v;
+            int stride = score.stride;
+            // the four neighbours first: corners cluster, and most that lose, lose to one of them
+            if (sg * d[centre - 1] >= sv || sg * d[centre + 1] >= sv
+                    || sg * d[centre - stride] >= sv || sg * d[centre + stride] >= sv) continue;
             int x0 = Math.max(0, x - radius), x1 = Math.min(w, x + radius + 1);
             int y0 = Math.max(0, y - radius), y1 = Math.min(h, y + radius + 1);
             boolean peak = true;
             for (int yy = y0; yy < y1 && peak; yy++) {
-                int index = score.startIndex + yy * score.stride + x0;
+                int index = score.startIndex + yy * stride + x0;
                 for (int xx = x0; xx < x1; xx++, index++) {
-                    if (index == centre) continue;
-                    if (sign < 0 ? v >= d[index] : v <= d[index]) { peak = false; break; }
+                    if (index != centre && sg * d[index] >= sv) { peak = false; break; }
                 }
             }
             if (!peak) continue;

@@ -159,7 +159,8 @@ class FastEqualityTest {
                 }
                 int expected = Integer.signum(tree.checkPixel(centre));
                 int actual = FastScalarKernels.hasArc(bright, n) ? 1 : FastScalarKernels.hasArc(dark, n) ? -1 : 0;
-                assertEquals(expected, actual, "n " + n + ", brighter " + Integer.toBinaryString(bright) + ", darker " + Integer.toBinaryString(dark));
+                int b = bright, d = dark, length = n;
+                assertEquals(expected, actual, () -> "n " + length + ", brighter " + Integer.toBinaryString(b) + ", darker " + Integer.toBinaryString(d));
                 if (actual != 0) corners++;
             }
             assertTrue(corners > 1000, "n " + n + ": the sample must hold corners");
@@ -191,8 +192,9 @@ class FastEqualityTest {
         FastScalarKernels.toU8(image.data, image.startIndex, image.stride, twin.data, twin.startIndex, twin.stride, image.width, image.height);
         for (int y = 0; y < image.height; y++)
             for (int x = 0; x < image.width; x++) {
-                assertEquals(scalar.get(x, y), vector.get(x, y), what + ": pixel " + x + "," + y + " = " + image.get(x, y));
-                assertEquals(scalar.get(x, y), twin.get(x, y), what + ": scalar twin, pixel " + x + "," + y);
+                int px = x, py = y;
+                assertEquals(scalar.get(x, y), vector.get(x, y), () -> what + ": pixel " + px + "," + py + " = " + image.get(px, py));
+                assertEquals(scalar.get(x, y), twin.get(x, y), () -> what + ": scalar twin, pixel " + px + "," + py);
             }
     }
 
