@@ -92,7 +92,7 @@ final class FastVectorKernels {
         if (to - from < lanes) return FastScalarKernels.corners(data, row, from, to, ring, tolerance, n, out);
         int count = 0;
         int east = ring[0], south = ring[4], west = ring[8], north = ring[12];
-        byte t = (byte) tolerance, top = (byte) (255 - tolerance), one = 1, length = (byte) n;
+        byte t = (byte) tolerance, top = (byte) (255 - tolerance), length = (byte) n;
         ByteVector zero = ByteVector.zero(BYTES);
         for (int x0 = from; x0 < to; x0 += lanes) {
             // the last block overlaps the one before; its lanes below x0 were already tested
@@ -110,16 +110,11 @@ final class FastVectorKernels {
             VectorMask<Byte> bright = brightEW.and(s.compare(VectorOperators.UNSIGNED_GT, upper).or(nn.compare(VectorOperators.UNSIGNED_GT, upper)));
             VectorMask<Byte> dark = darkEW.and(s.compare(VectorOperators.UNSIGNED_LT, lower).or(nn.compare(VectorOperators.UNSIGNED_LT, lower)));
             if (!bright.or(dark).anyTrue()) continue;
-            ByteVector runBright = zero, runDark = zero, longestBright = zero, longestDark = zero;
-            for (int k = 0; k < 15 + n; k++) {
-                ByteVector p = ByteVector.fromArray(BYTES, data, i + ring[k & 15]);
-                runBright = zero.blend(runBright.add(one), p.compare(VectorOperators.UNSIGNED_GT, upper));
-                runDark = zero.blend(runDark.add(one), p.compare(VectorOperators.UNSIGNED_LT, lower));
-                longestBright = longestBright.max(runBright);
-                longestDark = longestDark.max(runDark);
-            }
-            VectorMask<Byte> brightCorner = longestBright.compare(VectorOperators.GE, length);
-            VectorMask<Byte> darkCorner = longestDark.compare(VectorOperators.GE, length);
+            // the whole ring only for the sides that some lane may still have
+            VectorMask<Byte> brightCorner = bright.anyTrue()
+                    ? longestBrighter(data, i, ring, n, upper).compare(VectorOperators.GE, length) : bright;
+            VectorMask<Byte> darkCorner = dark.anyTrue()
+                    ? longestDarker(data, i, ring, n, lower).compare(VectorOperators.GE, length) : dark;
             if (!brightCorner.or(darkCorner).anyTrue()) continue;
             // the masks as bytes, 1 brighter and 2 darker (JDK 17 compiles no mask-to-long), read back eight to a long
             zero.blend((byte) 1, brightCorner).blend((byte) 2, darkCorner).intoArray(flags, 0);
@@ -134,5 +129,30 @@ final class FastVectorKernels {
             }
         }
         return count;
+    }
+
+    /**
+     * Per lane, the longest run of ring pixels brighter than {@code upper} over the ring positions 0..15 and then
+     * 0..n-2 again (so that a run through position 0 is counted whole; at most 15 + n, which fits a byte).
+     */
+    private static ByteVector longestBrighter(byte[] data, int i, int[] ring, int n, ByteVector upper) {
+        ByteVector zero = ByteVector.zero(BYTES), run = zero, longest = zero;
+        for (int k = 0; k < 15 + n; k++) {
+            ByteVector p = ByteVector.fromArray(BYTES, data, i + ring[k & 15]);
+            run = zero.blend(run.add((byte) 1), p.compare(VectorOperators.UNSIGNED_GT, upper));
+            longest = longest.max(run);
+        }
+        return longest;
+    }
+
+    /** As {@link #longestBrighter}, for ring pixels darker than {@code lower}. */
+    private static ByteVector longestDarker(byte[] data, int i, int[] ring, int n, ByteVector lower) {
+        ByteVector zero = ByteVector.zero(BYTES), run = zero, longest = zero;
+        for (int k = 0; k < 15 + n; k++) {
+            ByteVector p = ByteVector.fromArray(BYTES, data, i + ring[k & 15]);
+            run = zero.blend(run.add((byte) 1), p.compare(VectorOperators.UNSIGNED_LT, lower));
+            longest = longest.max(run);
+        }
+        return longest;
     }
 }
