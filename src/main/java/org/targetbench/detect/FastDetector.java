@@ -88,30 +88,43 @@ final class FastDetector implements PointDetector {
      * Strict non-maximum suppression of one polarity's candidates (as BoofCV's candidate search: a candidate at least
      * {@code border} from the edges, of the right sign, beating every other score within {@code nmsRadius}, the window
      * clipped to the frame); adds each survivor with its |score| and returns the largest |score| so far.
+     *
+     * <p>Only corners of the same polarity can beat a candidate (every other pixel scores 0 or has the other sign),
+     * so the window is searched in the polarity's own list, which is in raster order: for each row of the window, the
+     * corners of that row with x within the radius. The same rule as reading the whole window of the score image,
+     * without touching it.
      */
     private float suppress(ListIntPoint2D candidates, int sign, int border, float strongest) {
-        int w = score.width, h = score.height, radius = config.nmsRadius;
+        int w = score.width, h = score.height, radius = config.nmsRadius, size = candidates.size();
+        if (xs.length < size) { xs = new int[2 * size]; ys = new int[2 * size]; values = new float[2 * size]; }
+        if (rowStart.length < h + 1) rowStart = new int[h + 1];
         float[] d = score.data;
-        for (int i = 0; i < candidates.size(); i++) {
+        // the list by rows: rowStart[y] .. rowStart[y + 1] - 1 are the corners of row y, in increasing x
+        int row = 0;
+        for (int i = 0; i < size; i++) {
             candidates.get(i, point);
-            int x = point.x, y = point.y;
+            xs[i] = point.x; ys[i] = point.y;
+            values[i] = d[score.startIndex + point.y * score.stride + point.x];
+            while (row <= point.y) rowStart[row++] = i;
+        }
+        while (row <= h) rowStart[row++] = size;
+        float sg = sign;
+        for (int i = 0; i < size; i++) {
+            int x = xs[i], y = ys[i];
             if (x < border || y < border || x >= w - border || y >= h - border) continue;
-            int centre = score.startIndex + y * score.stride + x;
-            float v = d[centre];
+            float v = values[i];
             if (sign < 0 ? (v > 0f || v == -Float.MAX_VALUE) : (v < 0f || v == Float.MAX_VALUE)) continue;
-            // the same rule with the sign folded in (multiplying by -1f is exact): a peak beats every other s*score
-            float sg = sign, sv = sg * v;
-            int stride = score.stride;
-            // the four neighbours first: corners cluster, and most that lose, lose to one of them
-            if (sg * d[centre - 1] >= sv || sg * d[centre + 1] >= sv
-                    || sg * d[centre - stride] >= sv || sg * d[centre + stride] >= sv) continue;
-            int x0 = Math.max(0, x - radius), x1 = Math.min(w, x + radius + 1);
-            int y0 = Math.max(0, y - radius), y1 = Math.min(h, y + radius + 1);
+            // with the sign folded in (multiplying by -1f is exact), a peak beats every other s * score in the window
+            float sv = sg * v;
+            int x0 = x - radius, x1 = x + radius;
+            int y0 = Math.max(0, y - radius), y1 = Math.min(h - 1, y + radius);
             boolean peak = true;
-            for (int yy = y0; yy < y1 && peak; yy++) {
-                int index = score.startIndex + yy * stride + x0;
-                for (int xx = x0; xx < x1; xx++, index++) {
-                    if (index != centre && sg * d[index] >= sv) { peak = false; break; }
+            for (int yy = y0; yy <= y1 && peak; yy++) {
+                for (int j = rowStart[yy], end = rowStart[yy + 1]; j < end; j++) {
+                    int xj = xs[j];
+                    if (xj < x0) continue;
+                    if (xj > x1) break;
+                    if (j != i && sg * values[j] >= sv) { peak = false; break; }
                 }
             }
             if (!peak) continue;
@@ -121,4 +134,7 @@ final class FastDetector implements PointDetector {
         }
         return strongest;
     }
+
+    private int[] xs = new int[0], ys = new int[0], rowStart = new int[0];
+    private float[] values = new float[0];
 }
