@@ -120,10 +120,13 @@ final class FastDetector implements PointDetector {
             int y0 = Math.max(0, y - radius), y1 = Math.min(h - 1, y + radius);
             boolean peak = true;
             for (int yy = y0; yy <= y1 && peak; yy++) {
-                for (int j = rowStart[yy], end = rowStart[yy + 1]; j < end; j++) {
-                    int xj = xs[j];
-                    if (xj < x0) continue;
-                    if (xj > x1) break;
+                int j = rowStart[yy], end = rowStart[yy + 1];
+                for (int hi = end; j < hi; ) { // the first corner of the row with x >= x0 (rows can hold dozens)
+                    int mid = (j + hi) >>> 1;
+                    if (xs[mid] < x0) j = mid + 1; else hi = mid;
+                }
+                for (; j < end; j++) {
+                    if (xs[j] > x1) break;
                     if (j != i && sg * values[j] >= sv) { peak = false; break; }
                 }
             }
