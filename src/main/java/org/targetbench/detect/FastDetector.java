@@ -19,11 +19,13 @@ import java.util.List;
  *
  * <p>Speed without changing the result: the segment test skips pixels that fail a necessary compass-point check
  * ({@link FastSegmentTest}), and non-maximum suppression (strict: a point must beat every other score within
- * {@code nmsRadius}) visits only the pixels that passed the segment test rather than the whole score image. Every
- * other pixel scores exactly 0 and is never reported, so both shortcuts find the same points as BoofCV's general
- * FAST detector. The compass scan skips eight pixels at a time when none of their E and W pixels is beyond the
- * tolerance (bytes compared eight at a time in a long, exactly). The score image is reused: only corners are written and only they are reset after the frame, and
- * only the strongest {@code maxFeatures} are ordered ({@link CornerPeaks}).
+ * {@code nmsRadius}) visits only the pixels that passed the segment test rather than the whole score image, and
+ * rejects most of them on their four neighbours before reading the window. Every other pixel scores exactly 0 and is
+ * never reported, so both shortcuts find the same points as BoofCV's general FAST detector. With the Vector API
+ * ({@link org.targetbench.Simd#ENABLED}) the 8-bit rounding and the segment test run on 8 floats or 32 bytes per
+ * instruction ({@link FastVectorKernels}); without it, on their scalar twins ({@link FastScalarKernels}), with
+ * identical output. The 8-bit frame and the score image are reused: only corners are written and only they are reset
+ * after the frame, and only the strongest {@code maxFeatures} are ordered ({@link CornerPeaks}).
  *
  * <p>Caveats: integer-pixel positions (the segment test gives no sub-pixel information); no smoothing, so noise
  * creates corners. Works on the 8-bit rounding of the frame. Single threaded.
@@ -88,46 +90,30 @@ final class FastDetector implements PointDetector {
      * Strict non-maximum suppression of one polarity's candidates (as BoofCV's candidate search: a candidate at least
      * {@code border} from the edges, of the right sign, beating every other score within {@code nmsRadius}, the window
      * clipped to the frame); adds each survivor with its |score| and returns the largest |score| so far.
-     *
-     * <p>Only corners of the same polarity can beat a candidate (every other pixel scores 0 or has the other sign),
-     * so the window is searched in the polarity's own list, which is in raster order: for each row of the window, the
-     * corners of that row with x within the radius. The same rule as reading the whole window of the score image,
-     * without touching it.
      */
     private float suppress(ListIntPoint2D candidates, int sign, int border, float strongest) {
-        int w = score.width, h = score.height, radius = config.nmsRadius, size = candidates.size();
-        if (xs.length < size) { xs = new int[2 * size]; ys = new int[2 * size]; values = new float[2 * size]; }
-        if (rowStart.length < h + 1) rowStart = new int[h + 1];
+        int w = score.width, h = score.height, radius = config.nmsRadius;
         float[] d = score.data;
-        // the list by rows: rowStart[y] .. rowStart[y + 1] - 1 are the corners of row y, in increasing x
-        int row = 0;
-        for (int i = 0; i < size; i++) {
+        for (int i = 0; i < candidates.size(); i++) {
             candidates.get(i, point);
-            xs[i] = point.x; ys[i] = point.y;
-            values[i] = d[score.startIndex + point.y * score.stride + point.x];
-            while (row <= point.y) rowStart[row++] = i;
-        }
-        while (row <= h) rowStart[row++] = size;
-        float sg = sign;
-        for (int i = 0; i < size; i++) {
-            int x = xs[i], y = ys[i];
+            int x = point.x, y = point.y;
             if (x < border || y < border || x >= w - border || y >= h - border) continue;
-            float v = values[i];
+            int centre = score.startIndex + y * score.stride + x;
+            float v = d[centre];
             if (sign < 0 ? (v > 0f || v == -Float.MAX_VALUE) : (v < 0f || v == Float.MAX_VALUE)) continue;
-            // with the sign folded in (multiplying by -1f is exact), a peak beats every other s * score in the window
-            float sv = sg * v;
-            int x0 = x - radius, x1 = x + radius;
-            int y0 = Math.max(0, y - radius), y1 = Math.min(h - 1, y + radius);
+            // the same rule with the sign folded in (multiplying by -1f is exact): a peak beats every other s*score
+            float sg = sign, sv = sg * v;
+            int stride = score.stride;
+            // the four neighbours first: corners cluster, and most that lose, lose to one of them
+            if (sg * d[centre - 1] >= sv || sg * d[centre + 1] >= sv
+                    || sg * d[centre - stride] >= sv || sg * d[centre + stride] >= sv) continue;
+            int x0 = Math.max(0, x - radius), x1 = Math.min(w, x + radius + 1);
+            int y0 = Math.max(0, y - radius), y1 = Math.min(h, y + radius + 1);
             boolean peak = true;
-            for (int yy = y0; yy <= y1 && peak; yy++) {
-                int j = rowStart[yy], end = rowStart[yy + 1];
-                for (int hi = end; j < hi; ) { // the first corner of the row with x >= x0 (rows can hold dozens)
-                    int mid = (j + hi) >>> 1;
-                    if (xs[mid] < x0) j = mid + 1; else hi = mid;
-                }
-                for (; j < end; j++) {
-                    if (xs[j] > x1) break;
-                    if (j != i && sg * values[j] >= sv) { peak = false; break; }
+            for (int yy = y0; yy < y1 && peak; yy++) {
+                int index = score.startIndex + yy * stride + x0;
+                for (int xx = x0; xx < x1; xx++, index++) {
+                    if (index != centre && sg * d[index] >= sv) { peak = false; break; }
                 }
             }
             if (!peak) continue;
@@ -137,7 +123,4 @@ final class FastDetector implements PointDetector {
         }
         return strongest;
     }
-
-    private int[] xs = new int[0], ys = new int[0], rowStart = new int[0];
-    private float[] values = new float[0];
 }

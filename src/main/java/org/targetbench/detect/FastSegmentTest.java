@@ -9,26 +9,25 @@ import org.targetbench.Simd;
 import java.util.Arrays;
 
 /**
- * The FAST segment test over a whole 8-bit image: a cheap rejection of pixels that cannot be corners, then, for the
- * rest, the exact segment test on two 16-bit ring patterns and BoofCV's score.
+ * The FAST segment test over a whole 8-bit image: a cheap rejection of pixels that cannot be corners, then the exact
+ * segment test on the rest, then BoofCV's score for the corners.
  *
  * <p>A pixel of grey c is a corner when at least n (9..12) contiguous pixels of the 16-pixel ring of radius 3 are all
  * brighter than c + t, or all darker than c - t [1]. The ring's compass pixels E, S, W, N (offsets (3,0), (0,3),
  * (-3,0), (0,-3)) sit at ring positions 0, 4, 8 and 12, so every arc of 9 or more contiguous positions holds two
  * neighbouring compass pixels: one of E and W, and one of S and N. A pixel is therefore only tested further when
  * (E or W) and (S or N) are beyond the tolerance on the same side (the high-speed test of [1], in the form that holds
- * for n = 9); every other pixel scores 0. That pre-check runs on many pixels at once: 32 or 64 per instruction with
- * the Vector API ({@link FastVectorKernels}), else eight per long ({@link FastScalarKernels}); both give the same
- * candidates.
+ * for n = 9); every other pixel scores 0.
  *
- * <p>Each candidate's ring becomes two bit patterns (bit k set when ring pixel k is brighter than c + t, or darker
- * than c - t), and an arc of n ones is found by doubling on the pattern written twice in one int: bit k of
- * r<sub>2m</sub> = r<sub>m</sub> &amp; (r<sub>m</sub> &gt;&gt;&gt; m) says that bits k..k+2m-1 are all set. This is
- * the rule BoofCV's generated decision trees ({@code ImplFastCorner9_U8} .. {@code 12}) decide; they were replaced
- * after checking by hand that both answer alike on all 3^16 ways of a ring being brighter, darker or neither, for each
- * n ({@code FastEqualityTest} repeats the check on a sample). The score of a corner is BoofCV's: the sum of
- * p - c over the ring pixels beyond the tolerance on the corner's side (negative for darker rings). The output
- * (score image and candidate lists) is the same as BoofCV's {@code FastCornerDetector}.
+ * <p>Two implementations with the same output, one row at a time: with the Vector API ({@link FastVectorKernels}),
+ * 32 pixels per block, the compass check and, in blocks where a lane passes it, the run lengths around the whole
+ * ring per lane; without it ({@link FastScalarKernels}), the compass check eight pixels to a long, then per
+ * candidate two 16-bit ring patterns searched for an arc by doubling. Both decide the rule BoofCV's generated decision
+ * trees ({@code ImplFastCorner9_U8} .. {@code 12}) decide: the trees were replaced after checking by hand that they
+ * answer alike on all 3^16 ways of a ring being brighter, darker or neither, for each n ({@code FastEqualityTest}
+ * repeats the check on a sample and runs the two kernels against each other). The score of a corner is BoofCV's:
+ * the sum of p - c over the ring pixels beyond the tolerance on the corner's side (negative for darker rings). The
+ * output (score image and candidate lists) is the same as BoofCV's {@code FastCornerDetector}.
  *
  * <p>Caveat: single threaded, whatever BoofCV's concurrency setting.
  *

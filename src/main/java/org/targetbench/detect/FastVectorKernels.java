@@ -20,8 +20,8 @@ import java.nio.ByteOrder;
  * <p>Each kernel has a scalar twin with identical output ({@link FastScalarKernels}); {@code FastEqualityTest} runs
  * both directly and compares them. Every operation is lane-wise (no reduction, no reordering of float arithmetic),
  * and the pixels left over at the end of a row are handled by the scalar twin or by re-reading an overlapping block,
- * so the output does not depend on the lane count ({@code SPECIES_PREFERRED}: 16 float lanes with AVX-512, 8 with
- * AVX2).
+ * so the output does not depend on the lane count (the preferred shape capped at 256 bits: 8 float or 32 byte lanes
+ * with AVX2 or AVX-512; 128-bit machines get 4 and 16, and round in scalar code).
  */
 final class FastVectorKernels {
     private FastVectorKernels() {}
@@ -34,11 +34,13 @@ final class FastVectorKernels {
     private static final VectorShape SHAPE = VectorShape.forBitSize(Math.min(256, VectorShape.preferredShape().vectorBitSize()));
     private static final VectorSpecies<Float> FLOATS = FloatVector.SPECIES_PREFERRED.withShape(SHAPE);
     private static final VectorSpecies<Integer> INTS = IntVector.SPECIES_PREFERRED.withShape(SHAPE);
-    /** As many byte lanes as {@link #FLOATS} has float lanes (a quarter of the bits). */
+    /** As many byte lanes as {@link #FLOATS} has float lanes (a quarter of the bits; 64 at least, as the API has). */
     private static final VectorSpecies<Byte> NARROW =
-            VectorSpecies.of(byte.class, VectorShape.forBitSize(FLOATS.vectorBitSize() / 4));
+            VectorSpecies.of(byte.class, VectorShape.forBitSize(Math.max(64, FLOATS.vectorBitSize() / 4)));
+    /** Whether {@link #NARROW} holds exactly one byte per float lane (256 bits up); else the rounding stays scalar. */
+    private static final boolean ROUND_IN_VECTORS = FLOATS.length() == NARROW.length();
     private static final VectorSpecies<Byte> BYTES = ByteVector.SPECIES_PREFERRED.withShape(SHAPE);
-    /** Byte lanes of the segment test (16, 32 or 64: a multiple of 8). */
+    /** Byte lanes of the segment test (16 or 32: a multiple of 8). */
     static final int LANES = BYTES.length();
     /** Eight bytes of an array read as one long (little-endian: lane j in byte j). */
     private static final VarHandle LONGS = MethodHandles.byteArrayViewVarHandle(long[].class, ByteOrder.LITTLE_ENDIAN);
@@ -59,7 +61,7 @@ final class FastVectorKernels {
      */
     static void toU8(float[] src, int srcStart, int srcStride, byte[] dst, int dstStart, int dstStride, int width, int height) {
         int lanes = FLOATS.length();
-        int bound = width - width % lanes;
+        int bound = ROUND_IN_VECTORS ? width - width % lanes : 0;
         for (int y = 0; y < height; y++) {
             int si = srcStart + y * srcStride, di = dstStart + y * dstStride;
             int x = 0;
@@ -92,7 +94,7 @@ final class FastVectorKernels {
         if (to - from < lanes) return FastScalarKernels.corners(data, row, from, to, ring, tolerance, n, out);
         int count = 0;
         int east = ring[0], south = ring[4], west = ring[8], north = ring[12];
-        byte t = (byte) tolerance, top = (byte) (255 - tolerance), length = (byte) n;
+        byte t = (byte) tolerance, top = (byte) (255 - tolerance), one = 1, length = (byte) n;
         ByteVector zero = ByteVector.zero(BYTES);
         for (int x0 = from; x0 < to; x0 += lanes) {
             // the last block overlaps the one before; its lanes below x0 were already tested
@@ -110,11 +112,16 @@ final class FastVectorKernels {
             VectorMask<Byte> bright = brightEW.and(s.compare(VectorOperators.UNSIGNED_GT, upper).or(nn.compare(VectorOperators.UNSIGNED_GT, upper)));
             VectorMask<Byte> dark = darkEW.and(s.compare(VectorOperators.UNSIGNED_LT, lower).or(nn.compare(VectorOperators.UNSIGNED_LT, lower)));
             if (!bright.or(dark).anyTrue()) continue;
-            // the whole ring only for the sides that some lane may still have
-            VectorMask<Byte> brightCorner = bright.anyTrue()
-                    ? longestBrighter(data, i, ring, n, upper).compare(VectorOperators.GE, length) : bright;
-            VectorMask<Byte> darkCorner = dark.anyTrue()
-                    ? longestDarker(data, i, ring, n, lower).compare(VectorOperators.GE, length) : dark;
+            ByteVector runBright = zero, runDark = zero, longestBright = zero, longestDark = zero;
+            for (int k = 0; k < 15 + n; k++) {
+                ByteVector p = ByteVector.fromArray(BYTES, data, i + ring[k & 15]);
+                runBright = zero.blend(runBright.add(one), p.compare(VectorOperators.UNSIGNED_GT, upper));
+                runDark = zero.blend(runDark.add(one), p.compare(VectorOperators.UNSIGNED_LT, lower));
+                longestBright = longestBright.max(runBright);
+                longestDark = longestDark.max(runDark);
+            }
+            VectorMask<Byte> brightCorner = longestBright.compare(VectorOperators.GE, length);
+            VectorMask<Byte> darkCorner = longestDark.compare(VectorOperators.GE, length);
             if (!brightCorner.or(darkCorner).anyTrue()) continue;
             // the masks as bytes, 1 brighter and 2 darker (JDK 17 compiles no mask-to-long), read back eight to a long
             zero.blend((byte) 1, brightCorner).blend((byte) 2, darkCorner).intoArray(flags, 0);
@@ -129,30 +136,5 @@ final class FastVectorKernels {
             }
         }
         return count;
-    }
-
-    /**
-     * Per lane, the longest run of ring pixels brighter than {@code upper} over the ring positions 0..15 and then
-     * 0..n-2 again (so that a run through position 0 is counted whole; at most 15 + n, which fits a byte).
-     */
-    private static ByteVector longestBrighter(byte[] data, int i, int[] ring, int n, ByteVector upper) {
-        ByteVector zero = ByteVector.zero(BYTES), run = zero, longest = zero;
-        for (int k = 0; k < 15 + n; k++) {
-            ByteVector p = ByteVector.fromArray(BYTES, data, i + ring[k & 15]);
-            run = zero.blend(run.add((byte) 1), p.compare(VectorOperators.UNSIGNED_GT, upper));
-            longest = longest.max(run);
-        }
-        return longest;
-    }
-
-    /** As {@link #longestBrighter}, for ring pixels darker than {@code lower}. */
-    private static ByteVector longestDarker(byte[] data, int i, int[] ring, int n, ByteVector lower) {
-        ByteVector zero = ByteVector.zero(BYTES), run = zero, longest = zero;
-        for (int k = 0; k < 15 + n; k++) {
-            ByteVector p = ByteVector.fromArray(BYTES, data, i + ring[k & 15]);
-            run = zero.blend(run.add((byte) 1), p.compare(VectorOperators.UNSIGNED_LT, lower));
-            longest = longest.max(run);
-        }
-        return longest;
     }
 }
