@@ -90,7 +90,7 @@ class FusedKernelEqualityTest {
                 int lane = (a * 256 + b) % 8, shift = 8 * lane;
                 long la = (random.nextLong() & ~(0xFFL << shift)) | ((long) a << shift);
                 long lb = (random.nextLong() & ~(0xFFL << shift)) | ((long) b << shift);
-                assertEquals(Math.max(a - b, 0), (int) ((FastSegmentTest.subSat(la, lb) >>> shift) & 0xFF), a + " - " + b);
+                assertEquals(Math.max(a - b, 0), (int) ((FastScalarKernels.subSat(la, lb) >>> shift) & 0xFF), a + " - " + b);
             }
     }
 
