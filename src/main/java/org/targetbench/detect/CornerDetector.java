@@ -44,10 +44,16 @@ final class CornerDetector implements PointDetector {
     /** The fused streaming response (Gaussian window only); null for the box window, which stays on the library. */
     private final CornerResponse fused;
     private final int ignoreBorder;
-    private final CornerPeaks peakFinder = new CornerPeaks();
+    private final CornerPeaks peakFinder;
 
     CornerDetector(CornerConfig config) {
+        this(config, org.targetbench.Simd.ENABLED);
+    }
+
+    /** @param simd the vector loops of the fused kernel (only when the vector module is present); same output */
+    CornerDetector(CornerConfig config, boolean simd) {
         this.config = config;
+        peakFinder = new CornerPeaks(simd);
         intensity = config instanceof HarrisConfig h
                 ? FactoryIntensityPointAlg.harris(h.windowRadius, (float) h.kappa, h.weighted, GrayF32.class)
                 : FactoryIntensityPointAlg.shiTomasi(config.windowRadius, config.weighted, GrayF32.class);
@@ -56,7 +62,7 @@ final class CornerDetector implements PointDetector {
                 Math.max(config.nmsRadius, intensity.getIgnoreBorder()), false, false, true));
         ignoreBorder = Math.max(config.nmsRadius, intensity.getIgnoreBorder());
         fused = config.weighted ? new CornerResponse(config.windowRadius, config instanceof HarrisConfig,
-                config instanceof HarrisConfig h ? h.kappa : 0) : null;
+                config instanceof HarrisConfig h ? h.kappa : 0, simd) : null;
     }
 
     @Override public DetectorType type() { return config.type(); }

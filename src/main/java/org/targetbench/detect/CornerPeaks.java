@@ -1,6 +1,7 @@
 package org.targetbench.detect;
 
 import boofcv.struct.image.GrayF32;
+import org.targetbench.Simd;
 
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -14,13 +15,26 @@ import java.util.List;
  * <p>Rule (the same as BoofCV's relaxed block search with this threshold and border): a pixel at least {@code border}
  * from every edge is a peak when its response is at or above the threshold and no pixel within {@code radius} (a
  * square window clipped to the frame) has a strictly larger response, so flat-topped peaks keep every pixel.
- * Buffers grow as needed and are reused from call to call.
+ * Buffers grow as needed and are reused from call to call. With {@link Simd#ENABLED} the search for the next pixel at or
+ * above the threshold compares a vector of pixels at a time ({@link CornerVectors#firstAtLeast}); the pixels are still
+ * visited in the same order, so the points are the same.
  */
 final class CornerPeaks {
+    /** Vector threshold scan instead of the scalar one; same output. */
+    private final boolean simd;
     private int count;
     private float[] value = new float[256];
     private double[] px = new double[256], py = new double[256];
     private int[] heap = new int[64];
+
+    CornerPeaks() {
+        this(Simd.ENABLED);
+    }
+
+    /** @param simd the vector threshold scan (only when the vector module is present; {@link Simd#ENABLED} by default) */
+    CornerPeaks(boolean simd) {
+        this.simd = simd;
+    }
 
     /**
      * @param threshold the suppression's threshold (float, as the library compares)
@@ -31,14 +45,22 @@ final class CornerPeaks {
         int w = r.width, h = r.height;
         float[] d = r.data;
         for (int y = border; y < h - border; y++) {
-            int row = r.startIndex + y * r.stride;
-            for (int x = border; x < w - border; x++) {
-                float v = d[row + x];
-                if (!(v >= threshold)) continue;
+            int row = r.startIndex + y * r.stride, end = row + w - border;
+            for (int i = row + border; i < end; i++) {
+                i = simd ? CornerVectors.firstAtLeast(d, i, end, threshold) : firstAtLeast(d, i, end, threshold);
+                if (i == end) break;
+                int x = i - row;
+                float v = d[i];
                 if (isPeak(r, x, y, v, radius)) add(r, x, y, v, cut);
             }
         }
         return top(maxFeatures, scale);
+    }
+
+    /** Scalar twin of {@link CornerVectors#firstAtLeast}: the first index in from..to-1 at or above t, else to. */
+    private static int firstAtLeast(float[] d, int from, int to, float t) {
+        for (int i = from; i < to; i++) if (d[i] >= t) return i;
+        return to;
     }
 
     private static boolean isPeak(GrayF32 r, int xc, int yc, float v, int radius) {

@@ -5,6 +5,7 @@ import boofcv.factory.filter.kernel.FactoryKernelGaussian;
 import boofcv.struct.convolve.Kernel1D_F32;
 import boofcv.struct.convolve.Kernel2D_F32;
 import boofcv.struct.image.GrayF32;
+import org.targetbench.Simd;
 
 /**
  * The structure-tensor corner response of {@link CornerDetector} with a Gaussian window, computed in one streaming
@@ -18,6 +19,10 @@ import boofcv.struct.image.GrayF32;
  * pixel), bit for bit: every sum is accumulated in the same order with the same float operations, so the points and
  * responses do not change. A Gaussian window cannot use running (box) sums; the separable form with reused row
  * buffers is what keeps the memory traffic to one read of the frame and one write of the response.
+ *
+ * <p>With {@link Simd#ENABLED} the gradient with its products, the interior horizontal sums, the vertical sums with the
+ * response and nothing else run on vectors across pixels ({@link CornerVectors}), with the same float operations per
+ * pixel in the same order, so both paths give the same bits ({@code CornerSimdEqualityTest}).
  *
  * <p>Responses: Harris R = det M - k (tr M)² [1]; Shi-Tomasi R = λ_min(M) = (a+c)/2 - sqrt(((a-c)/2)² + b²) [2],
  * with M = [a b; b c] the Gaussian-weighted sum of the gradient products.
@@ -33,13 +38,23 @@ final class CornerResponse {
     private final float[] k;
     /** Weights of the interior sums (the same unless the library would re-normalise them). */
     private final float[] kIn;
+    /** Vector loops ({@link CornerVectors}) instead of the scalar ones; same output. */
+    private final boolean simd;
     private final float[] sobelX = GradientSobel.kernelDerivX_F32.data.clone(), sobelY = GradientSobel.kernelDerivY_F32.data.clone();
 
     private int width = -1;
     private float[] gx = new float[0], gy = new float[0], pxx = new float[0], pxy = new float[0], pyy = new float[0];
     private float[][] hxx = new float[0][], hxy = new float[0][], hyy = new float[0][];
+    /** The window's rows of the three half-filtered products, top to bottom, for the vector vertical sums. */
+    private float[][] winXx = new float[0][], winXy = new float[0][], winYy = new float[0][];
 
     CornerResponse(int radius, boolean harris, double kappa) {
+        this(radius, harris, kappa, Simd.ENABLED);
+    }
+
+    /** @param simd the vector loops (only when the vector module is present; {@link Simd#ENABLED} by default) */
+    CornerResponse(int radius, boolean harris, double kappa, boolean simd) {
+        this.simd = simd;
         this.r = radius;
         this.harris = harris;
         this.kappa = (float) kappa;
@@ -74,6 +89,7 @@ final class CornerResponse {
             gx = new float[w]; gy = new float[w];
             pxx = new float[w]; pxy = new float[w]; pyy = new float[w];
             hxx = new float[win][w]; hxy = new float[win][w]; hyy = new float[win][w];
+            winXx = new float[win][]; winXy = new float[win][]; winYy = new float[win][];
         }
         float max = -Float.MAX_VALUE;
         for (int y = 0; y < h; y++) {
@@ -95,6 +111,13 @@ final class CornerResponse {
         float[] gx = this.gx, gy = this.gy;
         if (y == 0 || y == h - 1) {
             for (int x = 0; x < w; x++) borderGradient(image, x, y);
+        } else if (simd) {
+            CornerVectors.gradientProducts(d, image.startIndex + y * image.stride, image.stride, w, pxx, pxy, pyy);
+            borderGradient(image, 0, y);
+            borderGradient(image, w - 1, y);
+            product(0);
+            product(w - 1);
+            return;
         } else {
             int s = image.stride;
             int c = image.startIndex + y * s;
@@ -117,6 +140,14 @@ final class CornerResponse {
         }
     }
 
+    /** The products of the gradient at column x. */
+    private void product(int x) {
+        float a = gx[x], b = gy[x];
+        pxx[x] = a * a;
+        pxy[x] = a * b;
+        pyy[x] = b * b;
+    }
+
     /** The library's border rule for the gradient: the 3x3 kernel over the edge-extended frame, row by row. */
     private void borderGradient(GrayF32 image, int x, int y) {
         float tx = 0, ty = 0;
@@ -137,7 +168,10 @@ final class CornerResponse {
     private void horizontal(float[] in, float[] out, int w) {
         float[] k = this.k, kIn = this.kIn;
         int r = this.r;
-        if (r == 2) {
+        if (simd) {
+            if (r == 2) CornerVectors.horizontal5(in, out, w, kIn[0], kIn[1], kIn[2], kIn[3], kIn[4]);
+            else CornerVectors.horizontal(in, out, w, r, kIn);
+        } else if (r == 2) {
             float k0 = kIn[0], k1 = kIn[1], k2 = kIn[2], k3 = kIn[3], k4 = kIn[4];
             for (int x = 2; x < w - 2; x++)
                 out[x] = in[x - 2] * k0 + in[x - 1] * k1 + in[x] * k2 + in[x + 1] * k3 + in[x + 2] * k4;
@@ -167,6 +201,15 @@ final class CornerResponse {
         int w = width, win = 2 * r + 1;
         float[] sxx = pxx, sxy = pxy, syy = pyy; // the product rows are free again: reuse them for the sums
         int j0 = Math.max(0, r - yo), j1 = Math.min(2 * r, h - 1 - yo + r);
+        if (simd && j0 == 0 && j1 == 2 * r) {
+            for (int j = 0; j < win; j++) {
+                winXx[j] = row(hxx, yo + j - r);
+                winXy[j] = row(hxy, yo + j - r);
+                winYy[j] = row(hyy, yo + j - r);
+            }
+            return CornerVectors.verticalResponse(winXx, winXy, winYy, kIn, r != 2, w, harris, kappa, out.data,
+                    out.startIndex + yo * out.stride);
+        }
         if (j0 == 0 && j1 == 2 * r) {
             if (r == 2) {
                 vertical5(hxx, yo, sxx, w);

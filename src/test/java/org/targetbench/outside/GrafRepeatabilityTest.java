@@ -43,7 +43,8 @@ class GrafRepeatabilityTest {
     /**
      * Plausible band of repeatability for graf 1 -> 3 (a viewpoint change of about 30 degrees, from memory of
      * Mikolajczyk et al. 2005) for detectors that are not affine-invariant. Measured on this pair at default settings,
-     * 500 points per image: Harris 0.461, Shi-Tomasi 0.460, FAST 0.432, SURF-style 0.207, SIFT-style 0.304 (0.378 with the image doubled first). SURF-style
+     * 500 points per image (remeasured 2026-12-02, after the refinement stage's keep rule): Harris 0.599, Shi-Tomasi
+     * 0.596 (0.461 and 0.460 when every refinement was kept), FAST 0.432, SURF-style 0.207, SIFT-style 0.304 (0.378 with the image doubled first). SURF-style
      * is low because it keeps at most 100 points per scale (see SurfConfig: that doubles its repeatability under a 2x
      * scale change) and a fixed ε of 1.5 px is strict for coarse blobs, whose position error grows with their scale;
      * without the per-scale limit it measured 0.326. The lower bound keeps a margin of 0.05 below the weakest; a value
@@ -55,20 +56,24 @@ class GrafRepeatabilityTest {
     static final double SHIFT_PX = 5;
     /**
      * With H off by 5 px (> 3 ε) only chance coincidences remain, so the mean over the four axis shifts must fall
-     * below this fraction of the true-H repeatability. Measured mean ratios: Harris 0.145, Shi-Tomasi 0.148, FAST
-     * 0.133, SURF-style 0.145, SIFT-style 0.140.
+     * below this fraction of the true-H repeatability. Measured mean ratios (2026-12-02): Harris 0.118, Shi-Tomasi
+     * 0.115, FAST 0.133, SURF-style 0.166, SIFT-style 0.117.
      */
     static final double MAX_SHIFTED_MEAN_RATIO = 0.3;
     /**
-     * Bound on any single shift direction. The +x shift is the worst (measured ratios Harris 0.27, Shi-Tomasi 0.29,
-     * FAST 0.20, SURF-style 0.27, SIFT-style 0.24; the other three directions 0.07..0.14): the offset histogram
+     * Bound on any single shift direction. The +x shift is the worst (measured ratios, 2026-12-02: Harris 0.24,
+     * Shi-Tomasi 0.22, FAST 0.20, SURF-style 0.29, SIFT-style 0.20; the other three directions 0.07..0.17): the offset histogram
      * q - H·p of this pair has, besides its peak at (0, 0), a secondary cluster near (+5, +1.5) px from repeated
      * texture in the painting, which a +5 px error partly lands on.
      */
     static final double MAX_SHIFTED_SINGLE_RATIO = 0.35;
-    /** Largest allowed |ours - OpenCV| Shi-Tomasi repeatability. */
+    /** Largest allowed |ours with refinement - OpenCV unrefined| Shi-Tomasi repeatability (common practice, no source). */
     static final double MAX_OPENCV_GAP = 0.10;
-    /** Largest shortfall against OpenCV's goodFeaturesToTrack with the same count, both unrefined (common practice, no source). */
+    /**
+     * Largest |ours - OpenCV goodFeaturesToTrack| repeatability with the same window, count, minimum distance and
+     * quality, both unrefined (common practice, no source); with OpenCV's blockSize read as 2r + 1 instead of our
+     * window's width, the largest shortfall.
+     */
     static final double MAX_OPENCV_GAP_UNREFINED = 0.05;
     /** Largest repeatability the default refinement may cost on natural texture (common practice, no source). */
     static final double REFINE_LOSS_TOL = 0.015;
@@ -117,7 +122,7 @@ class GrafRepeatabilityTest {
     @Test
     void everyDetectorIsRepeatableUnderTheTrueHomography() {
         // Schmid, Mohr & Bauckhage 2000, IJCV 37(2): repeatability with ε = 1.5 px; data of Mikolajczyk et al. 2005,
-        // IJCV 65. Measured (eps 1.5, default configs): Harris 0.4608 (153/332), Shi-Tomasi 0.4604 (151/328),
+        // IJCV 65. Measured (eps 1.5, default configs, 2026-12-02): Harris 0.5994 (199/332), Shi-Tomasi 0.5963 (195/327),
         // FAST 0.4324 (160/370), SURF-style 0.2069 (48/232), SIFT-style 0.3040 (107/352). The design-matched detectors
         // (dots, x-corners) find designed features, which this natural scene does not hold; they are checked on
         // designs and on the opencv-doc chessboard photos instead (DotsVsOpenCvTest, XCornerVsOpenCvTest).
@@ -177,40 +182,67 @@ class GrafRepeatabilityTest {
     }
 
     @Test
-    void shiTomasiRepeatabilityAgreesWithOpenCvGoodFeaturesToTrack() {
+    void shiTomasiRepeatabilityAgreesWithOpenCvGoodFeaturesToTrackLikeForLike() {
         // Reference library: OpenCV 4.9 Imgproc.goodFeaturesToTrack (minimum-eigenvalue corners, useHarrisDetector
         // false), fed the very same float grey pixels as our detector, scored by the same Repeatability rules
-        // (Schmid, Mohr & Bauckhage 2000, IJCV 37(2)) on graf 1 -> 3 (Mikolajczyk et al. 2005, IJCV 65).
-        // Measured: OpenCV 0.5238 (165/315); ours at defaults (Gaussian window, sub-pixel refinement) 0.4604;
-        // ours with a box window and no refinement, the closest to OpenCV's method, 0.5701.
+        // (Schmid, Mohr & Bauckhage 2000, IJCV 37(2)) on graf 1 -> 3 (Mikolajczyk et al. 2005, IJCV 65). Like for
+        // like: 500 points on both sides, minDistance = nmsRadius (3 px), qualityLevel = the relative threshold (0.01),
+        // both without refinement, and the same window (openCvBlockSize: OpenCV's box of the same width as our
+        // window). Measured (2026-12-02):
+        //   ours at defaults (Gaussian window, sigma 1 px)  0.6086 (199/327)  vs OpenCV blockSize 3  0.6055 (198/327)
+        //   ours with the box window (weighted false, r 2)  0.5701 (179/314)  vs OpenCV blockSize 5  0.5238 (165/315)
+        // With the box window the remaining 0.046 is our three-point parabola peak fit: our points moved back to their
+        // peak pixels score 0.5255, and 400 of the 500 graf1 pixels are OpenCV's. The selection rules (our 7 x 7
+        // non-strict suppression and 3 px border against OpenCV's 3 x 3 maximum, 1 px border and greedy minimum
+        // distance 3) give the same 0.5238 on OpenCV's own response; the threshold does not bind (the 500-point count
+        // is reached first: 0.001, 0.01 and 0.05 give the same figures).
         ShiTomasiConfig defaults = new ShiTomasiConfig();
         assertEquals(ThresholdMode.RELATIVE, defaults.thresholdMode, "qualityLevel maps only onto a relative threshold");
-        ShiTomasiConfig boxNoRefine = defaults.copy();
-        boxNoRefine.weighted = false;
-        boxNoRefine.refine.enabled = false;
-
-        double cvRep = score(openCvCorners(g1, defaults), openCvCorners(g3, defaults), h13).repeatability().getAsDouble();
-        for (ShiTomasiConfig c : new ShiTomasiConfig[]{defaults, boxNoRefine}) {
+        assertEquals(500, defaults.maxFeatures);
+        defaults.refine.enabled = false;
+        ShiTomasiConfig box = defaults.copy();
+        box.weighted = false;
+        assertEquals(3, openCvBlockSize(defaults), "the box as wide as the default Gaussian window");
+        for (ShiTomasiConfig c : new ShiTomasiConfig[]{defaults, box}) {
+            double cvRep = score(openCvCorners(g1, c), openCvCorners(g3, c), h13).repeatability().getAsDouble();
             PointDetector ours = Detectors.create(c);
             double ourRep = score(ours.detect(g1), ours.detect(g3), h13).repeatability().getAsDouble();
-            assertEquals(cvRep, ourRep, MAX_OPENCV_GAP,
-                    "Shi-Tomasi (weighted=" + c.weighted + ", refine=" + c.refine + ") vs OpenCV goodFeaturesToTrack");
+            assertEquals(cvRep, ourRep, MAX_OPENCV_GAP_UNREFINED, "Shi-Tomasi (weighted=" + c.weighted
+                    + ", unrefined) vs OpenCV goodFeaturesToTrack blockSize " + openCvBlockSize(c));
         }
     }
 
     @Test
+    void theDefaultWindowDiffersFromOpenCvsMappingOnPurpose() {
+        // Our default window is a Gaussian of radius 2 (sigma 1 px): on an ideal x-corner a box window gives a flat
+        // plateau of equal response that neither suppression nor the peak fit can place (CornerConfig.weighted). Read
+        // as blockSize = 2 r + 1 = 5, OpenCV's box has about twice the second moment of our window and scores lower on
+        // this pair. Measured (2026-12-02, graf 1 -> 3, 500 points, unrefined; Mikolajczyk et al. 2005, IJCV 65):
+        // ours 0.6086, OpenCV blockSize 5 0.5238 (+0.085), blockSize 3 0.6055, blockSize 7 0.3808; ours with the
+        // default refinement 0.5963 (the refinement fairness check below). Our default may score above OpenCV, never
+        // more than MAX_OPENCV_GAP_UNREFINED below it.
+        ShiTomasiConfig plain = new ShiTomasiConfig();
+        plain.refine.enabled = false;
+        double cvRep = score(openCvCorners(g1, plain, 2 * plain.windowRadius + 1), openCvCorners(g3, plain, 2 * plain.windowRadius + 1), h13)
+                .repeatability().getAsDouble();
+        PointDetector ours = Detectors.create(plain);
+        double ourRep = score(ours.detect(g1), ours.detect(g3), h13).repeatability().getAsDouble();
+        assertTrue(ourRep >= cvRep - MAX_OPENCV_GAP_UNREFINED, "ours " + ourRep + " vs OpenCV blockSize 5 " + cvRep);
+        PointDetector refined = Detectors.create(new ShiTomasiConfig());
+        double ourRefined = score(refined.detect(g1), refined.detect(g3), h13).repeatability().getAsDouble();
+        assertEquals(cvRep, ourRefined, MAX_OPENCV_GAP, "ours with the default refinement vs OpenCV blockSize 5 (unrefined)");
+    }
+
+    @Test
     void refinementIsFairOnNaturalTexture() {
-        // Reference library: OpenCV 4.9 Imgproc.goodFeaturesToTrack, same count (500), same float grey pixels, scored
-        // by the same Repeatability rules on graf 1 -> 3 (Mikolajczyk et al. 2005). Both without refinement, our
-        // defaults otherwise (Gaussian window). Then our default refinement stage (RefineConfig's keep rule) must not
-        // lower our own repeatability by more than REFINE_LOSS_TOL. Measured (2026-12-02): OpenCV 0.5238; ours
-        // unrefined 0.6086; ours with the default refinement 0.5963; with every refinement kept (the old behaviour)
-        // 0.4548. Ours is above OpenCV by 0.085 (the Gaussian window; with a box window 0.5701), so the bound is
-        // one-sided: not more than MAX_OPENCV_GAP_UNREFINED below the reference library.
+        // Graf 1 -> 3 (Mikolajczyk et al. 2005, IJCV 65), 500 points, scored by Repeatability (Schmid, Mohr &
+        // Bauckhage 2000). Our default refinement stage (RefineConfig's keep rule) must not lower our own
+        // repeatability by more than REFINE_LOSS_TOL on this natural texture. Measured (2026-12-02): ours unrefined
+        // 0.6086; with the default refinement 0.5963; with every refinement kept (the old behaviour) 0.4548. The
+        // comparison with OpenCV, both unrefined, is in the like-for-like test above.
         ShiTomasiConfig plain = new ShiTomasiConfig();
         plain.refine.enabled = false;
         assertEquals(500, plain.maxFeatures);
-        double cvRep = score(openCvCorners(g1, plain), openCvCorners(g3, plain), h13).repeatability().getAsDouble();
         PointDetector unrefined = Detectors.create(plain), refined = Detectors.create(new ShiTomasiConfig());
         double ourPlain = score(unrefined.detect(g1), unrefined.detect(g3), h13).repeatability().getAsDouble();
         double ourRefined = score(refined.detect(g1), refined.detect(g3), h13).repeatability().getAsDouble();
@@ -220,17 +252,42 @@ class GrafRepeatabilityTest {
         always.refine.maxFitRmsPx = Double.MAX_VALUE;
         PointDetector all = Detectors.create(always);
         double ourAll = score(all.detect(g1), all.detect(g3), h13).repeatability().getAsDouble();
-        String table = "OpenCV " + cvRep + ", ours unrefined " + ourPlain + ", default refinement " + ourRefined + ", every refinement kept " + ourAll;
-        assertTrue(ourPlain >= cvRep - MAX_OPENCV_GAP_UNREFINED, table);
+        String table = "ours unrefined " + ourPlain + ", default refinement " + ourRefined + ", every refinement kept " + ourAll;
         assertTrue(ourRefined >= ourPlain - REFINE_LOSS_TOL, table);
+        // the keep rule is what makes it fair: keeping every refinement costs more than the tolerance (derived from
+        // the figures above; if this fails the check above no longer tests the rule)
+        assertTrue(ourAll < ourPlain - REFINE_LOSS_TOL, table);
+    }
+
+    /**
+     * OpenCV's blockSize for the same window as ours (derived): a box of b pixels has the variance (b² - 1) / 12 per
+     * axis; our normalised Gaussian weights w_j at offsets j have Σ w_j j²; equal second moments give b, and the
+     * nearest odd size is taken. Default radius 2 (BoofCV's σ = 1 px, weights 0.054, 0.244, 0.403, 0.244, 0.054):
+     * variance 0.924 px², b = 3.48, so blockSize 3. A box window (weighted false) is OpenCV's own: 2r + 1.
+     */
+    static int openCvBlockSize(ShiTomasiConfig c) {
+        if (!c.weighted) return 2 * c.windowRadius + 1;
+        var k = boofcv.factory.filter.kernel.FactoryKernelGaussian.gaussian(boofcv.struct.convolve.Kernel1D_F32.class, -1, c.windowRadius);
+        double sum = 0, m2 = 0;
+        for (int j = 0; j < k.getWidth(); j++) {
+            double off = j - k.getOffset();
+            sum += k.data[j];
+            m2 += k.data[j] * off * off;
+        }
+        double b = Math.sqrt(12 * m2 / sum + 1);
+        return Math.max(3, 2 * (int) Math.round((b - 1) / 2) + 1);
+    }
+
+    static List<Detection> openCvCorners(GrayF32 img, ShiTomasiConfig c) {
+        return openCvCorners(img, c, openCvBlockSize(c));
     }
 
     /**
      * OpenCV goodFeaturesToTrack with settings mapped from ours: maxCorners = maxFeatures, qualityLevel = relative
-     * threshold, minDistance = nmsRadius, blockSize = 2 windowRadius + 1, no Harris. The input is a CV_32F Mat holding
-     * exactly our float grey levels (checked after the copy).
+     * threshold, minDistance = nmsRadius, the given blockSize, no Harris, no refinement. The input is a CV_32F Mat
+     * holding exactly our float grey levels (checked after the copy).
      */
-    static List<Detection> openCvCorners(GrayF32 img, ShiTomasiConfig c) {
+    static List<Detection> openCvCorners(GrayF32 img, ShiTomasiConfig c, int blockSize) {
         Mat m = new Mat(img.height, img.width, CvType.CV_32F);
         float[] row = new float[img.width], back = new float[img.width];
         for (int y = 0; y < img.height; y++) {
@@ -243,7 +300,7 @@ class GrafRepeatabilityTest {
         }
         MatOfPoint corners = new MatOfPoint();
         Imgproc.goodFeaturesToTrack(m, corners, c.maxFeatures, c.threshold, c.nmsRadius, new Mat(),
-                2 * c.windowRadius + 1, false, 0.04);
+                blockSize, false, 0.04);
         List<Detection> out = new ArrayList<>();
         // OpenCV corner coordinates are pixel-centre based too: corner (x, y) is the centre of pixel column x, row y.
         for (Point p : corners.toArray()) out.add(new Detection(p.x, p.y, 1, c.windowRadius));
