@@ -1,5 +1,7 @@
 package org.targetbench.track;
 
+import boofcv.struct.image.GrayF32;
+import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
 
@@ -12,7 +14,8 @@ import static org.junit.jupiter.api.Assumptions.assumeTrue;
  * The vector kernels of the tracker ({@link LkVectorKernels}) against their scalar twins ({@link LkKernels}), both
  * called directly on the same seeded data: identical samples and identical sums, to the bit (the Vector API rule of
  * the project: a switch that changes speed only). Windows of every width the vector form takes, in the middle of an
- * image and touching its right border (where the lanes past the window read the next row).
+ * image and touching its right border (where the lanes past the window read the next row); and the gradient
+ * ({@link ScharrGradient}) with and without {@link ScharrVector}.
  */
 class LkKernelsTest {
     static final int W = 97, H = 60, SEED = 11;
@@ -54,6 +57,21 @@ class LkKernelsTest {
             LkVectorKernels.trackSums(pi, shifted, W, width, a1, a0, a3, a2, t1, tx1, ty1, acc, s1);
             LkKernels.trackSumsScalar(pi, shifted, W, width, a1, a0, a3, a2, t2, tx2, ty2, acc, s2);
             for (int i = 0; i < 3; i++) assertEquals(s2[i], s1[i], "iteration sum " + i);
+        }
+    }
+
+    @Test
+    void scharrGradientIsTheSameWithAndWithoutVectors() {
+        assumeTrue(ScharrGradient.VECTOR, "the vector module is passed to surefire (pom); without it only the scalar form exists");
+        SplittableRandom rng = new SplittableRandom(SEED);
+        GrayF32 in = new GrayF32(W, H);
+        for (int i = 0; i < in.data.length; i++) in.data[i] = (float) (rng.nextDouble() * 255);
+        GrayF32 vx = new GrayF32(1, 1), vy = new GrayF32(1, 1), sx = new GrayF32(1, 1), sy = new GrayF32(1, 1);
+        ScharrGradient.compute(in, vx, vy, true);
+        ScharrGradient.compute(in, sx, sy, false);
+        for (int i = 0; i < in.data.length; i++) {
+            assertEquals(sx.data[i], vx.data[i], "x gradient at " + i);
+            assertEquals(sy.data[i], vy.data[i], "y gradient at " + i);
         }
     }
 }
