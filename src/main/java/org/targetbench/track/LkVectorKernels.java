@@ -15,6 +15,9 @@ import jdk.incubator.vector.VectorSpecies;
  * next row or land in the window arrays' slack ({@link LkKernels#slack}). Each kernel is one loop over the rows with
  * the groups written out: C2 on Java 17 keeps vectors in registers across one loop's back edge, but boxes them
  * (allocates) across a nested loop's.
+ *
+ * <p>Every vector class of the tracker uses this one shape (256 bits): on Java 17 two shapes in one JVM pollute the
+ * Vector API's type profiles and C2 boxes every vector (see {@link ScharrVector}).
  */
 final class LkVectorKernels {
     private static final VectorSpecies<Float> S = FloatVector.SPECIES_256;

@@ -30,13 +30,18 @@ final class ScharrGradient {
         dy.reshape(w, h);
         float[] d = in.data;
         float[] ox = dx.data, oy = dy.data;
+        int x0 = 1;
+        if (vector) {
+            // the interior in whole vectors, then the scalar loop finishes each row from x0
+            ScharrVector.interior(d, in.startIndex, in.stride, w, h, ox, dx.startIndex, dx.stride, oy, dy.startIndex, dy.stride, SIDE, CENTRE);
+            x0 = ScharrVector.end(w);
+        }
         for (int y = 0; y < h; y++) {
             int rowU = in.startIndex + Math.max(0, y - 1) * in.stride;
             int row = in.startIndex + y * in.stride;
             int rowD = in.startIndex + Math.min(h - 1, y + 1) * in.stride;
             int ix = dx.startIndex + y * dx.stride, iy = dy.startIndex + y * dy.stride;
             // interior columns without border tests (the hot loop), then the two border columns
-            int x0 = vector ? ScharrVector.row(d, ox, oy, w, rowU, row, rowD, ix, iy, SIDE, CENTRE) : 1;
             for (int x = x0; x < w - 1; x++) {
                 float ul = d[rowU + x - 1], ur = d[rowU + x + 1], dl = d[rowD + x - 1], dr = d[rowD + x + 1];
                 ox[ix + x] = SIDE * (ur - ul + dr - dl) + CENTRE * (d[row + x + 1] - d[row + x - 1]);
