@@ -17,12 +17,16 @@ import java.util.Arrays;
  * </pre>
  * ([1] eqs. 31-36 for the translation warp; [3] eq. 3-5). A translation moves every window pixel by the same
  * fraction, so one set of four bilinear weights serves the whole window, and sampling, the sums of (1) and the mean
- * absolute residual are fused in one pass with no stored window.
+ * absolute residual are fused in one pass with no stored window. The window passes of a complete window (template
+ * with both gradients and G; the sums of one iteration) are {@link LkKernels}: eight interleaved partial sums in a
+ * fixed order, run with eight-lane vectors ({@link LkVectorKernels}) when the vector module is present and by the
+ * scalar twin otherwise, with identical results.
  *
  * <p>Behaviour (stopping rule, drift and bound tests, the partial windows at the image border, float arithmetic)
  * follows BoofCV 1.2.2's {@code KltTracker}/{@code PyramidKltTracker}, the tracker's earlier engine, so tracks agree
- * with it (checked in {@code KltEqualityTest}); the one deliberate difference is the bilinear sample of a window
- * touching the last image row or column, which here repeats the border pixel.
+ * with it within 1e-3 px (checked in {@code KltEqualityTest}); the deliberate differences are the bilinear sample of
+ * a window touching the last image row or column, which here repeats the border pixel, and the order of the window
+ * sums (eight partial sums, see above; float addition is not associative, so the last bits differ).
  *
  * <p>Not thread safe; no allocation after the first features of a given size.
  *
