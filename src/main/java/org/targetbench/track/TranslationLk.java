@@ -78,7 +78,7 @@ final class TranslationLk {
     /** Columns the kernels read right of a window's left column ({@link LkKernels#reach}). */
     private final int reach;
     /** Kernel scratch: partial sums and the three sums. */
-    private final float[] acc = new float[3 * LkKernels.LANES], sums = new float[3];
+    private final float[] acc = new float[LkKernels.SCRATCH], sums = new float[3];
 
     /**
      * @param minDeterminant singularity guard on det G per window pixel

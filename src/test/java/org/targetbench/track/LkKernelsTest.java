@@ -33,7 +33,7 @@ class LkKernelsTest {
         int width = 2 * radius + 1, n = width * width + LkKernels.slack();
         SplittableRandom rng = new SplittableRandom(SEED + radius);
         float[] pi = image(rng, 255), px = image(rng, 60), py = image(rng, 60);
-        float[] acc = new float[3 * LkKernels.LANES];
+        float[] acc = new float[LkKernels.SCRATCH];
         for (int trial = 0; trial < 20; trial++) {
             // the window's left column anywhere in the row, up to touching the right border
             int xt = trial == 0 ? W - width - 1 : rng.nextInt(W - width - 1), yt = rng.nextInt(H - width - 1);
