@@ -22,6 +22,14 @@ import boofcv.struct.image.GrayF32;
  * <pre>
  *   Δp = H⁻¹ Σ SDᵀ [ (I(W(x; p)) - b) / a - T̃(x) ],     W ← W ∘ W(Δp)⁻¹                           (2)
  * </pre>
+ * With e = (w - b) / a - T̃ the right-hand side splits into sums over the sampled window and constants of the
+ * template (derived):
+ * <pre>
+ *   Σ SD_j e = ( Σ SD_j w - b Σ SD_j ) / a - Σ SD_j T̃,     j = 0..5                                   (3)
+ * </pre>
+ * so one pass over the window gathers everything an iteration needs, from the template's gradient alone (SD_j w is
+ * T_x w or T_y w times u, v or 1; the steepest-descent images themselves are not stored), and the mean absolute
+ * residual is taken once, on the converged window.
  * The closed-form gain and bias fit stands in for the linear appearance variation of the Lucas-Kanade series (derived).
  * An x-corner looks the same at every scale, so uniform scale is unobservable from its window; a small Levenberg-style
  * damping of the four linear parameters (relative {@value #DAMPING} of H's mean linear diagonal; common practice, no
@@ -52,8 +60,13 @@ final class AffineAnchor {
     private final int radius, n;
     /** Zero-mean template, row-major over the window. */
     private final float[] template;
-    /** Steepest-descent images, 6 per pixel. */
-    private final double[] sd;
+    /**
+     * The template's gradient, row-major over the window: with the pixel's (u, v) it gives the steepest-descent
+     * images SD = [T_x u, T_x v, T_y u, T_y v, T_x, T_y] of (2) without storing them (a sixth of their memory).
+     */
+    private final float[] gx, gy;
+    /** Σ SD_j and Σ SD_j T̃ over the window (j = 0..5): the constant parts of the right-hand side of (2), see (3). */
+    private final double[] sdSum = new double[6], sdTemplate = new double[6];
     /** Damped Hessian and scratch for the one with the shape prior, 6 x 6 row-major. */
     private final double[] scratch = new double[36], hess = new double[36], hAug = new double[36], hInvAug = new double[36], hInv = new double[36];
     /** Mean diagonal of the Hessian's linear block, the scale of the shape prior. */
@@ -69,7 +82,7 @@ final class AffineAnchor {
     private double a11, a12, a21, a22;
     /** Result of the last converged alignment, kept apart until {@link #commit()}. */
     double r11, r12, r21, r22, rx, ry;
-    /** Per-pixel mean absolute residual of the last alignment, grey levels of the current frame. */
+    /** Per-pixel mean absolute residual of the last converged alignment, grey levels of the current frame. */
     double residual;
 
     AffineAnchor(int radius) {
@@ -77,7 +90,8 @@ final class AffineAnchor {
         int side = 2 * radius + 1;
         this.n = side * side;
         this.template = new float[n];
-        this.sd = new double[6 * n];
+        this.gx = new float[n];
+        this.gy = new float[n];
         this.window = new float[n];
     }
 
@@ -92,18 +106,20 @@ final class AffineAnchor {
         du = ix - x;
         dv = iy - y;
         double mean = 0;
-        double[] h = new double[36];
+        double[] h = new double[36], sd = new double[6];
         for (int j = -radius, k = 0; j <= radius; j++) {
             double v = j + dv;
             for (int i = -radius; i <= radius; i++, k++) {
                 double u = i + du;
                 double t = image.unsafe_get(ix + i, iy + j);
-                double gx = dx.unsafe_get(ix + i, iy + j), gy = dy.unsafe_get(ix + i, iy + j);
+                float fx = dx.unsafe_get(ix + i, iy + j), fy = dy.unsafe_get(ix + i, iy + j);
+                double gx = fx, gy = fy;
                 template[k] = (float) t;
+                this.gx[k] = fx;
+                this.gy[k] = fy;
                 mean += t;
-                int o = 6 * k;
-                sd[o] = gx * u; sd[o + 1] = gx * v; sd[o + 2] = gy * u; sd[o + 3] = gy * v; sd[o + 4] = gx; sd[o + 5] = gy;
-                for (int a = 0; a < 6; a++) for (int c = a; c < 6; c++) h[6 * a + c] += sd[o + a] * sd[o + c];
+                sd[0] = gx * u; sd[1] = gx * v; sd[2] = gy * u; sd[3] = gy * v; sd[4] = gx; sd[5] = gy;
+                for (int a = 0; a < 6; a++) for (int c = a; c < 6; c++) h[6 * a + c] += sd[a] * sd[c];
             }
         }
         mean /= n;
@@ -111,6 +127,19 @@ final class AffineAnchor {
         for (int k = 0; k < n; k++) {
             template[k] -= (float) mean;
             stt += template[k] * template[k];
+        }
+        java.util.Arrays.fill(sdSum, 0);
+        java.util.Arrays.fill(sdTemplate, 0);
+        for (int j = -radius, k = 0; j <= radius; j++) {
+            double v = j + dv;
+            for (int i = -radius; i <= radius; i++, k++) {
+                double u = i + du, gx = this.gx[k], gy = this.gy[k], t = template[k];
+                sd[0] = gx * u; sd[1] = gx * v; sd[2] = gy * u; sd[3] = gy * v; sd[4] = gx; sd[5] = gy;
+                for (int a = 0; a < 6; a++) {
+                    sdSum[a] += sd[a];
+                    sdTemplate[a] += sd[a] * t;
+                }
+            }
         }
         for (int i = 0; i < 6; i++) for (int j = 0; j < i; j++) h[6 * i + j] = h[6 * j + i];
         double lin = (h[0] + h[7] + h[14] + h[21]) / 4;
@@ -144,29 +173,35 @@ final class AffineAnchor {
             // every bilinear sample of the window must lie inside the image
             double ex = (Math.abs(c11) + Math.abs(c12)) * (radius + 0.5), ey = (Math.abs(c21) + Math.abs(c22)) * (radius + 0.5);
             if (!inside(image, ctx - ex, cty - ey) || !inside(image, ctx + ex, cty + ey)) return Status.OFF_IMAGE;
-            double sw = 0, swt = 0;
+            // one pass: the samples with Σ w, Σ w T̃ and Σ SD_j w, the last by rows (v is constant along a row, derived)
+            double sw = 0, swt = 0, w0 = 0, w1 = 0, w2 = 0, w3 = 0, w4 = 0, w5 = 0;
             for (int j = -radius, k = 0; j <= radius; j++) {
                 double v = j + dv, rowX = ctx + c12 * v, rowY = cty + c22 * v;
+                double sx = 0, sxu = 0, sy = 0, syu = 0;
                 for (int i = -radius; i <= radius; i++, k++) {
                     double u = i + du;
                     float w = (float) bilinear(image, rowX + c11 * u, rowY + c21 * u);
                     window[k] = w;
                     sw += w;
                     swt += w * template[k];
+                    double gw = gx[k] * (double) w, hw = gy[k] * (double) w;
+                    sx += gw;
+                    sxu += gw * u;
+                    sy += hw;
+                    syu += hw * u;
                 }
+                w0 += sxu; w1 += sx * v; w2 += syu; w3 += sy * v; w4 += sx; w5 += sy;
             }
             double bias = sw / n, gain = swt / stt;
             if (!(gain > MIN_GAIN)) return Status.SINGULAR;
-            double b0 = 0, b1 = 0, b2 = 0, b3 = 0, b4 = 0, b5 = 0;
-            double abs = 0, inverseGain = 1 / gain;
-            for (int k = 0, o = 0; k < n; k++, o += 6) {
-                double e = (window[k] - bias) * inverseGain - template[k];
-                abs += Math.abs(e);
-                b0 += sd[o] * e; b1 += sd[o + 1] * e; b2 += sd[o + 2] * e;
-                b3 += sd[o + 3] * e; b4 += sd[o + 4] * e; b5 += sd[o + 5] * e;
-            }
-            b[0] = b0; b[1] = b1; b[2] = b2; b[3] = b3; b[4] = b4; b[5] = b5;
-            residual = abs * gain / n;
+            // (3): Σ SD_j e = (Σ SD_j w - b Σ SD_j) / a - Σ SD_j T̃ with e = (w - b) / a - T̃ (derived from (2))
+            double inverseGain = 1 / gain;
+            b[0] = (w0 - bias * sdSum[0]) * inverseGain - sdTemplate[0];
+            b[1] = (w1 - bias * sdSum[1]) * inverseGain - sdTemplate[1];
+            b[2] = (w2 - bias * sdSum[2]) * inverseGain - sdTemplate[2];
+            b[3] = (w3 - bias * sdSum[3]) * inverseGain - sdTemplate[3];
+            b[4] = (w4 - bias * sdSum[4]) * inverseGain - sdTemplate[4];
+            b[5] = (w5 - bias * sdSum[5]) * inverseGain - sdTemplate[5];
             if (lam > 0) {
                 // prior's right-hand side: λ Kᵀ vec(C - P)
                 double e11 = c11 - a11, e12 = c12 - a12, e21 = c21 - a21, e22 = c22 - a22;
@@ -193,6 +228,10 @@ final class AffineAnchor {
             c11 = n11; c12 = n12; c21 = n21; c22 = n22; ctx = ntx; cty = nty;
             if (step < epsilon) {
                 r11 = c11; r12 = c12; r21 = c21; r22 = c22; rx = ctx; ry = cty;
+                // the residual of the last iteration's window, needed only once converged
+                double abs = 0;
+                for (int k = 0; k < n; k++) abs += Math.abs((window[k] - bias) * inverseGain - template[k]);
+                residual = abs * gain / n;
                 return Status.CONVERGED;
             }
         }

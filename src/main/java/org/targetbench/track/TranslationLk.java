@@ -17,12 +17,16 @@ import java.util.Arrays;
  * </pre>
  * ([1] eqs. 31-36 for the translation warp; [3] eq. 3-5). A translation moves every window pixel by the same
  * fraction, so one set of four bilinear weights serves the whole window, and sampling, the sums of (1) and the mean
- * absolute residual are fused in one pass with no stored window.
+ * absolute residual are fused in one pass with no stored window. The window passes of a complete window (template
+ * with both gradients and G; the sums of one iteration) are {@link LkKernels}: eight interleaved partial sums in a
+ * fixed order, run with eight-lane vectors ({@link LkVectorKernels}) when the vector module is present and by the
+ * scalar twin otherwise, with identical results.
  *
  * <p>Behaviour (stopping rule, drift and bound tests, the partial windows at the image border, float arithmetic)
  * follows BoofCV 1.2.2's {@code KltTracker}/{@code PyramidKltTracker}, the tracker's earlier engine, so tracks agree
- * with it (checked in {@code KltEqualityTest}); the one deliberate difference is the bilinear sample of a window
- * touching the last image row or column, which here repeats the border pixel.
+ * with it within 1e-3 px (checked in {@code KltEqualityTest}); the deliberate differences are the bilinear sample of
+ * a window touching the last image row or column, which here repeats the border pixel, and the order of the window
+ * sums (eight partial sums, see above; float addition is not associative, so the last bits differ).
  *
  * <p>Not thread safe; no allocation after the first features of a given size.
  *
@@ -37,14 +41,17 @@ final class TranslationLk {
 
     /** One feature's templates over the pyramid and its position, full-resolution pixels. */
     static final class Feature {
-        /** Per level: template, its x and y gradient (NaN where the window left the image). */
+        /**
+         * Per level: template, its x and y gradient (NaN where the window left the image), row-major, then
+         * {@link LkKernels#slack()} floats that hold no pixel and never NaN.
+         */
         final float[][] t, tx, ty;
         final float[] gxx, gyy, gxy;
         final boolean[] complete;
         float x, y;
 
         Feature(int levels, int radius) {
-            int n = (2 * radius + 1) * (2 * radius + 1);
+            int n = (2 * radius + 1) * (2 * radius + 1) + LkKernels.slack();
             t = new float[levels][n];
             tx = new float[levels][n];
             ty = new float[levels][n];
@@ -68,6 +75,10 @@ final class TranslationLk {
     private final float epsilon, maxError, minDeterminant, maxDrift;
     /** Scratch window for the partial-window path. */
     private final float[] cur;
+    /** Columns the kernels read right of a window's left column ({@link LkKernels#reach}). */
+    private final int reach;
+    /** Kernel scratch: partial sums and the three sums. */
+    private final float[] acc = new float[LkKernels.SCRATCH], sums = new float[3];
 
     /**
      * @param minDeterminant singularity guard on det G per window pixel
@@ -82,6 +93,7 @@ final class TranslationLk {
         this.minDeterminant = minDeterminant;
         this.maxDrift = width;
         this.cur = new float[length];
+        this.reach = LkKernels.reach(width);
     }
 
     /**
@@ -105,26 +117,20 @@ final class TranslationLk {
             float tlx = x - radius, tly = y - radius;
             int xt = (int) tlx, yt = (int) tly;
             if (xt + width < w && yt + width < h && img.stride == dx.stride && img.stride == dy.stride
-                    && img.startIndex == dx.startIndex && img.startIndex == dy.startIndex) {
-                // one pass over the image and both gradients (same weights, same positions), G summed on the way
+                    && img.startIndex == dx.startIndex && img.startIndex == dy.startIndex
+                    && img.data.length == dx.data.length && img.data.length == dy.data.length) {
+                // one pass over the image and both gradients (same weights, same positions), G summed on the way;
+                // the scalar twin where the vector form's reads would pass the array's end (identical output)
                 float ax = tlx - xt, ay = tly - yt, bx = 1.0f - ax, by = 1.0f - ay;
                 float a0 = bx * by, a1 = ax * by, a2 = ax * ay, a3 = bx * ay;
-                float[] pi = img.data, px = dx.data, py = dy.data;
-                int stride = img.stride, k = 0;
-                for (int i = 0; i < width; i++) {
-                    int index = img.startIndex + (yt + i) * stride + xt;
-                    for (int end = index + width; index < end; index++, k++) {
-                        int d = index + stride;
-                        t[k] = a0 * pi[index] + a1 * pi[index + 1] + a2 * pi[d + 1] + a3 * pi[d];
-                        float gx = a0 * px[index] + a1 * px[index + 1] + a2 * px[d + 1] + a3 * px[d];
-                        float gy = a0 * py[index] + a1 * py[index + 1] + a2 * py[d + 1] + a3 * py[d];
-                        tx[k] = gx;
-                        ty[k] = gy;
-                        gxx += gx * gx;
-                        gyy += gy * gy;
-                        gxy += gx * gy;
-                    }
-                }
+                int index0 = img.startIndex + yt * img.stride + xt;
+                if (index0 + width * img.stride + reach < img.data.length)
+                    LkKernels.describe(img.data, dx.data, dy.data, index0, img.stride, width, a0, a1, a2, a3, t, tx, ty, acc, sums);
+                else
+                    LkKernels.describeScalar(img.data, dx.data, dy.data, index0, img.stride, width, a0, a1, a2, a3, t, tx, ty, acc, sums);
+                gxx = sums[0];
+                gyy = sums[1];
+                gxy = sums[2];
             } else {
                 region(img, tlx, tly, width, width, t, 0);
                 region(dx, tlx, tly, width, width, tx, 0);
@@ -142,9 +148,9 @@ final class TranslationLk {
         }
         if (fullyOutside(x, y, w, h)) return false;
         // partial window: NaN where it leaves the image
-        Arrays.fill(t, Float.NaN);
-        Arrays.fill(tx, Float.NaN);
-        Arrays.fill(ty, Float.NaN);
+        Arrays.fill(t, 0, length, Float.NaN);
+        Arrays.fill(tx, 0, length, Float.NaN);
+        Arrays.fill(ty, 0, length, Float.NaN);
         subRegion(img, x, y, t);
         subRegion(dx, x, y, tx);
         subRegion(dy, x, y, ty);
@@ -210,23 +216,12 @@ final class TranslationLk {
                 // the hot path: one set of bilinear weights, sampling fused with the sums of (1) and the residual
                 float ax = tlx - xt, ay = tly - yt, bx = 1.0f - ax, by = 1.0f - ay;
                 float a0 = bx * by, a1 = ax * by, a2 = ax * ay, a3 = bx * ay;
-                float abs = 0;
-                int k = 0;
-                for (int i = 0; i < width; i++) {
-                    int index = img.startIndex + (yt + i) * stride + xt;
-                    float pXY = data[index], pXy = data[index + stride];
-                    for (int end = index + width; index < end; index++, k++) {
-                        float pxY = data[index + 1], pxy = data[index + stride + 1];
-                        float v = a0 * pXY + a1 * pxY + a2 * pxy + a3 * pXy;
-                        float d = t[k] - v;
-                        ex += d * tx[k];
-                        ey += d * ty[k];
-                        abs += Math.abs(d);
-                        pXY = pxY;
-                        pXy = pxy;
-                    }
-                }
-                error = abs / length;
+                int index0 = img.startIndex + yt * stride + xt;
+                if (index0 + width * stride + reach < data.length) LkKernels.trackSums(data, index0, stride, width, a0, a1, a2, a3, t, tx, ty, acc, sums);
+                else LkKernels.trackSumsScalar(data, index0, stride, width, a0, a1, a2, a3, t, tx, ty, acc, sums);
+                ex = sums[0];
+                ey = sums[1];
+                error = sums[2] / length;
             } else if (complete && x >= radius && x <= w - radius - 1 && y >= radius && y <= h - radius - 1) {
                 // whole window inside but touching the last row or column: the clamped sampler
                 region(img, tlx, tly, width, width, cur, 0);
