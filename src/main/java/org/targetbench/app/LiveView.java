@@ -232,7 +232,10 @@ final class LiveView extends JPanel implements Session.Listener {
     void registerTo(Path target, Path camera) {
         String name = session.sourceName();
         java.util.List<org.targetbench.source.SourceFrame> frames = java.util.List.copyOf(session.frames());
-        load("registration to " + target.getFileName(), () -> {
+        notRegistered = java.util.Map.of();
+        // the same frames with truth from the design: a session keeps the source and reopens it registered again
+        session.expectRegistration(new org.targetbench.formats.SessionFile.Registration(target, java.util.Optional.ofNullable(camera)));
+        LiveLoad.load(ctx, "registration to " + target.getFileName(), () -> {
             var design = org.targetbench.source.TargetFile.read(target);
             var cam = camera == null ? java.util.Optional.<org.targetbench.camera.CameraModel>empty()
                     : java.util.Optional.of(org.targetbench.source.CameraFiles.read(camera));

@@ -250,6 +250,7 @@ final class StressView extends JPanel {
             SweepWriter.write(last, Map.of(), out);
             SweepReport.write(last, Map.of(), out.file("report.html"));
             out.commit();
+            ctx.session().setStressResults(dir); // a saved session references the results
             ctx.status().accept("Report written to " + dir.resolve("report.html"));
         } catch (Exception e) {
             ctx.status().accept("Could not write the report: " + e.getMessage());
