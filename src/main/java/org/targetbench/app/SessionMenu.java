@@ -1,7 +1,6 @@
 package org.targetbench.app;
 
 import org.targetbench.export.ServoSetJson;
-import org.targetbench.formats.ServoSetReader;
 import org.targetbench.formats.SessionFile;
 
 import javax.swing.JFileChooser;
@@ -20,8 +19,10 @@ import java.util.Optional;
 
 /**
  * Sessions of the workbench: File menu (new, open, save as, recent sessions, quit), the unsaved-work prompt and the
- * keyboard shortcuts list. A session file ({@link SessionFile}) references the source and the edited servo set, which is
- * written beside it as NAME.servo-set.json.
+ * keyboard shortcuts list. A session file ({@link SessionFile}) references the source (and the design and camera it was
+ * registered to), keeps every detector setting, the servo choice with its hand edits, the kept rehearsal, the views'
+ * controls (rehearsal and stress settings, the rehearsal runs side by side) and the stress results folder; the edited
+ * servo set is written beside it as NAME.servo-set.json.
  */
 final class SessionMenu implements Session.Listener {
     /** How many recent sessions the File menu lists. */
@@ -54,7 +55,8 @@ final class SessionMenu implements Session.Listener {
 
     @Override
     public void changed(Session.Change c) {
-        if (c == Session.Change.SERVO) dirty = true;
+        if (restoring) return;
+        if (c == Session.Change.SERVO || c == Session.Change.DETECTORS || c == Session.Change.SHOWN) dirty = true;
         if (c == Session.Change.SOURCE && session.origin() != null && session.origin().kind() != SessionFile.SourceKind.DEMO) dirty = true;
     }
 
@@ -140,6 +142,10 @@ final class SessionMenu implements Session.Listener {
     void newSession() {
         if (!askToSave()) return;
         current = null;
+        restoring = true; // the fresh settings are not unsaved work
+        for (var t : org.targetbench.detect.DetectorType.values()) session.setConfig(org.targetbench.detect.DetectorConfig.defaults(t));
+        session.setStressResults(null);
+        restoring = false;
         live.loadDemo();
         dirty = false;
     }
@@ -166,20 +172,13 @@ final class SessionMenu implements Session.Listener {
     boolean save(Path file) {
         Session.Origin o = session.origin();
         if (o == null) {
-            String msg = "These frames cannot be reopened from a file (a registration or a camera); save the source as a folder first.";
+            String msg = "These frames cannot be reopened from a file (a camera or a rendered design); save the source as a folder first.";
             ctx.status().accept("Could not save the session: " + msg);
             JOptionPane.showMessageDialog(ctx.window(), msg, "Could not save the session", JOptionPane.WARNING_MESSAGE);
             return false;
         }
         try {
-            Optional<Path> set = Optional.empty();
-            if (session.servoSet() != null) {
-                String stem = file.getFileName().toString().replaceFirst("(\\.session)?\\.json$", "");
-                Path sf = file.toAbsolutePath().resolveSibling(stem + ".servo-set.json");
-                ServoSetJson.write(session.servoSet(), Optional.ofNullable(session.rehearsal()), "", sf);
-                set = Optional.of(sf);
-            }
-            SessionFile.write(new SessionFile.State(o.kind(), o.path(), session.hasFrames() ? session.frameIndex() : 0, set), file);
+            SessionFile.write(state(file), file);
             current = file;
             dirty = false;
             remember(file);
@@ -193,7 +192,36 @@ final class SessionMenu implements Session.Listener {
         }
     }
 
-    /** Reads a session: loads its source, then (once loaded) shows its frame and its servo set. */
+    /** What a session file saved now as {@code file} holds (writing the edited set beside it). */
+    private SessionFile.State state(Path file) throws java.io.IOException {
+        Session.Origin o = session.origin();
+        Optional<Path> set = Optional.empty();
+        if (session.servoSet() != null) {
+            String stem = file.getFileName().toString().replaceFirst("(\\.session)?\\.json$", "");
+            Path sf = file.toAbsolutePath().resolveSibling(stem + ".servo-set.json");
+            ServoSetJson.write(session.servoSet(), Optional.ofNullable(session.rehearsal()), "", sf);
+            set = Optional.of(sf);
+        }
+        var pick = session.pick();
+        Optional<SessionFile.Pick> p = pick == null || pick.set().isEmpty() ? Optional.empty()
+                : Optional.of(new SessionFile.Pick(pick.detector(), pick.set().get().points().size(), pick.set().get().created()));
+        Session.ServoEdits edits = session.servoEdits();
+        Optional<SessionFile.Rehearsed> rehearsed = session.lastRehearsal() == null || edits.rehearsedPosition() < 0 ? Optional.empty()
+                : Optional.of(new SessionFile.Rehearsed(edits.rehearsedPosition(), session.lastRehearsal().config(), session.rehearsalElapsedS()));
+        SessionFile.Servo servo = new SessionFile.Servo(set, p, p.isPresent() ? edits.done() : List.of(), p.isPresent() ? edits.undone() : List.of(), rehearsed);
+        return new SessionFile.State(o.kind(), o.path(), Optional.ofNullable(session.registration()), session.hasFrames() ? session.frameIndex() : 0,
+                session.configs(), session.shown(), servo, ViewSettings.save(ViewSettings.views(ctx.window())), Optional.ofNullable(session.stressResults()));
+    }
+
+    private boolean restoring;
+
+    /** True while an opened session is still being put back (its source loading, its choice and rehearsal running). */
+    boolean restoring() { return restoring; }
+
+    /**
+     * Reads a session: sets the detectors and the views' controls, loads its source (and registers it again), then
+     * shows its frame and puts back its servo work ({@link SessionRestore}).
+     */
     void open(Path file) {
         SessionFile.State st;
         try {
@@ -205,23 +233,32 @@ final class SessionMenu implements Session.Listener {
             JOptionPane.showMessageDialog(ctx.window(), e.getMessage(), "Could not open the session", JOptionPane.WARNING_MESSAGE);
             return;
         }
+        restoring = true;
+        for (var c : st.detectors()) session.setConfig(c);
+        ViewSettings.restore(ViewSettings.views(ctx.window()), st.views());
+        if (!st.shown().isEmpty())
+            for (var t : org.targetbench.detect.DetectorType.values()) session.setShown(t, st.shown().contains(t));
+        session.setStressResults(st.stressResults().orElse(null));
         session.addListener(new Session.Listener() {
+            private boolean registering;
+
             @Override public void changed(Session.Change c) {
                 if (c != Session.Change.SOURCE) return;
+                if (st.registration().isPresent() && !registering) {
+                    registering = true;
+                    SwingUtilities.invokeLater(() -> live.registerTo(st.registration().get().target(), st.registration().get().camera().orElse(null)));
+                    return;
+                }
                 session.removeListener(this);
                 SwingUtilities.invokeLater(() -> {
                     session.setFrameIndex(st.frameIndex());
-                    if (st.servoSet().isPresent()) {
-                        try {
-                            session.loadServoSet(ServoSetReader.read(st.servoSet().get()));
-                        } catch (org.targetbench.source.SourceException e) {
-                            ctx.status().accept("Could not read the session's servo set: " + e.getMessage());
-                        }
-                    }
-                    current = file;
-                    dirty = false;
-                    remember(file);
-                    ctx.status().accept("Opened the session " + file);
+                    new SessionRestore(ctx).servo(st, what -> {
+                        current = file;
+                        dirty = false;
+                        restoring = false;
+                        remember(file);
+                        ctx.status().accept("Opened the session " + file + (what.isEmpty() ? "" : ": " + what));
+                    });
                 });
             }
         });
