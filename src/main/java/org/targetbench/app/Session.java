@@ -360,6 +360,30 @@ public final class Session {
     /** The folder the stress sweep's results were last saved to, or null. */
     public java.nio.file.Path stressResults() { return stressResults; }
 
+    private boolean playing;
+
+    /** True while playback runs: it prepares and shows its own frames, and the detection runner waits. */
+    public boolean playing() { return playing; }
+
+    /** Starts or ends playback; at the end the shown frame is scored again by every detector (a FRAME change). */
+    void setPlaying(boolean on) {
+        if (on == playing) return;
+        playing = on;
+        if (!on && hasFrames()) fire(Change.FRAME);
+    }
+
+    /**
+     * Shows a frame prepared by playback: the frame index and its detections change together, so the counter and the
+     * picture name the same frame.
+     */
+    void showPlayed(FrameDetections d) {
+        if (d.frameIndex() < 0 || d.frameIndex() >= frames.size()) return;
+        frameIndex = d.frameIndex();
+        detections = d;
+        fire(Change.FRAME);
+        fire(Change.DETECTIONS);
+    }
+
     /** Called by the detection runner with results for the current state. */
     void setDetections(FrameDetections d) {
         detections = d;

@@ -1,0 +1,103 @@
+package org.targetbench.app;
+
+import org.targetbench.detect.DetectorConfig;
+import org.targetbench.perturb.Perturbation;
+import org.targetbench.source.SourceFrame;
+
+import javax.swing.SwingUtilities;
+import javax.swing.Timer;
+import java.util.List;
+import java.util.OptionalLong;
+import java.util.concurrent.locks.LockSupport;
+import java.util.function.LongSupplier;
+
+/**
+ * One playback of the loaded frames: a worker thread prepares frames ahead of time (the previewed degradation and the
+ * drawn detectors' points and figures; the frames themselves were decoded when the source was loaded), paced by
+ * {@link Playback}, and a Swing timer shows on the event-dispatch thread only the newest prepared frame that is due,
+ * frame index and detections together ({@link Session#showPlayed}). Frames that could not be shown in time are dropped
+ * and counted. Only the drawn detectors run while playing (pausing scores the frame with all of them again), so three
+ * detectors keep up with a 30 fps clip where the machine allows; where it does not, the count of dropped frames says so.
+ */
+final class PlaybackRun {
+    /** How often the event-dispatch thread looks for a due frame, at most, milliseconds. */
+    static final int POLL_MS = 4;
+
+    private final Session session;
+    private final Playback<Session.FrameDetections> pacing;
+    private final Timer timer;
+    private final Thread worker;
+    private final Runnable onEnd, onShown;
+    private final LongSupplier clock = System::nanoTime;
+
+    /**
+     * @param fps     playback rate, frames per second
+     * @param onShown called on the event-dispatch thread after each shown frame (to update the dropped count)
+     * @param onEnd   called on the event-dispatch thread when playback reaches the end without looping
+     */
+    PlaybackRun(Session session, double fps, boolean loop, Runnable onShown, Runnable onEnd) {
+        this.session = session;
+        this.onShown = onShown;
+        this.onEnd = onEnd;
+        int n = session.frames().size();
+        int first = session.frameIndex() + 1 < n ? session.frameIndex() + 1 : 0;
+        pacing = new Playback<>(n, fps, first, loop, clock.getAsLong());
+        List<SourceFrame> frames = List.copyOf(session.frames());
+        SourceFrame ref = session.reference();
+        List<DetectorConfig> configs = session.configs().stream().filter(c -> session.shown().contains(c.type())).toList();
+        int version = session.configVersion();
+        Perturbation p = session.degrade();
+        double value = session.degradeValue();
+        worker = new Thread(() -> prepare(frames, ref, configs, version, p, value), "targetbench-playback");
+        worker.setDaemon(true);
+        timer = new Timer(Math.max(1, Math.min(POLL_MS, (int) (250 / fps))), e -> show());
+    }
+
+    void start() {
+        session.setPlaying(true);
+        worker.start();
+        timer.start();
+    }
+
+    /** Stops playback; the frame shown stays, and is scored again by every detector. */
+    void stop() {
+        pacing.stop();
+        timer.stop();
+        worker.interrupt();
+        session.setPlaying(false);
+    }
+
+    long dropped() { return pacing.dropped(); }
+
+    long shown() { return pacing.shownCount(); }
+
+    private void prepare(List<SourceFrame> frames, SourceFrame ref, List<DetectorConfig> configs, int version, Perturbation p, double value) {
+        DetectionRunner.Scorer scorer = new DetectionRunner.Scorer();
+        while (!pacing.stopped() && !Thread.currentThread().isInterrupted()) {
+            long now = clock.getAsLong();
+            OptionalLong t = pacing.nextToPrepare(now);
+            if (t.isEmpty()) {
+                if (pacing.preparedAll()) return;
+                // too far ahead: wait until the clock catches up by a tick
+                long wake = pacing.dueNanos(pacing.dueTick(now) + 1);
+                LockSupport.parkNanos(Math.max(100_000, wake - now));
+                continue;
+            }
+            int index = pacing.indexOf(t.getAsLong());
+            Session.FrameDetections d = scorer.detect(frames.get(index), ref, index, configs, version, p, value);
+            pacing.prepared(t.getAsLong(), d);
+        }
+    }
+
+    private void show() {
+        if (!SwingUtilities.isEventDispatchThread() || pacing.stopped()) return;
+        pacing.take(clock.getAsLong()).ifPresent(s -> {
+            session.showPlayed(s.frame());
+            onShown.run();
+        });
+        if (pacing.finished()) {
+            stop();
+            onEnd.run();
+        }
+    }
+}
