@@ -91,7 +91,7 @@ public final class Session {
 
     /** Says where the source that is being loaded comes from; the next {@link #setSource} takes it. */
     public void expectOrigin(Origin o) {
-        pendingOrigin = o;
+        pendingOrigin = o == null ? null : new Origin(o.kind(), o.path().map(p -> p.toAbsolutePath().normalize())); // as a reopened session has it
         pendingRegistration = null;
     }
 
@@ -106,7 +106,8 @@ public final class Session {
      */
     public void expectRegistration(org.targetbench.formats.SessionFile.Registration r) {
         pendingOrigin = origin;
-        pendingRegistration = r;
+        pendingRegistration = r == null ? null : new org.targetbench.formats.SessionFile.Registration(r.target().toAbsolutePath().normalize(),
+                r.camera().map(p -> p.toAbsolutePath().normalize()));
     }
 
     /** The design and camera files the current frames were registered to, or null. */
