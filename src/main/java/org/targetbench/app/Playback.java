@@ -28,7 +28,8 @@ final class Playback<T> {
     private final long startNanos;
     private final double periodNanos;
     private final TreeMap<Long, T> ready = new TreeMap<>();
-    private long lastPrepared = -1, lastShown = -1;
+    /** The latest tick handed to a worker (workers may share a playback: each tick is handed out once). */
+    private long lastClaimed = -1, lastShown = -1;
     private long dropped;
     private long shown;
     private boolean stopped;
@@ -65,25 +66,25 @@ final class Playback<T> {
     private boolean exists(long tick) { return loop || first + tick < frameCount; }
 
     /**
-     * The tick the worker should prepare next: the one after the last prepared, or the one due now when that is later
+     * The tick a worker should prepare next, handed out once: the one after the last handed out, or the one due now when that is later
      * (ticks in between are overdue and will be dropped). Empty when it would run more than {@link #AHEAD} ticks ahead of
      * the clock (ask again at {@link #dueNanos} of the tick {@code AHEAD} before it), after the last frame, or once stopped.
      */
     synchronized OptionalLong nextToPrepare(long nowNanos) {
         if (stopped) return OptionalLong.empty();
-        long t = Math.max(lastPrepared + 1, dueTick(nowNanos));
-        if (!loop && lastPrepared + 1 < frameCount - first) t = Math.min(t, frameCount - first - 1); // the last frame is always shown
+        long t = Math.max(lastClaimed + 1, dueTick(nowNanos));
+        if (!loop && lastClaimed + 1 < frameCount - first) t = Math.min(t, frameCount - first - 1); // the last frame is always shown
         if (!exists(t) || t > dueTick(nowNanos) + AHEAD) return OptionalLong.empty();
+        lastClaimed = t;
         return OptionalLong.of(t);
     }
 
     /** True when nothing is left to prepare: stopped, or past the last frame without looping. */
-    synchronized boolean preparedAll() { return stopped || !exists(lastPrepared + 1); }
+    synchronized boolean preparedAll() { return stopped || !exists(lastClaimed + 1); }
 
     /** The worker's prepared frame for a tick. */
     synchronized void prepared(long tick, T frame) {
-        if (stopped || tick <= lastShown) return;
-        lastPrepared = Math.max(lastPrepared, tick);
+        if (stopped || tick <= lastShown) return; // too late: a newer frame is already on screen
         ready.put(tick, frame);
     }
 

@@ -12,7 +12,7 @@ import java.util.concurrent.locks.LockSupport;
 import java.util.function.LongSupplier;
 
 /**
- * One playback of the loaded frames: a worker thread prepares frames ahead of time (the previewed degradation and the
+ * One playback of the loaded frames: worker threads prepare frames ahead of time (the previewed degradation and the
  * drawn detectors' points and figures; the frames themselves were decoded when the source was loaded), paced by
  * {@link Playback}, and a Swing timer shows on the event-dispatch thread only the newest prepared frame that is due,
  * frame index and detections together ({@link Session#showPlayed}). Frames that could not be shown in time are dropped
@@ -26,7 +26,10 @@ final class PlaybackRun {
     private final Session session;
     private final Playback<Session.FrameDetections> pacing;
     private final Timer timer;
-    private final Thread worker;
+    /** Workers preparing frames side by side (each with its own detectors): two where the machine has two cores. */
+    static final int WORKERS = Math.max(1, Math.min(2, Runtime.getRuntime().availableProcessors()));
+
+    private final List<Thread> workers = new java.util.ArrayList<>();
     private final Runnable onEnd, onShown;
     private final LongSupplier clock = System::nanoTime;
 
@@ -48,14 +51,17 @@ final class PlaybackRun {
         int version = session.configVersion();
         Perturbation p = session.degrade();
         double value = session.degradeValue();
-        worker = new Thread(() -> prepare(frames, ref, configs, version, p, value), "targetbench-playback");
-        worker.setDaemon(true);
+        for (int i = 0; i < WORKERS; i++) {
+            Thread w = new Thread(() -> prepare(frames, ref, configs, version, p, value), "targetbench-playback-" + i);
+            w.setDaemon(true);
+            workers.add(w);
+        }
         timer = new Timer(Math.max(1, Math.min(POLL_MS, (int) (250 / fps))), e -> show());
     }
 
     void start() {
         session.setPlaying(true);
-        worker.start();
+        workers.forEach(Thread::start);
         timer.start();
     }
 
@@ -63,7 +69,7 @@ final class PlaybackRun {
     void stop() {
         pacing.stop();
         timer.stop();
-        worker.interrupt();
+        workers.forEach(Thread::interrupt);
         session.setPlaying(false);
     }
 

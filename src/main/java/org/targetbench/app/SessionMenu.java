@@ -31,7 +31,7 @@ final class SessionMenu implements Session.Listener {
     static final String UNSAVED_TITLE = "Unsaved work";
     /** The keyboard shortcuts, as Help lists them. */
     static final String[][] SHORTCUTS = {
-            {"Ctrl+N", "New session (the demo scene)"}, {"Ctrl+O", "Open a session"}, {"Ctrl+S", "Save the session as..."},
+            {"Ctrl+N", "New session (the demo scene)"}, {"Ctrl+O", "Open a session"}, {"Ctrl+S", "Save the session"}, {"Ctrl+Shift+S", "Save the session as..."},
             {"Ctrl+Q", "Quit (asks first when work is unsaved)"}, {"Ctrl+E", "Export the servo set"}, {"Ctrl+T", "Switch light/dark theme"},
             {"Ctrl+Z", "Servo set: take back the latest point click"}, {"Ctrl+Shift+Z", "Servo set: do the undone click again"},
             {"Space", "Play or pause the frames"}, {"Left / Right", "Previous / next frame"},
@@ -67,7 +67,8 @@ final class SessionMenu implements Session.Listener {
         file.setName("menu.file");
         file.add(item("menu.new", "New session", KeyEvent.VK_N, 0, this::newSession));
         file.add(item("menu.open", "Open session...", KeyEvent.VK_O, 0, this::chooseAndOpen));
-        file.add(item("menu.save", "Save session as...", KeyEvent.VK_S, 0, this::chooseAndSave));
+        file.add(item("menu.save", "Save session", KeyEvent.VK_S, 0, this::saveOrChoose));
+        file.add(item("menu.saveas", "Save session as...", KeyEvent.VK_S, InputEvent.SHIFT_DOWN_MASK, this::chooseAndSave));
         recent.setName("menu.recent");
         file.add(recent);
         file.addSeparator();
@@ -131,7 +132,7 @@ final class SessionMenu implements Session.Listener {
         if (!dirty) return true;
         int a = JOptionPane.showConfirmDialog(ctx.window(), "The session has unsaved work (source, servo set edits or rehearsals). Save it first?",
                 UNSAVED_TITLE, JOptionPane.YES_NO_CANCEL_OPTION, JOptionPane.WARNING_MESSAGE);
-        if (a == JOptionPane.YES_OPTION) return chooseAndSave();
+        if (a == JOptionPane.YES_OPTION) return saveOrChoose();
         return a == JOptionPane.NO_OPTION;
     }
 
@@ -156,6 +157,11 @@ final class SessionMenu implements Session.Listener {
         fc.setFileFilter(new javax.swing.filechooser.FileNameExtensionFilter("Sessions (*.session.json)", "json"));
         if (fc.showOpenDialog(ctx.window()) != JFileChooser.APPROVE_OPTION) return;
         open(fc.getSelectedFile().toPath());
+    }
+
+    /** Saves to the session's own file, or asks for one the first time. */
+    private boolean saveOrChoose() {
+        return current != null ? save(current) : chooseAndSave();
     }
 
     private boolean chooseAndSave() {
@@ -226,8 +232,15 @@ final class SessionMenu implements Session.Listener {
         SessionFile.State st;
         try {
             st = SessionFile.read(file);
-            if (st.servoSet().isPresent() && !Files.exists(st.servoSet().get()))
-                throw new org.targetbench.source.SourceException("the session's servo set " + st.servoSet().get() + " is missing");
+            List<Path> needed = new ArrayList<>();
+            st.servoSet().ifPresent(needed::add);
+            st.sourcePath().ifPresent(needed::add);
+            st.registration().ifPresent(r -> {
+                needed.add(r.target());
+                r.camera().ifPresent(needed::add);
+            });
+            for (Path p : needed)
+                if (!Files.exists(p)) throw new org.targetbench.source.SourceException(file + ": the session's file " + p + " is missing");
         } catch (org.targetbench.source.SourceException e) {
             ctx.status().accept("Could not open the session: " + e.getMessage());
             JOptionPane.showMessageDialog(ctx.window(), e.getMessage(), "Could not open the session", JOptionPane.WARNING_MESSAGE);

@@ -22,25 +22,33 @@ class PlaybackTest {
     /** A run of the simulation: the ticks shown, and the pacing's counters at the end. */
     record Run(List<Playback.Shown<Integer>> shown, long dropped, boolean finished) {}
 
-    /**
-     * Simulates {@code steps} clock steps of 1/10 period: the worker needs {@code prepareNs} per frame, the display
-     * looks for a frame every {@code pollNs}.
-     */
     static Run simulate(long prepareNs, long pollNs, boolean loop, int first, long steps) {
+        return simulate(1, prepareNs, pollNs, loop, first, steps);
+    }
+
+    /**
+     * Simulates {@code steps} clock steps of 1/10 period: each of {@code workers} workers needs {@code prepareNs} per
+     * frame, the display looks for a frame every {@code pollNs}.
+     */
+    static Run simulate(int workers, long prepareNs, long pollNs, boolean loop, int first, long steps) {
         long start = 1_000_000;
         Playback<Integer> p = new Playback<>(FRAMES, FPS, first, loop, start);
         List<Playback.Shown<Integer>> shown = new ArrayList<>();
-        long busyUntil = -1, working = -1, nextPoll = start;
+        long[] busyUntil = new long[workers], working = new long[workers];
+        java.util.Arrays.fill(working, -1);
+        long nextPoll = start;
         for (long now = start; now < start + steps * PERIOD / 10; now += PERIOD / 10) {
-            if (working >= 0 && now >= busyUntil) {
-                p.prepared(working, p.indexOf(working)); // the picture of the frame it was asked for
-                working = -1;
-            }
-            if (working < 0) {
-                OptionalLong t = p.nextToPrepare(now);
-                if (t.isPresent()) {
-                    working = t.getAsLong();
-                    busyUntil = now + prepareNs;
+            for (int w = 0; w < workers; w++) {
+                if (working[w] >= 0 && now >= busyUntil[w]) {
+                    p.prepared(working[w], p.indexOf(working[w])); // the picture of the frame it was asked for
+                    working[w] = -1;
+                }
+                if (working[w] < 0) {
+                    OptionalLong t = p.nextToPrepare(now);
+                    if (t.isPresent()) {
+                        working[w] = t.getAsLong();
+                        busyUntil[w] = now + prepareNs;
+                    }
                 }
             }
             if (now >= nextPoll) {
@@ -101,6 +109,19 @@ class PlaybackTest {
         assertEquals(gaps(r), r.dropped());
         assertEquals(FRAMES, r.shown().size() + r.dropped());
         assertTrue(r.dropped() >= FRAMES / 2, "dropped " + r.dropped());
+    }
+
+    @Test
+    void twoWorkersKeepUpWhereOneCannot() {
+        // preparing takes 1.5 periods: one worker shows about two frames in three, two workers nearly all
+        Run one = simulate(1, 3 * PERIOD / 2, PERIOD / 10, false, 0, 400 * 10);
+        Run two = simulate(2, 3 * PERIOD / 2, PERIOD / 10, false, 0, 400 * 10);
+        assertCounterMatchesPicture(one);
+        assertCounterMatchesPicture(two);
+        assertEquals(FRAMES, one.shown().size() + one.dropped());
+        assertEquals(FRAMES, two.shown().size() + two.dropped());
+        assertTrue(one.dropped() >= FRAMES / 4, "one worker dropped " + one.dropped());
+        assertTrue(two.dropped() <= 2, "two workers dropped " + two.dropped() + " (only while starting)");
     }
 
     @Test
