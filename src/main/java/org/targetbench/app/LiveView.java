@@ -144,6 +144,9 @@ final class LiveView extends JPanel implements Session.Listener {
     /** True while playback runs. */
     boolean isPlaying() { return playing != null; }
 
+    /** Frames shown and dropped by the running playback, or {0, 0}. */
+    long[] playCounts() { return playing == null ? new long[2] : new long[]{playing.shown(), playing.dropped()}; }
+
     /** Playback rate of the loaded source, frames per second. */
     int playFps() {
         Session.Origin o = session.origin();
@@ -158,7 +161,7 @@ final class LiveView extends JPanel implements Session.Listener {
                 playing = null;
                 playButton.setText("Play");
             }
-        });
+        }, why -> ctx.status().accept("Playback stopped: " + why));
         playing = run[0];
         droppedLabel.setText(" playing at " + fps + " fps");
         playButton.setText("Pause");

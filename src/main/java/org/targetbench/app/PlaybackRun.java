@@ -31,15 +31,18 @@ final class PlaybackRun {
 
     private final List<Thread> workers = new java.util.ArrayList<>();
     private final Runnable onEnd, onShown;
+    private final java.util.function.Consumer<String> onFailure;
     private final LongSupplier clock = System::nanoTime;
 
     /**
      * @param fps     playback rate, frames per second
      * @param onShown called on the event-dispatch thread after each shown frame (to update the dropped count)
-     * @param onEnd   called on the event-dispatch thread when playback reaches the end without looping
+     * @param onEnd     called on the event-dispatch thread when playback ends by itself (the end without looping, a failure)
+     * @param onFailure called on the event-dispatch thread with the reason when preparing a frame failed
      */
-    PlaybackRun(Session session, double fps, boolean loop, Runnable onShown, Runnable onEnd) {
+    PlaybackRun(Session session, double fps, boolean loop, Runnable onShown, Runnable onEnd, java.util.function.Consumer<String> onFailure) {
         this.session = session;
+        this.onFailure = onFailure;
         this.onShown = onShown;
         this.onEnd = onEnd;
         int n = session.frames().size();
@@ -69,7 +72,7 @@ final class PlaybackRun {
     void stop() {
         pacing.stop();
         timer.stop();
-        workers.forEach(Thread::interrupt);
+        workers.forEach(LockSupport::unpark); // a waiting worker sees the stop at once; a busy one after its frame
         session.setPlaying(false);
     }
 
@@ -79,7 +82,7 @@ final class PlaybackRun {
 
     private void prepare(List<SourceFrame> frames, SourceFrame ref, List<DetectorConfig> configs, int version, Perturbation p, double value) {
         DetectionRunner.Scorer scorer = new DetectionRunner.Scorer();
-        while (!pacing.stopped() && !Thread.currentThread().isInterrupted()) {
+        while (!pacing.stopped()) {
             long now = clock.getAsLong();
             OptionalLong t = pacing.nextToPrepare(now);
             if (t.isEmpty()) {
@@ -90,13 +93,30 @@ final class PlaybackRun {
                 continue;
             }
             int index = pacing.indexOf(t.getAsLong());
-            Session.FrameDetections d = scorer.detect(frames.get(index), ref, index, configs, version, p, value);
-            pacing.prepared(t.getAsLong(), d);
+            try {
+                pacing.prepared(t.getAsLong(), scorer.detect(frames.get(index), ref, index, configs, version, p, value));
+            } catch (RuntimeException e) {
+                failure = e.getMessage() == null ? e.toString() : e.getMessage();
+                pacing.stop(); // the display thread ends playback and says why
+                return;
+            }
         }
     }
 
+    /** Why a worker stopped playback, or null. */
+    private volatile String failure;
+
     private void show() {
-        if (!SwingUtilities.isEventDispatchThread() || pacing.stopped()) return;
+        if (!SwingUtilities.isEventDispatchThread()) return;
+        if (failure != null) {
+            String why = failure;
+            failure = null;
+            stop();
+            onEnd.run();
+            onFailure.accept(why);
+            return;
+        }
+        if (pacing.stopped()) return;
         pacing.take(clock.getAsLong()).ifPresent(s -> {
             session.showPlayed(s.frame());
             onShown.run();
