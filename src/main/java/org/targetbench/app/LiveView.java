@@ -183,7 +183,7 @@ final class LiveView extends JPanel implements Session.Listener {
 
     void loadDemo() {
         session.expectOrigin(new Session.Origin(org.targetbench.formats.SessionFile.SourceKind.DEMO, java.util.Optional.empty()));
-        LiveLoad.load(ctx, "demo scene", SourceLoader::demo, false);
+        LiveLoad.load(ctx, "demo scene", SourceLoader::demo, false, takeFailureHook());
     }
 
     private void chooseFolder() {
@@ -275,7 +275,18 @@ final class LiveView extends JPanel implements Session.Listener {
             RegisteredLoad.Result r = RegisteredLoad.register(name, frames, design, cam);
             javax.swing.SwingUtilities.invokeLater(() -> notRegistered = r.notRegistered());
             return r.loaded();
-        });
+        }, true, takeFailureHook());
+    }
+
+    private Runnable failureHook;
+
+    /** Runs {@code r} if the next load (only that one) fails: an opened session then stops waiting for its source. */
+    void onNextLoadFailure(Runnable r) { failureHook = r; }
+
+    private Runnable takeFailureHook() {
+        Runnable r = failureHook == null ? () -> { } : failureHook;
+        failureHook = null;
+        return r;
     }
 
     void loadFolder(Path dir) {
@@ -285,7 +296,7 @@ final class LiveView extends JPanel implements Session.Listener {
 
     void load(String what, LiveLoad.Job job) {
         notRegistered = java.util.Map.of(); // a new source: only a registration run fills this in again
-        LiveLoad.load(ctx, what, job);
+        LiveLoad.load(ctx, what, job, true, takeFailureHook());
     }
 
     @Override

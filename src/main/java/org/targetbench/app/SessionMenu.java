@@ -252,14 +252,23 @@ final class SessionMenu implements Session.Listener {
         if (!st.shown().isEmpty())
             for (var t : org.targetbench.detect.DetectorType.values()) session.setShown(t, st.shown().contains(t));
         session.setStressResults(st.stressResults().orElse(null));
-        session.addListener(new Session.Listener() {
+        Session.Listener[] waiting = new Session.Listener[1];
+        Runnable failed = () -> { // the source (or its registration) could not be loaded: the message has been shown
+            session.removeListener(waiting[0]);
+            restoring = false;
+            ctx.status().accept("Could not open the session " + file + ": its source did not load");
+        };
+        session.addListener(waiting[0] = new Session.Listener() {
             private boolean registering;
 
             @Override public void changed(Session.Change c) {
                 if (c != Session.Change.SOURCE) return;
                 if (st.registration().isPresent() && !registering) {
                     registering = true;
-                    SwingUtilities.invokeLater(() -> live.registerTo(st.registration().get().target(), st.registration().get().camera().orElse(null)));
+                    SwingUtilities.invokeLater(() -> {
+                        live.onNextLoadFailure(failed);
+                        live.registerTo(st.registration().get().target(), st.registration().get().camera().orElse(null));
+                    });
                     return;
                 }
                 session.removeListener(this);
@@ -275,6 +284,7 @@ final class SessionMenu implements Session.Listener {
                 });
             }
         });
+        live.onNextLoadFailure(failed);
         switch (st.kind()) {
             case DEMO -> live.loadDemo();
             case VIDEO -> live.loadVideo(st.sourcePath().orElseThrow());

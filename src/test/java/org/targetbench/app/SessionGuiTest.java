@@ -224,4 +224,27 @@ class SessionGuiTest {
         waitFor("session reopened", () -> !workbench.sessions().restoring());
         assertSameState(before, state());
     }
+
+    @Test
+    @Order(3)
+    void aSessionWhoseSourceDoesNotLoadSaysSoAndStopsWaiting(@TempDir Path tmp) throws Exception {
+        Path broken = tmp.resolve("broken.mp4");
+        java.nio.file.Files.writeString(broken, "this is not a video");
+        Path file = tmp.resolve("broken.session.json");
+        java.nio.file.Files.writeString(file, "{ \"format\": \"targetbench-session\", \"version\": 1, \"source\": { \"kind\": \"video\","
+                + " \"path\": \"broken.mp4\" }, \"frame_index\": 0, \"servo_set\": null }");
+        String before = GuiActionRunner.execute(() -> workbench.session().sourceName());
+        GuiActionRunner.execute(() -> workbench.sessions().open(file));
+        var pane = window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).requireTitle("Could not load the source");
+        GuiActionRunner.execute(() -> pane.okButton().target().doClick());
+        waitFor("no longer restoring", () -> !workbench.sessions().restoring());
+        assertEquals(before, GuiActionRunner.execute(() -> workbench.session().sourceName()), "the loaded source stays");
+        // a later version is refused in one line before anything changes
+        java.nio.file.Files.writeString(file, "{ \"format\": \"targetbench-session\", \"version\": 9, \"source\": { \"kind\": \"demo\" } }");
+        GuiActionRunner.execute(() -> workbench.sessions().open(file));
+        var refused = window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).requireTitle("Could not open the session");
+        assertTrue(GuiActionRunner.execute(() -> workbench.getJMenuBar() != null));
+        GuiActionRunner.execute(() -> refused.okButton().target().doClick());
+        assertFalse(GuiActionRunner.execute(() -> workbench.sessions().restoring()));
+    }
 }
