@@ -241,9 +241,10 @@ class SessionGuiTest {
         assertEquals(before, GuiActionRunner.execute(() -> workbench.session().sourceName()), "the loaded source stays");
         // a later version is refused in one line before anything changes
         java.nio.file.Files.writeString(file, "{ \"format\": \"targetbench-session\", \"version\": 9, \"source\": { \"kind\": \"demo\" } }");
-        GuiActionRunner.execute(() -> workbench.sessions().open(file));
+        javax.swing.SwingUtilities.invokeLater(() -> workbench.sessions().open(file)); // its message is modal
         var refused = window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).requireTitle("Could not open the session");
-        assertTrue(GuiActionRunner.execute(() -> workbench.getJMenuBar() != null));
+        String said = GuiActionRunner.execute(() -> ((javax.swing.JOptionPane) refused.target()).getMessage().toString());
+        assertTrue(said.contains("session version 9 is not readable") && said.split("\\R").length == 1, said);
         GuiActionRunner.execute(() -> refused.okButton().target().doClick());
         assertFalse(GuiActionRunner.execute(() -> workbench.sessions().restoring()));
     }
