@@ -47,9 +47,8 @@ final class DetectionRunner implements Session.Listener {
         return t;
     });
     private final AtomicLong generation = new AtomicLong();
-    private final Map<DetectorType, PointDetector> detectors = new EnumMap<>(DetectorType.class);
-    private final Map<String, List<Detection>> referenceCache = new LinkedHashMap<>();
-    private int detectorsVersion = -1;
+    /** Confined to the worker thread. */
+    private final Scorer scorer = new Scorer();
     /** Bumped on the event-dispatch thread when the source changes; read by the worker. */
     private volatile int sourceVersion;
     /** Worker-thread copy of the source version its reference cache belongs to. */
@@ -63,6 +62,7 @@ final class DetectionRunner implements Session.Listener {
     @Override
     public void changed(Session.Change c) {
         if (c == Session.Change.DETECTIONS || c == Session.Change.SHOWN || !session.hasFrames()) return;
+        if (session.playing() && c != Session.Change.SOURCE) return; // playback prepares its own frames (PlaybackRun)
         if (c == Session.Change.SOURCE) sourceVersion++;
         int srcVersion = sourceVersion;
         long gen = generation.incrementAndGet();
@@ -74,17 +74,28 @@ final class DetectionRunner implements Session.Listener {
         worker.submit(() -> {
             if (generation.get() != gen) return;
             if (srcVersion != seenSourceVersion) {
-                referenceCache.clear();
+                scorer.forgetReference();
                 seenSourceVersion = srcVersion;
             }
-            Session.FrameDetections out = detect(frame, ref, index, configs, version, p, value);
+            Session.FrameDetections out = scorer.detect(frame, ref, index, configs, version, p, value);
             SwingUtilities.invokeLater(() -> {
                 if (generation.get() == gen) session.setDetections(out);
             });
         });
     }
 
-    private Session.FrameDetections detect(SourceFrame frame, SourceFrame ref, int index, List<DetectorConfig> configs, int version,
+    /**
+     * Detects and scores one frame with cached detectors and reference-frame points; one instance per thread (the
+     * runner's worker, a playback's worker).
+     */
+    static final class Scorer {
+        private final Map<DetectorType, PointDetector> detectors = new EnumMap<>(DetectorType.class);
+        private final Map<String, List<Detection>> referenceCache = new LinkedHashMap<>();
+        private int detectorsVersion = -1;
+
+        void forgetReference() { referenceCache.clear(); }
+
+    Session.FrameDetections detect(SourceFrame frame, SourceFrame ref, int index, List<DetectorConfig> configs, int version,
                                            Perturbation p, double value) {
         if (version != detectorsVersion) {
             detectors.clear();
@@ -116,6 +127,7 @@ final class DetectionRunner implements Session.Listener {
             figures.put(c.type(), new Session.FrameFigures(found.size(), sc.repeatabilityOrNaN(), sc.spread().cellOccupancy(), sc.localisationRmsPx()));
         }
         return new Session.FrameDetections(index, shown, points, figures);
+    }
     }
 
     void shutdown() { worker.shutdownNow(); }

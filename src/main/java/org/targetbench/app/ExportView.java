@@ -2,9 +2,7 @@ package org.targetbench.app;
 
 import org.targetbench.export.AtomicOutput;
 import org.targetbench.export.Safety;
-import org.targetbench.export.ServoSetFiles;
-import org.targetbench.export.ServoWriters;
-import org.targetbench.report.RehearsalReport;
+import org.targetbench.report.ServoSetExport;
 import org.targetbench.servo.ServoSet;
 
 import javax.swing.JButton;
@@ -103,13 +101,9 @@ final class ExportView extends JPanel implements Session.Listener {
         ctx.prefs().put("lastExportFolder", dir.toString());
         List<String> files = new ArrayList<>();
         try (AtomicOutput out = AtomicOutput.open(dir)) {
-            files.addAll(ServoSetFiles.write(set, java.util.Optional.ofNullable(session.rehearsal()), session.rehearsalElapsedS(), out, "servo-set", "rehearsal/"));
-            // the selection file always comes from the state the set comes from: the choice and its hand edits, or the set alone
-            if (session.pick() != null) ServoWriters.writeSelection(session.pick().selection(), set, out.file("servo-set-selection.csv"));
-            else ServoWriters.writeSelection(set, out.file("servo-set-selection.csv"));
-            files.add("servo-set-selection.csv");
-            if (session.rehearsal() != null)
-                for (String f : RehearsalReport.write(session.rehearsal(), set, "servo-set.json", out, "rehearsal/")) files.add("rehearsal/" + f);
+            // the same export as the command line's pick and demo
+            files.addAll(ServoSetExport.write(set, java.util.Optional.ofNullable(session.pick()).map(p -> p.selection()),
+                    java.util.Optional.ofNullable(session.rehearsal()), session.rehearsalElapsedS(), out, "servo-set", "rehearsal/"));
             out.commit();
             ctx.status().accept("Exported " + String.join(", ", files) + " to " + dir);
         } catch (Exception e) {

@@ -20,6 +20,11 @@ final class LiveLoad {
 
     /** @param bringForward show the live view when the source has loaded */
     static void load(AppContext ctx, String what, Job job, boolean bringForward) {
+        load(ctx, what, job, bringForward, () -> { });
+    }
+
+    /** @param failed runs on the event-dispatch thread after the message when the source could not be loaded */
+    static void load(AppContext ctx, String what, Job job, boolean bringForward, Runnable failed) {
         ctx.status().accept("Loading " + what + "...");
         new SwingWorker<SourceLoader.Loaded, Void>() {
             @Override protected SourceLoader.Loaded doInBackground() throws Exception { return job.load(); }
@@ -35,6 +40,7 @@ final class LiveLoad {
                     String msg = e.getCause() == null ? e.toString() : e.getCause().getMessage();
                     ctx.status().accept("Could not load " + what + ": " + msg);
                     JOptionPane.showMessageDialog(ctx.window(), msg, "Could not load the source", JOptionPane.WARNING_MESSAGE);
+                    failed.run();
                 } catch (InterruptedException e) {
                     Thread.currentThread().interrupt();
                 }

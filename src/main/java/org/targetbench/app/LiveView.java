@@ -15,7 +15,6 @@ import javax.swing.JPanel;
 import javax.swing.JScrollPane;
 import javax.swing.JSlider;
 import javax.swing.JTable;
-import javax.swing.Timer;
 import javax.swing.table.DefaultTableModel;
 import java.awt.BorderLayout;
 import java.awt.Dimension;
@@ -26,8 +25,10 @@ import java.nio.file.Path;
  * preview a degradation (lighting, blur, noise, JPEG, viewpoint) while the scores update.
  */
 final class LiveView extends JPanel implements Session.Listener {
-    /** Playback rate, frames per second. */
+    /** Playback rate of stills (the demo scene, frame folders), frames per second. */
     static final int PLAY_FPS = 8;
+    /** Playback rate of a video, frames per second (the usual camera rate; the file's own rate is not read yet). */
+    static final int VIDEO_FPS = 30;
     /** Steps of the degradation slider over a parameter's default range. */
     static final int SLIDER_STEPS = 100;
 
@@ -39,7 +40,10 @@ final class LiveView extends JPanel implements Session.Listener {
     private final JButton playButton;
     private final JButton reopen;
     private final JCheckBox loop = Ui.named(new JCheckBox("Loop", true), "play.loop", "Start again at the end");
-    private final Timer timer;
+    /** The running playback, or null. */
+    private PlaybackRun playing;
+    private final JLabel droppedLabel = Ui.named(new JLabel(" "), "play.dropped", "Frames of the clip that were not shown because preparing them "
+            + "(degradation and the drawn detectors) could not keep up with the playback rate");
     private final JComboBox<Perturbation> degradeKind = Ui.named(new JComboBox<>(Perturbation.values()), "live.degrade.kind",
             "Condition to preview on the frame");
     private final JSlider degradeLevel = Ui.named(new JSlider(0, SLIDER_STEPS, 0), "live.degrade.level",
@@ -55,7 +59,6 @@ final class LiveView extends JPanel implements Session.Listener {
         this.ctx = ctx;
         this.session = ctx.session();
         setName("view.live");
-        timer = new Timer(1000 / PLAY_FPS, e -> advance());
         playButton = Ui.button("play.toggle", "Play", "Play or pause the source (Space)", this::togglePlay);
 
         String last = ctx.prefs().get("lastFolder", null);
@@ -80,7 +83,10 @@ final class LiveView extends JPanel implements Session.Listener {
         playback.add(Ui.row(Ui.button("play.back", "<", "Previous frame (Left)", () -> session.setFrameIndex(session.frameIndex() - 1)),
                 playButton, Ui.button("play.step", ">", "Next frame (Right)", () -> session.setFrameIndex(session.frameIndex() + 1)), loop), BorderLayout.WEST);
         playback.add(frameSlider, BorderLayout.CENTER);
-        playback.add(frameLabel, BorderLayout.EAST);
+        JPanel labels = new JPanel(new java.awt.GridLayout(0, 1));
+        labels.add(frameLabel);
+        labels.add(droppedLabel);
+        playback.add(labels, BorderLayout.EAST);
         frameSlider.addChangeListener(e -> {
             if (!updating) session.setFrameIndex(frameSlider.getValue());
         });
@@ -131,26 +137,53 @@ final class LiveView extends JPanel implements Session.Listener {
 
     void togglePlay() {
         if (!session.hasFrames()) return;
-        if (timer.isRunning()) timer.stop();
-        else timer.start();
-        playButton.setText(timer.isRunning() ? "Pause" : "Play");
+        if (playing != null) stopPlaying();
+        else startPlaying();
     }
 
-    private void advance() {
-        int next = session.frameIndex() + 1;
-        if (next >= session.frames().size()) {
-            if (!loop.isSelected()) {
-                togglePlay();
-                return;
+    /** True while playback runs. */
+    boolean isPlaying() { return playing != null; }
+
+    /** Frames shown and dropped by the running playback, or {0, 0}. */
+    long[] playCounts() { return playing == null ? new long[2] : new long[]{playing.shown(), playing.dropped()}; }
+
+    /** Playback rate of the loaded source, frames per second. */
+    int playFps() {
+        Session.Origin o = session.origin();
+        return o != null && o.kind() == org.targetbench.formats.SessionFile.SourceKind.VIDEO ? VIDEO_FPS : PLAY_FPS;
+    }
+
+    private void startPlaying() {
+        int fps = playFps();
+        PlaybackRun[] run = new PlaybackRun[1];
+        run[0] = new PlaybackRun(session, fps, loop.isSelected(), () -> showDropped(run[0], fps), () -> {
+            if (playing == run[0]) {
+                playing = null;
+                playButton.setText("Play");
             }
-            next = 0;
-        }
-        session.setFrameIndex(next);
+        }, why -> ctx.status().accept("Playback stopped: " + why));
+        playing = run[0];
+        droppedLabel.setText(" playing at " + fps + " fps");
+        playButton.setText("Pause");
+        run[0].start();
+    }
+
+    private void stopPlaying() {
+        PlaybackRun p = playing;
+        playing = null;
+        playButton.setText("Play");
+        if (p != null) p.stop();
+    }
+
+    private void showDropped(PlaybackRun p, int fps) {
+        long d = p.dropped();
+        droppedLabel.setText(" " + fps + " fps: dropped " + d + (d == 1 ? " frame" : " frames") + " of " + (d + p.shown())
+                + (d > 0 ? " (preparing frames is slower than playback; fewer drawn detectors help)" : ""));
     }
 
     void loadDemo() {
         session.expectOrigin(new Session.Origin(org.targetbench.formats.SessionFile.SourceKind.DEMO, java.util.Optional.empty()));
-        LiveLoad.load(ctx, "demo scene", SourceLoader::demo, false);
+        LiveLoad.load(ctx, "demo scene", SourceLoader::demo, false, takeFailureHook());
     }
 
     private void chooseFolder() {
@@ -232,14 +265,28 @@ final class LiveView extends JPanel implements Session.Listener {
     void registerTo(Path target, Path camera) {
         String name = session.sourceName();
         java.util.List<org.targetbench.source.SourceFrame> frames = java.util.List.copyOf(session.frames());
-        load("registration to " + target.getFileName(), () -> {
+        notRegistered = java.util.Map.of();
+        // the same frames with truth from the design: a session keeps the source and reopens it registered again
+        session.expectRegistration(new org.targetbench.formats.SessionFile.Registration(target, java.util.Optional.ofNullable(camera)));
+        LiveLoad.load(ctx, "registration to " + target.getFileName(), () -> {
             var design = org.targetbench.source.TargetFile.read(target);
             var cam = camera == null ? java.util.Optional.<org.targetbench.camera.CameraModel>empty()
                     : java.util.Optional.of(org.targetbench.source.CameraFiles.read(camera));
             RegisteredLoad.Result r = RegisteredLoad.register(name, frames, design, cam);
             javax.swing.SwingUtilities.invokeLater(() -> notRegistered = r.notRegistered());
             return r.loaded();
-        });
+        }, true, takeFailureHook());
+    }
+
+    private Runnable failureHook;
+
+    /** Runs {@code r} if the next load (only that one) fails: an opened session then stops waiting for its source. */
+    void onNextLoadFailure(Runnable r) { failureHook = r; }
+
+    private Runnable takeFailureHook() {
+        Runnable r = failureHook == null ? () -> { } : failureHook;
+        failureHook = null;
+        return r;
     }
 
     void loadFolder(Path dir) {
@@ -249,13 +296,15 @@ final class LiveView extends JPanel implements Session.Listener {
 
     void load(String what, LiveLoad.Job job) {
         notRegistered = java.util.Map.of(); // a new source: only a registration run fills this in again
-        LiveLoad.load(ctx, what, job);
+        LiveLoad.load(ctx, what, job, true, takeFailureHook());
     }
 
     @Override
     public void changed(Session.Change c) {
         switch (c) {
             case SOURCE -> {
+                stopPlaying();
+                droppedLabel.setText(" ");
                 updating = true;
                 frameSlider.setMaximum(session.frames().size() - 1);
                 updating = false;
@@ -269,11 +318,22 @@ final class LiveView extends JPanel implements Session.Listener {
                 frameLabel.setText(" " + (session.frameIndex() + 1) + "/" + session.frames().size() + "  " + f.name()
                         + (session.frameIndex() == session.referenceIndex() ? " (reference)" : "")
                         + (nr != null ? "  NOT REGISTERED: " + nr + " (not scored)" : ""));
-                if (session.detections() == null) canvas.setFrame(f.image());
+                // the picture always shows the frame the counter names: the raw frame until its detections arrive
+                if (session.detections() == null || session.detections().frameIndex() != session.frameIndex()) {
+                    canvas.setFrame(f.image());
+                    canvas.setOverlay(java.util.Map.of(), java.util.List.of());
+                }
             }
-            case SHOWN -> drawOverlay();
+            case SHOWN, DETECTORS, DEGRADE -> {
+                if (playing != null) { // playback prepares frames with the settings it started with: start again with the new ones
+                    stopPlaying();
+                    startPlaying();
+                }
+                if (c == Session.Change.SHOWN) drawOverlay();
+            }
             case DETECTIONS -> {
                 var d = session.detections();
+                if (d.frameIndex() != session.frameIndex()) return;
                 canvas.setFrame(d.shown());
                 drawOverlay();
                 scores.setRowCount(0);

@@ -90,15 +90,35 @@ public final class Session {
     private Origin pendingOrigin, origin;
 
     /** Says where the source that is being loaded comes from; the next {@link #setSource} takes it. */
-    public void expectOrigin(Origin o) { pendingOrigin = o; }
+    public void expectOrigin(Origin o) {
+        pendingOrigin = o == null ? null : new Origin(o.kind(), o.path().map(p -> p.toAbsolutePath().normalize())); // as a reopened session has it
+        pendingRegistration = null;
+    }
 
     /** Where the current frames came from, or null when they cannot be reopened from a file (e.g. a registration). */
     public Origin origin() { return origin; }
+
+    private org.targetbench.formats.SessionFile.Registration pendingRegistration, registration;
+
+    /**
+     * Says that the source being loaded is the current one registered to a design (and camera): the next
+     * {@link #setSource} keeps the current origin and takes this registration.
+     */
+    public void expectRegistration(org.targetbench.formats.SessionFile.Registration r) {
+        pendingOrigin = origin;
+        pendingRegistration = r == null ? null : new org.targetbench.formats.SessionFile.Registration(r.target().toAbsolutePath().normalize(),
+                r.camera().map(p -> p.toAbsolutePath().normalize()));
+    }
+
+    /** The design and camera files the current frames were registered to, or null. */
+    public org.targetbench.formats.SessionFile.Registration registration() { return registration; }
 
     public void setSource(String name, List<SourceFrame> newFrames, String referenceName, java.util.Optional<Scene> newScene) {
         if (newFrames.isEmpty()) throw new IllegalArgumentException("a source needs at least one frame");
         origin = pendingOrigin;
         pendingOrigin = null;
+        registration = origin == null ? null : pendingRegistration;
+        pendingRegistration = null;
         frames = List.copyOf(newFrames);
         sourceName = name;
         scene = newScene;
@@ -274,6 +294,96 @@ public final class Session {
 
     /** Seconds the current rehearsal took. */
     public double rehearsalElapsedS() { return rehearsalElapsedS; }
+
+    /**
+     * The hand edits of the set as candidate ids: those done since the choice (oldest first), those undone (the next to
+     * redo first), and which state of the set the kept rehearsal ran on (0 the chosen set, i after the i-th edit, counted
+     * on through the undone ones; -1 for none). Empty lists when there is no choice behind the set.
+     */
+    public record ServoEdits(List<Integer> done, List<Integer> undone, int rehearsedPosition) {
+        public ServoEdits {
+            done = List.copyOf(done);
+            undone = List.copyOf(undone);
+        }
+    }
+
+    /** The states of the set, oldest first: the chosen set, each edit, then the undone ones. */
+    List<org.targetbench.servo.ServoSet> servoStates() {
+        List<org.targetbench.servo.ServoSet> chain = new ArrayList<>();
+        if (servoSet == null) return chain;
+        undo.descendingIterator().forEachRemaining(chain::add);
+        chain.add(servoSet);
+        chain.addAll(redo);
+        return chain;
+    }
+
+    public ServoEdits servoEdits() {
+        List<org.targetbench.servo.ServoSet> chain = servoStates();
+        List<Integer> ids = new ArrayList<>();
+        for (int i = 1; i < chain.size(); i++) {
+            Set<Integer> a = new java.util.HashSet<>(), b = new java.util.HashSet<>();
+            chain.get(i - 1).points().forEach(p -> a.add(p.id()));
+            chain.get(i).points().forEach(p -> b.add(p.id()));
+            Set<Integer> diff = new java.util.HashSet<>(a);
+            diff.addAll(b);
+            a.retainAll(b);
+            diff.removeAll(a);
+            if (diff.size() != 1) return new ServoEdits(List.of(), List.of(), chain.indexOf(rehearsedSet)); // not one click apart
+            ids.add(diff.iterator().next());
+        }
+        int now = undo.size();
+        return new ServoEdits(ids.subList(0, now), ids.subList(now, ids.size()), rehearsedSet == null ? -1 : chain.indexOf(rehearsedSet));
+    }
+
+    /**
+     * Puts back a rehearsal that ran on {@code on} (the current set or an earlier or undone state of it), as a reopened
+     * session does; it applies to the current set only when that equals {@code on}.
+     */
+    public void restoreRehearsal(org.targetbench.servo.ServoSet on, org.targetbench.servo.RehearsalResult r, double elapsedS) {
+        rehearsedSet = on;
+        lastRehearsal = r;
+        rehearsalElapsedS = elapsedS;
+        rehearsal = rehearsalOf(servoSet);
+        fire(Change.SERVO);
+    }
+
+    /** The set the kept rehearsal ran on (see {@link #changedSinceRehearsal()}), or null. */
+    public org.targetbench.servo.ServoSet rehearsedSet() { return rehearsedSet; }
+
+    /** The kept rehearsal, whether or not it applies to the current set, or null. */
+    public org.targetbench.servo.RehearsalResult lastRehearsal() { return lastRehearsal; }
+
+    private java.nio.file.Path stressResults;
+
+    /** Records the folder the stress sweep's results were saved to (kept by a saved session). */
+    public void setStressResults(java.nio.file.Path folder) { stressResults = folder; }
+
+    /** The folder the stress sweep's results were last saved to, or null. */
+    public java.nio.file.Path stressResults() { return stressResults; }
+
+    private boolean playing;
+
+    /** True while playback runs: it prepares and shows its own frames, and the detection runner waits. */
+    public boolean playing() { return playing; }
+
+    /** Starts or ends playback; at the end the shown frame is scored again by every detector (a FRAME change). */
+    void setPlaying(boolean on) {
+        if (on == playing) return;
+        playing = on;
+        if (!on && hasFrames()) fire(Change.FRAME);
+    }
+
+    /**
+     * Shows a frame prepared by playback: the frame index and its detections change together, so the counter and the
+     * picture name the same frame.
+     */
+    void showPlayed(FrameDetections d) {
+        if (d.frameIndex() < 0 || d.frameIndex() >= frames.size()) return;
+        frameIndex = d.frameIndex();
+        detections = d;
+        fire(Change.FRAME);
+        fire(Change.DETECTIONS);
+    }
 
     /** Called by the detection runner with results for the current state. */
     void setDetections(FrameDetections d) {

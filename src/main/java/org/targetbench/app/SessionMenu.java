@@ -1,7 +1,6 @@
 package org.targetbench.app;
 
 import org.targetbench.export.ServoSetJson;
-import org.targetbench.formats.ServoSetReader;
 import org.targetbench.formats.SessionFile;
 
 import javax.swing.JFileChooser;
@@ -20,8 +19,10 @@ import java.util.Optional;
 
 /**
  * Sessions of the workbench: File menu (new, open, save as, recent sessions, quit), the unsaved-work prompt and the
- * keyboard shortcuts list. A session file ({@link SessionFile}) references the source and the edited servo set, which is
- * written beside it as NAME.servo-set.json.
+ * keyboard shortcuts list. A session file ({@link SessionFile}) references the source (and the design and camera it was
+ * registered to), keeps every detector setting, the servo choice with its hand edits, the kept rehearsal, the views'
+ * controls (rehearsal and stress settings, the rehearsal runs side by side) and the stress results folder; the edited
+ * servo set is written beside it as NAME.servo-set.json.
  */
 final class SessionMenu implements Session.Listener {
     /** How many recent sessions the File menu lists. */
@@ -30,7 +31,7 @@ final class SessionMenu implements Session.Listener {
     static final String UNSAVED_TITLE = "Unsaved work";
     /** The keyboard shortcuts, as Help lists them. */
     static final String[][] SHORTCUTS = {
-            {"Ctrl+N", "New session (the demo scene)"}, {"Ctrl+O", "Open a session"}, {"Ctrl+S", "Save the session as..."},
+            {"Ctrl+N", "New session (the demo scene)"}, {"Ctrl+O", "Open a session"}, {"Ctrl+S", "Save the session"}, {"Ctrl+Shift+S", "Save the session as..."},
             {"Ctrl+Q", "Quit (asks first when work is unsaved)"}, {"Ctrl+E", "Export the servo set"}, {"Ctrl+T", "Switch light/dark theme"},
             {"Ctrl+Z", "Servo set: take back the latest point click"}, {"Ctrl+Shift+Z", "Servo set: do the undone click again"},
             {"Space", "Play or pause the frames"}, {"Left / Right", "Previous / next frame"},
@@ -54,7 +55,8 @@ final class SessionMenu implements Session.Listener {
 
     @Override
     public void changed(Session.Change c) {
-        if (c == Session.Change.SERVO) dirty = true;
+        if (restoring) return;
+        if (c == Session.Change.SERVO || c == Session.Change.DETECTORS || c == Session.Change.SHOWN) dirty = true;
         if (c == Session.Change.SOURCE && session.origin() != null && session.origin().kind() != SessionFile.SourceKind.DEMO) dirty = true;
     }
 
@@ -65,7 +67,8 @@ final class SessionMenu implements Session.Listener {
         file.setName("menu.file");
         file.add(item("menu.new", "New session", KeyEvent.VK_N, 0, this::newSession));
         file.add(item("menu.open", "Open session...", KeyEvent.VK_O, 0, this::chooseAndOpen));
-        file.add(item("menu.save", "Save session as...", KeyEvent.VK_S, 0, this::chooseAndSave));
+        file.add(item("menu.save", "Save session", KeyEvent.VK_S, 0, this::saveOrChoose));
+        file.add(item("menu.saveas", "Save session as...", KeyEvent.VK_S, InputEvent.SHIFT_DOWN_MASK, this::chooseAndSave));
         recent.setName("menu.recent");
         file.add(recent);
         file.addSeparator();
@@ -129,7 +132,7 @@ final class SessionMenu implements Session.Listener {
         if (!dirty) return true;
         int a = JOptionPane.showConfirmDialog(ctx.window(), "The session has unsaved work (source, servo set edits or rehearsals). Save it first?",
                 UNSAVED_TITLE, JOptionPane.YES_NO_CANCEL_OPTION, JOptionPane.WARNING_MESSAGE);
-        if (a == JOptionPane.YES_OPTION) return chooseAndSave();
+        if (a == JOptionPane.YES_OPTION) return saveOrChoose();
         return a == JOptionPane.NO_OPTION;
     }
 
@@ -140,6 +143,10 @@ final class SessionMenu implements Session.Listener {
     void newSession() {
         if (!askToSave()) return;
         current = null;
+        restoring = true; // the fresh settings are not unsaved work
+        for (var t : org.targetbench.detect.DetectorType.values()) session.setConfig(org.targetbench.detect.DetectorConfig.defaults(t));
+        session.setStressResults(null);
+        restoring = false;
         live.loadDemo();
         dirty = false;
     }
@@ -150,6 +157,11 @@ final class SessionMenu implements Session.Listener {
         fc.setFileFilter(new javax.swing.filechooser.FileNameExtensionFilter("Sessions (*.session.json)", "json"));
         if (fc.showOpenDialog(ctx.window()) != JFileChooser.APPROVE_OPTION) return;
         open(fc.getSelectedFile().toPath());
+    }
+
+    /** Saves to the session's own file, or asks for one the first time. */
+    private boolean saveOrChoose() {
+        return current != null ? save(current) : chooseAndSave();
     }
 
     private boolean chooseAndSave() {
@@ -166,20 +178,13 @@ final class SessionMenu implements Session.Listener {
     boolean save(Path file) {
         Session.Origin o = session.origin();
         if (o == null) {
-            String msg = "These frames cannot be reopened from a file (a registration or a camera); save the source as a folder first.";
+            String msg = "These frames cannot be reopened from a file (a camera or a rendered design); save the source as a folder first.";
             ctx.status().accept("Could not save the session: " + msg);
             JOptionPane.showMessageDialog(ctx.window(), msg, "Could not save the session", JOptionPane.WARNING_MESSAGE);
             return false;
         }
         try {
-            Optional<Path> set = Optional.empty();
-            if (session.servoSet() != null) {
-                String stem = file.getFileName().toString().replaceFirst("(\\.session)?\\.json$", "");
-                Path sf = file.toAbsolutePath().resolveSibling(stem + ".servo-set.json");
-                ServoSetJson.write(session.servoSet(), Optional.ofNullable(session.rehearsal()), "", sf);
-                set = Optional.of(sf);
-            }
-            SessionFile.write(new SessionFile.State(o.kind(), o.path(), session.hasFrames() ? session.frameIndex() : 0, set), file);
+            SessionFile.write(state(file), file);
             current = file;
             dirty = false;
             remember(file);
@@ -193,38 +198,93 @@ final class SessionMenu implements Session.Listener {
         }
     }
 
-    /** Reads a session: loads its source, then (once loaded) shows its frame and its servo set. */
+    /** What a session file saved now as {@code file} holds (writing the edited set beside it). */
+    private SessionFile.State state(Path file) throws java.io.IOException {
+        Session.Origin o = session.origin();
+        Optional<Path> set = Optional.empty();
+        if (session.servoSet() != null) {
+            String stem = file.getFileName().toString().replaceFirst("(\\.session)?\\.json$", "");
+            Path sf = file.toAbsolutePath().resolveSibling(stem + ".servo-set.json");
+            ServoSetJson.write(session.servoSet(), Optional.ofNullable(session.rehearsal()), "", sf);
+            set = Optional.of(sf);
+        }
+        var pick = session.pick();
+        Optional<SessionFile.Pick> p = pick == null || pick.set().isEmpty() ? Optional.empty()
+                : Optional.of(new SessionFile.Pick(pick.detector(), pick.set().get().points().size(), pick.set().get().created()));
+        Session.ServoEdits edits = session.servoEdits();
+        Optional<SessionFile.Rehearsed> rehearsed = session.lastRehearsal() == null || edits.rehearsedPosition() < 0 ? Optional.empty()
+                : Optional.of(new SessionFile.Rehearsed(edits.rehearsedPosition(), session.lastRehearsal().config(), session.rehearsalElapsedS()));
+        SessionFile.Servo servo = new SessionFile.Servo(set, p, p.isPresent() ? edits.done() : List.of(), p.isPresent() ? edits.undone() : List.of(), rehearsed);
+        return new SessionFile.State(o.kind(), o.path(), Optional.ofNullable(session.registration()), session.hasFrames() ? session.frameIndex() : 0,
+                session.configs(), session.shown(), servo, ViewSettings.save(ViewSettings.views(ctx.window())), Optional.ofNullable(session.stressResults()));
+    }
+
+    private boolean restoring;
+
+    /** True while an opened session is still being put back (its source loading, its choice and rehearsal running). */
+    boolean restoring() { return restoring; }
+
+    /**
+     * Reads a session: sets the detectors and the views' controls, loads its source (and registers it again), then
+     * shows its frame and puts back its servo work ({@link SessionRestore}).
+     */
     void open(Path file) {
         SessionFile.State st;
         try {
             st = SessionFile.read(file);
-            if (st.servoSet().isPresent() && !Files.exists(st.servoSet().get()))
-                throw new org.targetbench.source.SourceException("the session's servo set " + st.servoSet().get() + " is missing");
+            List<Path> needed = new ArrayList<>();
+            st.servoSet().ifPresent(needed::add);
+            st.sourcePath().ifPresent(needed::add);
+            st.registration().ifPresent(r -> {
+                needed.add(r.target());
+                r.camera().ifPresent(needed::add);
+            });
+            for (Path p : needed)
+                if (!Files.exists(p)) throw new org.targetbench.source.SourceException(file + ": the session's file " + p + " is missing");
         } catch (org.targetbench.source.SourceException e) {
             ctx.status().accept("Could not open the session: " + e.getMessage());
             JOptionPane.showMessageDialog(ctx.window(), e.getMessage(), "Could not open the session", JOptionPane.WARNING_MESSAGE);
             return;
         }
-        session.addListener(new Session.Listener() {
+        restoring = true;
+        for (var c : st.detectors()) session.setConfig(c);
+        ViewSettings.restore(ViewSettings.views(ctx.window()), st.views());
+        if (!st.shown().isEmpty())
+            for (var t : org.targetbench.detect.DetectorType.values()) session.setShown(t, st.shown().contains(t));
+        session.setStressResults(st.stressResults().orElse(null));
+        Session.Listener[] waiting = new Session.Listener[1];
+        Runnable failed = () -> { // the source (or its registration) could not be loaded: the message has been shown
+            session.removeListener(waiting[0]);
+            restoring = false;
+            ctx.status().accept("Could not open the session " + file + ": its source did not load");
+        };
+        session.addListener(waiting[0] = new Session.Listener() {
+            private boolean registering;
+
             @Override public void changed(Session.Change c) {
                 if (c != Session.Change.SOURCE) return;
+                if (st.registration().isPresent() && !registering) {
+                    registering = true;
+                    SwingUtilities.invokeLater(() -> {
+                        live.onNextLoadFailure(failed);
+                        live.registerTo(st.registration().get().target(), st.registration().get().camera().orElse(null));
+                    });
+                    return;
+                }
                 session.removeListener(this);
                 SwingUtilities.invokeLater(() -> {
                     session.setFrameIndex(st.frameIndex());
-                    if (st.servoSet().isPresent()) {
-                        try {
-                            session.loadServoSet(ServoSetReader.read(st.servoSet().get()));
-                        } catch (org.targetbench.source.SourceException e) {
-                            ctx.status().accept("Could not read the session's servo set: " + e.getMessage());
-                        }
-                    }
-                    current = file;
-                    dirty = false;
-                    remember(file);
-                    ctx.status().accept("Opened the session " + file);
+                    new SessionRestore(ctx).servo(st, what -> {
+                        current = file;
+                        dirty = false;
+                        restoring = false;
+                        remember(file);
+                        ctx.status().accept("Opened the session " + file + (what.isEmpty() ? "" : ": " + what));
+                    });
                 });
             }
         });
+        live.onNextLoadFailure(failed);
         switch (st.kind()) {
             case DEMO -> live.loadDemo();
             case VIDEO -> live.loadVideo(st.sourcePath().orElseThrow());

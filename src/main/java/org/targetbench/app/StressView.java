@@ -260,6 +260,7 @@ final class StressView extends JPanel {
             var dotBias = lastBase == null ? List.<DotBiasTable.Row>of() : DotBiasTable.forSweep(lastBase, running);
             if (!dotBias.isEmpty()) DotBiasWriter.write(dotBias, out.file("dot-bias.csv"));
             out.commit();
+            ctx.session().setStressResults(dir); // a saved session references the results
             ctx.status().accept("Report written to " + dir.resolve("report.html"));
         } catch (Exception e) {
             ctx.status().accept("Could not write the report: " + e.getMessage());

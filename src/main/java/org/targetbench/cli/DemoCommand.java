@@ -116,9 +116,9 @@ final class DemoCommand implements Callable<Integer> {
             if (demo.stagesDone() < 4) return stopped(output, w, demo.stagesDone());
             PickRun.Result pick = demo.pick();
             if (pick.set().isEmpty()) throw new ServoSteps.NoAcceptableSet(Reasons.selection(pick.selection()));
-            List<String> setFiles = ServoSteps.writePick(pick, output, "servo-set");
             RehearsalResult rehearsal = demo.rehearsal();
-            ServoSteps.writeRehearsal(rehearsal, pick.set().get(), setName, demo.rehearsalSeconds(), output, "rehearsal/");
+            // the rehearsal ran on exactly this set, so servo-set.json records it (the same export as the workbench's)
+            List<String> setFiles = ServoSteps.writePick(pick, java.util.Optional.ofNullable(rehearsal), demo.rehearsalSeconds(), output, "servo-set");
             if (demo.stagesDone() < 6) return stopped(output, w, demo.stagesDone());
             org.targetbench.pipeline.TrackResult tracking = demo.tracking();
             var armRehearsal = demo.arm();

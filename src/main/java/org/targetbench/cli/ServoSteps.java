@@ -3,7 +3,7 @@ package org.targetbench.cli;
 import org.targetbench.formats.PickRefusals;
 import org.targetbench.Version;
 import org.targetbench.export.AtomicOutput;
-import org.targetbench.export.ServoSetFiles;
+import org.targetbench.report.ServoSetExport;
 import org.targetbench.export.ServoWriters;
 import org.targetbench.pipeline.PickRun;
 import org.targetbench.pipeline.Reasons;
@@ -51,9 +51,17 @@ final class ServoSteps {
 
     /** Writes stem.json, stem.csv and stem-selection.csv into the output. */
     static List<String> writePick(PickRun.Result r, AtomicOutput out, String stem) throws IOException {
-        String[] set = ServoSetFiles.write(r.set().orElseThrow(), out, stem);
-        ServoWriters.writeSelection(r.selection(), out.file(stem + "-selection.csv"));
-        return List.of(set[0], set[1], stem + "-selection.csv");
+        return writePick(r, java.util.Optional.empty(), 0, out, stem);
+    }
+
+    /**
+     * Writes a picked set through the workbench's own export ({@link ServoSetExport}): the set, its selection file and
+     * its {@code rehearsal} key (the rehearsal run on exactly this set, with its files under rehearsal/, or "not
+     * rehearsed").
+     */
+    static List<String> writePick(PickRun.Result r, java.util.Optional<RehearsalResult> rehearsal, double elapsedS, AtomicOutput out, String stem)
+            throws IOException {
+        return ServoSetExport.write(r.set().orElseThrow(), java.util.Optional.of(r.selection()), rehearsal, elapsedS, out, stem, "rehearsal/");
     }
 
     static void printPick(PickRun.Result r, String from, PrintWriter w) {

@@ -9,10 +9,9 @@ import java.nio.file.Path;
 public final class ServoSetFiles {
     private ServoSetFiles() {}
 
-    /** Writes {@code stem.json} and {@code stem.csv} into the output; returns their names. */
+    /** Writes {@code stem.json} (recording "not rehearsed") and {@code stem.csv} into the output; returns their names. */
     public static String[] write(ServoSet set, AtomicOutput out, String stem) throws IOException {
-        ServoSetJson.write(set, out.file(stem + ".json"));
-        ServoSetCsv.write(set, out.file(stem + ".csv"));
+        write(set, java.util.Optional.empty(), 0, out, stem, ""); // no rehearsal: the JSON says "not rehearsed"
         return new String[]{stem + ".json", stem + ".csv"};
     }
 

@@ -85,6 +85,34 @@ class ServoCliTest {
     }
 
     @Test
+    void pickAndDemoRecordTheRehearsalKeyAsTheWorkbenchExportDoes() throws Exception {
+        ObjectMapper m = new ObjectMapper();
+        // pick runs no rehearsal: the key says so, and the file is exactly what the one export writes for that set
+        Path f = tmp.resolve("keyed/set.json");
+        Cli.Result p = Cli.run("pick", "--from", demo.toString(), "--out", f.toString());
+        assertEquals(0, p.exit(), p.err());
+        JsonNode picked = m.readTree(f.toFile());
+        assertEquals(org.targetbench.export.ServoSetJson.NOT_REHEARSED, picked.get("rehearsal").asText());
+        ServoSet set = ServoSetReader.read(f);
+        Path again = tmp.resolve("keyed-again");
+        try (org.targetbench.export.AtomicOutput out = org.targetbench.export.AtomicOutput.open(again)) {
+            List<String> files = org.targetbench.report.ServoSetExport.write(set, java.util.Optional.empty(), java.util.Optional.empty(), 0, out,
+                    "set", "rehearsal/");
+            assertEquals(List.of("set.json", "set.csv"), files);
+            out.commit();
+        }
+        assertEquals(picked, m.readTree(again.resolve("set.json").toFile()));
+        assertFalse(Files.exists(tmp.resolve("keyed/rehearsal")), "no rehearsal, no rehearsal files");
+        // the demo rehearses exactly the set it exports: the key holds that rehearsal, and its files are where it says
+        JsonNode demoSet = m.readTree(demo.resolve("servo-set.json").toFile());
+        JsonNode summary = m.readTree(demo.resolve("rehearsal/rehearsal-summary.json").toFile());
+        assertTrue(demoSet.get("rehearsal").isObject(), demoSet.get("rehearsal").toString());
+        assertEquals("rehearsal/", demoSet.at("/rehearsal/files").asText());
+        assertEquals(summary.get("summary"), demoSet.at("/rehearsal/summary"));
+        assertEquals(summary.get("settings"), demoSet.at("/rehearsal/settings"));
+    }
+
+    @Test
     void pickEstimatesThePoseWithPnpWhenNoPoseIsKnown() throws Exception {
         Path copy = tmp.resolve("no-poses");
         copyTree(demo, copy);
