@@ -12,7 +12,8 @@ import jdk.incubator.vector.VectorSpecies;
  *
  * <p>The vectors run ACROSS pixels: each lane holds one pixel and does exactly the float operations of the scalar twin,
  * in the same order (a separate multiply and add, never a fused multiply-add; no reordered sums), so the output is the
- * same bit for bit whatever the lane count of {@link FloatVector#SPECIES_PREFERRED}. The remainder of a row that does
+ * same bit for bit whatever the lane count (8 lanes of {@link FloatVector#SPECIES_256}, the one shape all vector code uses, see
+ * {@link org.targetbench.Simd}). The remainder of a row that does
  * not fill a vector runs the scalar expression. The square root of the Shi-Tomasi response is the lane-wise IEEE
  * float square root, which equals the scalar twin's {@code (float) Math.sqrt(double)} because a double square root
  * rounded to float is correctly rounded (53 >= 2 x 24 + 2 bits; S. Figueroa, "When is double rounding innocuous?",
@@ -21,7 +22,7 @@ import jdk.incubator.vector.VectorSpecies;
  * frames and compares every bit.
  */
 final class CornerVectors {
-    private static final VectorSpecies<Float> S = FloatVector.SPECIES_PREFERRED;
+    private static final VectorSpecies<Float> S = FloatVector.SPECIES_256; // the one shape of the JVM's vector code (Simd)
     private static final int L = S.length();
 
     private CornerVectors() {}
