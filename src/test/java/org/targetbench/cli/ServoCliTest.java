@@ -98,7 +98,7 @@ class ServoCliTest {
         try (org.targetbench.export.AtomicOutput out = org.targetbench.export.AtomicOutput.open(again)) {
             List<String> files = org.targetbench.report.ServoSetExport.write(set, java.util.Optional.empty(), java.util.Optional.empty(), 0, out,
                     "set", "rehearsal/");
-            assertEquals(List.of("set.json", "set.csv"), files);
+            assertEquals(List.of("set.json", "set.csv", "set-selection.csv"), files);
             out.commit();
         }
         assertEquals(picked, m.readTree(again.resolve("set.json").toFile()));

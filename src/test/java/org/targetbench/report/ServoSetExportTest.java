@@ -55,10 +55,14 @@ class ServoSetExportTest {
         assertEquals(set, back);
         Path again = tmp.resolve("again");
         try (AtomicOutput out = AtomicOutput.open(again)) {
-            assertEquals(List.of("servo-set.json", "servo-set.csv"),
+            assertEquals(List.of("servo-set.json", "servo-set.csv", "servo-set-selection.csv"),
                     ServoSetExport.write(back, Optional.empty(), Optional.empty(), 0, out, "servo-set", "rehearsal/"));
             out.commit();
         }
+        // the selection file comes from the set itself, so an older one in the folder cannot contradict it
+        List<String> selection = Files.readAllLines(again.resolve("servo-set-selection.csv"));
+        assertEquals(set.points().size(), selection.size() - 1, "one row per point of the set");
+        assertTrue(selection.stream().skip(1).allMatch(l -> l.contains(",chosen,")), "every row is a chosen point");
         assertEquals(ServoSetJson.NOT_REHEARSED, new ObjectMapper().readTree(again.resolve("servo-set.json").toFile()).get("rehearsal").asText());
         assertFalse(Files.exists(again.resolve("rehearsal")));
         assertEquals(set, ServoSetReader.read(again.resolve("servo-set.json")));
