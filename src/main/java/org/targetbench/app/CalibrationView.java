@@ -160,11 +160,9 @@ final class CalibrationView extends JPanel {
     }
 
     private void chooseFolder() {
-        JFileChooser fc = new JFileChooser(ctx.prefs().get("lastCalibrationFrames", System.getProperty("user.dir")));
-        fc.setFileSelectionMode(JFileChooser.DIRECTORIES_ONLY);
-        fc.setDialogTitle("Folder of chessboard photos");
-        if (fc.showOpenDialog(ctx.window()) != JFileChooser.APPROVE_OPTION) return;
-        setFolder(fc.getSelectedFile().toPath());
+        java.util.Optional<java.nio.file.Path> chosen = Folders.choose(ctx, "lastCalibrationFrames", "Folder of chessboard photos", Folders.Use.OPEN);
+        if (chosen.isEmpty()) return;
+        setFolder(chosen.get());
         ctx.prefs().put("lastCalibrationFrames", folder.toString());
     }
 

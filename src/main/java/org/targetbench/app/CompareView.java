@@ -267,11 +267,9 @@ final class CompareView extends JPanel implements Session.Listener {
 
     private void save() {
         if (last == null) return;
-        javax.swing.JFileChooser fc = new javax.swing.JFileChooser(ctx.prefs().get("lastCompareFolder", System.getProperty("user.dir")));
-        fc.setFileSelectionMode(javax.swing.JFileChooser.DIRECTORIES_ONLY);
-        fc.setDialogTitle("Folder for the comparison results");
-        if (fc.showSaveDialog(ctx.window()) != javax.swing.JFileChooser.APPROVE_OPTION) return;
-        saveTo(fc.getSelectedFile().toPath());
+        java.util.Optional<java.nio.file.Path> chosen = Folders.choose(ctx, "lastCompareFolder", "Folder for the comparison results", Folders.Use.SAVE);
+        if (chosen.isEmpty()) return;
+        saveTo(chosen.get());
     }
 
     /** Writes the last comparison into {@code dir} as the command line's compare does; says so in the status bar. */

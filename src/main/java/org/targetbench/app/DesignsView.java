@@ -261,12 +261,9 @@ final class DesignsView extends JPanel {
                     "Does not fit", JOptionPane.WARNING_MESSAGE);
             return;
         }
-        JFileChooser fc = new JFileChooser(ctx.prefs().get("lastSheetFolder", System.getProperty("user.dir")));
-        fc.setFileSelectionMode(JFileChooser.DIRECTORIES_ONLY);
-        fc.setDialogTitle("Folder for the sheet of " + d.id());
-        if (fc.showSaveDialog(ctx.window()) != JFileChooser.APPROVE_OPTION) return;
-        Path dir = fc.getSelectedFile().toPath();
-        ctx.prefs().put("lastSheetFolder", dir.toString());
+        java.util.Optional<java.nio.file.Path> chosen = Folders.choose(ctx, "lastSheetFolder", "Folder for the sheet of " + d.id(), Folders.Use.SAVE);
+        if (chosen.isEmpty()) return;
+        Path dir = chosen.get();
         try (AtomicOutput out = AtomicOutput.open(dir)) {
             TargetSheetWriter.write(l.get(), out, "");
             out.commit();

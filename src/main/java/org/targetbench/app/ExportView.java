@@ -6,7 +6,6 @@ import org.targetbench.report.ServoSetExport;
 import org.targetbench.servo.ServoSet;
 
 import javax.swing.JButton;
-import javax.swing.JFileChooser;
 import javax.swing.JLabel;
 import javax.swing.JOptionPane;
 import javax.swing.JPanel;
@@ -87,11 +86,9 @@ final class ExportView extends JPanel implements Session.Listener {
 
     void chooseAndExport() {
         if (session.servoSet() == null || !acknowledgeSafety() || !confirmUnrehearsed()) return;
-        JFileChooser fc = new JFileChooser(ctx.prefs().get("lastExportFolder", System.getProperty("user.dir")));
-        fc.setFileSelectionMode(JFileChooser.DIRECTORIES_ONLY);
-        fc.setDialogTitle("Folder for the servo set");
-        if (fc.showSaveDialog(ctx.window()) != JFileChooser.APPROVE_OPTION) return;
-        exportTo(fc.getSelectedFile().toPath());
+        java.util.Optional<java.nio.file.Path> chosen = Folders.choose(ctx, "lastExportFolder", "Folder for the servo set", Folders.Use.SAVE);
+        if (chosen.isEmpty()) return;
+        exportTo(chosen.get());
     }
 
     /** Writes the set into {@code dir}; the safety notice must have been acknowledged. */

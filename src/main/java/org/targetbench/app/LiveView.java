@@ -187,12 +187,9 @@ final class LiveView extends JPanel implements Session.Listener {
     }
 
     private void chooseFolder() {
-        JFileChooser fc = new JFileChooser(ctx.prefs().get("lastFolder", System.getProperty("user.dir")));
-        fc.setFileSelectionMode(JFileChooser.DIRECTORIES_ONLY);
-        fc.setDialogTitle("Folder of frames");
-        if (fc.showOpenDialog(ctx.window()) != JFileChooser.APPROVE_OPTION) return;
-        Path dir = fc.getSelectedFile().toPath();
-        ctx.prefs().put("lastFolder", dir.toString());
+        java.util.Optional<java.nio.file.Path> chosen = Folders.choose(ctx, "lastFolder", "Folder of frames", Folders.Use.OPEN);
+        if (chosen.isEmpty()) return;
+        Path dir = chosen.get();
         loadFolder(dir);
         reopen.setText("Reopen " + dir.getFileName());
         reopen.setVisible(true);

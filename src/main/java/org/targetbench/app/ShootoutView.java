@@ -344,11 +344,9 @@ final class ShootoutView extends JPanel {
 
     private void save() {
         if (last == null) return;
-        JFileChooser fc = new JFileChooser(ctx.prefs().get("lastReportFolder", System.getProperty("user.dir")));
-        fc.setFileSelectionMode(JFileChooser.DIRECTORIES_ONLY);
-        fc.setDialogTitle("Folder for shootout.csv and shootout.html");
-        if (fc.showSaveDialog(ctx.window()) != JFileChooser.APPROVE_OPTION) return;
-        saveTo(fc.getSelectedFile().toPath());
+        java.util.Optional<java.nio.file.Path> chosen = Folders.choose(ctx, "lastReportFolder", "Folder for shootout.csv and shootout.html", Folders.Use.SAVE);
+        if (chosen.isEmpty()) return;
+        saveTo(chosen.get());
     }
 
     /** Writes the files the command line writes, atomically; says where, or why not. */

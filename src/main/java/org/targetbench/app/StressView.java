@@ -243,11 +243,9 @@ final class StressView extends JPanel {
 
     private void save() {
         if (last == null) return;
-        JFileChooser fc = new JFileChooser(ctx.prefs().get("lastReportFolder", System.getProperty("user.dir")));
-        fc.setFileSelectionMode(JFileChooser.DIRECTORIES_ONLY);
-        fc.setDialogTitle("Folder for the sweep report");
-        if (fc.showSaveDialog(ctx.window()) != JFileChooser.APPROVE_OPTION) return;
-        saveTo(fc.getSelectedFile().toPath());
+        java.util.Optional<java.nio.file.Path> chosen = Folders.choose(ctx, "lastReportFolder", "Folder for the sweep report", Folders.Use.SAVE);
+        if (chosen.isEmpty()) return;
+        saveTo(chosen.get());
     }
 
     /** Writes the files of the command line's sweep for the latest run, with the envelope it ran with. */

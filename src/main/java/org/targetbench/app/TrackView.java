@@ -15,7 +15,6 @@ import org.targetbench.track.TrackPoint;
 
 import javax.swing.JButton;
 import javax.swing.JComboBox;
-import javax.swing.JFileChooser;
 import javax.swing.JLabel;
 import javax.swing.JPanel;
 import javax.swing.JSlider;
@@ -318,11 +317,9 @@ final class TrackView extends JPanel {
 
     private void save() {
         if (history == null || history.result() == null) return;
-        JFileChooser fc = new JFileChooser(ctx.prefs().get("lastTrackFolder", System.getProperty("user.dir")));
-        fc.setFileSelectionMode(JFileChooser.DIRECTORIES_ONLY);
-        fc.setDialogTitle("Folder for the tracking results");
-        if (fc.showSaveDialog(ctx.window()) != JFileChooser.APPROVE_OPTION) return;
-        saveTo(fc.getSelectedFile().toPath());
+        java.util.Optional<java.nio.file.Path> chosen = Folders.choose(ctx, "lastTrackFolder", "Folder for the tracking results", Folders.Use.SAVE);
+        if (chosen.isEmpty()) return;
+        saveTo(chosen.get());
     }
 
     /** Writes the finished run into {@code dir}; says in the status bar what was written, or why not. */
