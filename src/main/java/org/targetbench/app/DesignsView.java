@@ -100,6 +100,7 @@ final class DesignsView extends JPanel {
                 "Where the threshold comes from: a published source, derived, or common practice");
         JScrollPane ts = new JScrollPane(t);
         ts.setPreferredSize(new Dimension(800, 140));
+        Ui.fitColumns(ts, 2); // Check and Result whole; Measured, Threshold and Basis in full in the detail pane beside
         bottom.add(ts, BorderLayout.CENTER);
         DetailPane detail = new DetailPane("designs.detail", "Select a check line to read it in full.", t);
         detail.setPreferredSize(new Dimension(380, 140));
