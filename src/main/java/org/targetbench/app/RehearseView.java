@@ -104,8 +104,12 @@ final class RehearseView extends JPanel implements Session.Listener {
         add(runsPane, BorderLayout.SOUTH);
         JPanel left = new JPanel(new BorderLayout());
         JTable t = Ui.named(new JTable(table), "rehearse.table", null);
+        DetailPane.columnTips(t, "What was measured over the rehearsal's runs (one run per start pose drawn in the envelope, --starts).",
+                "The figure with its unit. Converged: final image error below the threshold (0.5 px RMS by default) within the time limit (20 s by default); "
+                        + "the warnings under the table say which figures crossed their limits.");
         JScrollPane sp = new JScrollPane(t);
         sp.setPreferredSize(new Dimension(420, 260));
+        Ui.fitColumns(sp, new Object[]{"", "1000 of 1000 (100.0 %)"}, new Object[]{"", "999.9 mm (9.99 x reference distance)"});
         left.add(sp, BorderLayout.CENTER);
         JPanel under = new JPanel(new BorderLayout());
         under.add(warnings, BorderLayout.NORTH);

@@ -84,7 +84,8 @@ final class ServoView extends JPanel implements Session.Listener {
         figs.add(findings);
         right.add(figs, BorderLayout.NORTH);
         JTable ct = Ui.named(new JTable(chosen), "servo.chosen", null), rt = Ui.named(new JTable(rejected), "servo.rejected", null);
-        JSplitPane tables = new JSplitPane(JSplitPane.VERTICAL_SPLIT, new JScrollPane(ct), new JScrollPane(rt));
+        // ids and positions whole; the reasons take the room left and read in full in the detail pane below
+        JSplitPane tables = new JSplitPane(JSplitPane.VERTICAL_SPLIT, Ui.fitColumns(new JScrollPane(ct), 4), Ui.fitColumns(new JScrollPane(rt), 3));
         tables.setResizeWeight(0.4);
         right.add(tables, BorderLayout.CENTER);
         DetailPane.columnTips(ct, "Candidate id (index of the detection in the reference frame)", "Image column, px (pixel-centre convention)",

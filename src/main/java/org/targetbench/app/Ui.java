@@ -107,15 +107,15 @@ final class Ui {
                 int m = col.getModelIndex();
                 var hr = col.getHeaderRenderer() != null ? col.getHeaderRenderer() : t.getTableHeader().getDefaultRenderer();
                 int need = hr.getTableCellRendererComponent(t, col.getHeaderValue(), false, false, -1, c).getPreferredSize().width;
-                if (m < cellsUpTo) {
-                    for (int r = 0; r < t.getModel().getRowCount(); r++) need = Math.max(need, cellWidth(t, t.getModel().getValueAt(r, m), r, c));
-                    for (Object[] row : samples) if (m < row.length) need = Math.max(need, cellWidth(t, row[m], 0, c));
-                }
+                int cells = 0;
+                for (int r = 0; r < t.getModel().getRowCount(); r++) cells = Math.max(cells, cellWidth(t, t.getModel().getValueAt(r, m), r, c));
+                for (Object[] row : samples) if (m < row.length) cells = Math.max(cells, cellWidth(t, row[m], 0, c));
+                if (m < cellsUpTo) need = Math.max(need, cells);
                 need += COLUMN_GAP;
-                if (need > col.getMinWidth()) {
-                    col.setMinWidth(need);
-                    col.setPreferredWidth(Math.max(need, col.getPreferredWidth()));
-                }
+                if (need > col.getMinWidth()) col.setMinWidth(need);
+                // a column that may be narrower than its cells asks for their width, so spare room goes to it first
+                int want = Math.max(col.getMinWidth(), m < cellsUpTo ? 0 : cells + COLUMN_GAP);
+                if (want > col.getPreferredWidth()) col.setPreferredWidth(want);
                 total += col.getMinWidth();
             }
             java.awt.Dimension vp = t.getPreferredScrollableViewportSize();

@@ -56,6 +56,14 @@ class LayoutGuiTest {
         gui.show("Compare");
         gui.window.button("compare.run").click();
         gui.waitFor("compared", () -> gui.window.button("compare.save").target().isEnabled());
+        // a servo set with its reasons, and a short rehearsal of it, so those tables are checked with rows in them
+        gui.show("Servo set");
+        gui.window.button("servo.choose").click();
+        gui.waitFor("set chosen", () -> gui.workbench.session().servoSet() != null);
+        gui.show("Rehearse");
+        gui.window.spinner("rehearse.starts").enterTextAndCommit("10");
+        gui.window.button("rehearse.run").click();
+        gui.waitFor("rehearsed", () -> GuiActionRunner.execute(() -> gui.window.table("rehearse.runs").target().getRowCount() > 0));
     }
 
     @AfterAll
