@@ -59,7 +59,7 @@ final class RehearseView extends JPanel implements Session.Listener {
             Ui.head("Converged", "of starts"), Ui.head("Median time", "s"), Ui.head("Median final error", "px RMS"), Ui.head("Largest retreat", "mm")}, 0) {
         @Override public boolean isCellEditable(int r, int c) { return false; }
     };
-    private final JPanel charts = new JPanel(new GridLayout(0, 1, 4, 4));
+    private final JPanel charts = new Ui.WidthPanel(new GridLayout(0, 1, 4, 4)); // as wide as the room beside the figures
     private final JLabel warnings = Ui.named(new JLabel(" "), "rehearse.warnings", null);
     private final JButton run;
 

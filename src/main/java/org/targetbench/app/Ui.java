@@ -80,6 +80,16 @@ final class Ui {
         return "<html><center>" + name + "<br>" + (unit.isEmpty() ? "&nbsp;" : unit) + "</center></html>";
     }
 
+    /** A panel that takes its scroll pane's width (scrolling only up and down), so charts in it fit beside a wide table. */
+    static final class WidthPanel extends JPanel implements javax.swing.Scrollable {
+        WidthPanel(java.awt.LayoutManager layout) { super(layout); }
+        @Override public java.awt.Dimension getPreferredScrollableViewportSize() { return getPreferredSize(); }
+        @Override public int getScrollableUnitIncrement(java.awt.Rectangle r, int o, int d) { return 16; }
+        @Override public int getScrollableBlockIncrement(java.awt.Rectangle r, int o, int d) { return Math.max(16, r.height - 16); }
+        @Override public boolean getScrollableTracksViewportWidth() { return true; }
+        @Override public boolean getScrollableTracksViewportHeight() { return false; }
+    }
+
     /** A header as plain text ({@link #head} joined by a comma), for lines that name a column. */
     static String plain(String header) {
         return header.replace("<br>&nbsp;", "").replace("<br>", ", ").replaceAll("<[^>]+>", "").replace("&nbsp;", " ").trim();
