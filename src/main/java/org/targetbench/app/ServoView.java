@@ -93,7 +93,7 @@ final class ServoView extends JPanel implements Session.Listener {
         DetailPane.columnTips(rt, "Candidate id", "Image column, px", "Image row, px",
                 "Why the candidate is not in the set: the filter it failed (limits from the selection settings) or how it lost to the chosen points");
         detail = new DetailPane("servo.detail", "Select a row to read its reason in full.", ct, rt);
-        detail.setPreferredSize(new Dimension(520, 130));
+        detail.setPreferredSize(new Dimension(520, 170)); // a chosen point's reason, wrapped, in view whole
         right.add(detail, BorderLayout.SOUTH);
         right.setPreferredSize(new Dimension(520, 400));
         JSplitPane split = new JSplitPane(JSplitPane.HORIZONTAL_SPLIT, canvas, right);

@@ -37,7 +37,7 @@ class LayoutGuiTest {
      * Views whose tables are also checked, header and visible cells: every view. A cell may be narrower than its text
      * only where the table has a {@link DetailPane} and the cell is not in the first column (which names the row, so
      * the row can be found): selecting that row must put the cell's full text in the pane, wrapped to the pane's width
-     * (font metrics per wrapped line). Tables without rows here (a servo choice, a sweep, a shoot-out, a calibration
+     * (font metrics per wrapped line), the whole row in view without scrolling. Tables without rows here (a servo choice, a sweep, a shoot-out, a calibration
      * not yet run) have their headers checked only.
      */
     static final java.util.Set<String> TABLES_CHECKED = java.util.Set.of("Live", "Camera", "Compare", "Stress", "Track", "Servo set",
@@ -156,6 +156,8 @@ class LayoutGuiTest {
         String line = Ui.plain(t.getColumnName(col)) + ": " + t.getValueAt(row, col);
         if (!pane.isShowing() || !area.getText().contains(line)) return "the detail pane does not show '" + line + "'";
         if (!area.getLineWrap() || pane.getHorizontalScrollBar().isShowing()) return "the detail pane does not wrap";
+        if (area.getPreferredSize().height > pane.getViewport().getHeight())
+            return "the row needs " + area.getPreferredSize().height + " px of the detail pane's height, has " + pane.getViewport().getHeight() + " px";
         FontMetrics fm = area.getFontMetrics(area.getFont());
         int room = area.getWidth() - area.getInsets().left - area.getInsets().right;
         String text = area.getText();
