@@ -139,7 +139,13 @@ final class Ui {
             scrollIfNarrow(sp, t);
         };
         fit.run();
-        t.getModel().addTableModelListener(e -> javax.swing.SwingUtilities.invokeLater(fit)); // after the table has taken the change
+        javax.swing.event.TableModelListener refit = e -> javax.swing.SwingUtilities.invokeLater(fit); // after the table has taken the change
+        t.getModel().addTableModelListener(refit);
+        t.addPropertyChangeListener("model", e -> { // a view that replaces its model (new columns) is fitted again
+            if (e.getOldValue() instanceof javax.swing.table.TableModel old) old.removeTableModelListener(refit);
+            if (e.getNewValue() instanceof javax.swing.table.TableModel now) now.addTableModelListener(refit);
+            javax.swing.SwingUtilities.invokeLater(fit);
+        });
         sp.getViewport().addComponentListener(new java.awt.event.ComponentAdapter() {
             @Override public void componentResized(java.awt.event.ComponentEvent e) { scrollIfNarrow(sp, t); }
         });
