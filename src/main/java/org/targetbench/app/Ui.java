@@ -139,12 +139,20 @@ final class Ui {
             scrollIfNarrow(sp, t);
         };
         fit.run();
-        javax.swing.event.TableModelListener refit = e -> javax.swing.SwingUtilities.invokeLater(fit); // after the table has taken the change
+        boolean[] pending = {false}; // one fit per burst of changes (a live table refills every frame), after the table has taken them
+        javax.swing.event.TableModelListener refit = e -> {
+            if (pending[0]) return;
+            pending[0] = true;
+            javax.swing.SwingUtilities.invokeLater(() -> {
+                pending[0] = false;
+                fit.run();
+            });
+        };
         t.getModel().addTableModelListener(refit);
         t.addPropertyChangeListener("model", e -> { // a view that replaces its model (new columns) is fitted again
             if (e.getOldValue() instanceof javax.swing.table.TableModel old) old.removeTableModelListener(refit);
             if (e.getNewValue() instanceof javax.swing.table.TableModel now) now.addTableModelListener(refit);
-            javax.swing.SwingUtilities.invokeLater(fit);
+            refit.tableChanged(null);
         });
         sp.getViewport().addComponentListener(new java.awt.event.ComponentAdapter() {
             @Override public void componentResized(java.awt.event.ComponentEvent e) { scrollIfNarrow(sp, t); }
