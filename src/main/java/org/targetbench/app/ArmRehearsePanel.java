@@ -55,8 +55,8 @@ final class ArmRehearsePanel extends JPanel {
     private final JSpinner period = Ui.named(new JSpinner(new SpinnerNumberModel(10.0, 1.0, 200.0, 1.0)), "arm.period", "Controller period, ms");
     private final JSpinner starts = Ui.named(new JSpinner(new SpinnerNumberModel(24, 1, 1000, 1)), "arm.starts", "Start poses drawn in the envelope");
     private final JCheckBox sweep = Ui.named(new JCheckBox("Gain sweep"), "arm.sweep", "Find the largest gain that converges from every start without oscillation");
-    private final DefaultTableModel table = new DefaultTableModel(new Object[]{"run", "outcome", "time, s", "min manipulability", "limit margin, deg",
-            "peak speed", "flags"}, 0) {
+    private final DefaultTableModel table = new DefaultTableModel(new Object[]{Ui.head("run", "#"), Ui.head("outcome", ""), Ui.head("time", "s"),
+            Ui.head("min manipulability", "m³"), Ui.head("limit margin", "deg"), Ui.head("peak speed", "% of limit"), Ui.head("flags", "")}, 0) {
         @Override public boolean isCellEditable(int r, int c) { return false; }
     };
     private final JLabel notes = Ui.named(new JLabel(" "), "arm.warnings", null);
@@ -79,8 +79,18 @@ final class ArmRehearsePanel extends JPanel {
                 + Safety.NOTICE + "</body></html>");
         safety.setName("arm.safety");
         top.add(Ui.row(safety));
-        JScrollPane sp = new JScrollPane(Ui.named(new JTable(table), "arm.table", null));
-        sp.setPreferredSize(new Dimension(700, 140));
+        JTable t = Ui.named(new JTable(table), "arm.table", null);
+        DetailPane.columnTips(t, "Start pose drawn in the envelope, in order.", "How the run on the arm ended (never a clearance).",
+                "Time to converge, s; a run is stopped at the rehearsal's time limit.",
+                "Smallest manipulability w = sqrt(det J Jᵀ) along the run, m³ for a 6-joint arm (Yoshikawa 1985); damped least squares "
+                        + "starts below 0.004 and a pose counts as singular below 0.0005 (the arm rehearsal's default thresholds).",
+                "Smallest distance of any joint to its position limit along the run, degrees; 0 means a limit was reached.",
+                "Largest joint speed as a share of that joint's limit, percent; speeds are scaled down to the limit (100 %).",
+                "Warnings about the run (rehearsal flags); a run without flags is still no clearance.");
+        t.setDefaultRenderer(Object.class, DetailPane.renderer(t.getDefaultRenderer(Object.class)));
+        JScrollPane sp = new JScrollPane(t);
+        sp.setPreferredSize(new Dimension(700, 150));
+        Ui.fitColumns(sp); // every column whole; a long flags line scrolls sideways rather than being cut
         top.add(sp);
         top.add(Ui.row(notes));
         add(top, BorderLayout.NORTH);

@@ -77,7 +77,8 @@ final class CameraView extends JPanel {
     private final JLabel against = Ui.named(new JLabel(" "), "camera.against", null);
     /** What the live frames are registered to, and how the shown frame fared. */
     private final JLabel registered = Ui.named(new JLabel("Target: none (choose one for scores against it)"), "camera.registration", null);
-    private final DefaultTableModel scores = new DefaultTableModel(new Object[]{"Detector", "Points", "Repeatability", "Coverage", "Loc. RMS", "Found", "ms"}, 0) {
+    private final DefaultTableModel scores = new DefaultTableModel(new Object[]{Ui.head("Detector", ""), Ui.head("Points", "n"),
+            Ui.head("Repeatability", "0..1"), Ui.head("Coverage", "%"), Ui.head("Loc. RMS", "px"), Ui.head("Found", "%"), Ui.head("Time", "ms")}, 0) {
         @Override public boolean isCellEditable(int r, int c) { return false; }
     };
     private Webcams.Discovery discovery = new Webcams.Discovery(List.of(), "not looked for yet");
@@ -111,10 +112,17 @@ final class CameraView extends JPanel {
         side.setBorder(BorderFactory.createEmptyBorder(0, 6, 0, 6));
         side.add(Ui.heading("This frame"));
         JTable table = Ui.named(new JTable(scores), "camera.scores", null);
-        table.getTableHeader().setToolTipText("Points: " + Ui.TIP_COUNT + "  Repeatability: see the line below the table.  Coverage: " + Ui.TIP_COVERAGE
-                + "  Loc. RMS and Found: against registered truth only.  ms: the detector's time on this frame.");
+        DetailPane.columnTips(table, "Detector, with its default settings or those edited in Live: Settings.",
+                "Points, a count: " + Ui.TIP_COUNT,
+                "Repeatability, 0..1 (no unit); what it is measured against is on the line below the table. " + Ui.TIP_REPEATABILITY
+                        + " The 1.5 px radius is the command line's --epsilon default.",
+                "Coverage, percent: " + Ui.TIP_COVERAGE,
+                "Localisation RMS, px, against registered truth only: " + Ui.TIP_LOCALISATION,
+                "Found, percent: share of the registered target's features with a point within 3 px; against registered truth only.",
+                "Time, ms: the detector's time on this frame, on this machine as loaded now (a figure, not a benchmark).");
         JScrollPane sp = new JScrollPane(table);
-        sp.setPreferredSize(new Dimension(420, 130));
+        sp.setPreferredSize(new Dimension(420, 150));
+        Ui.fitColumns(sp, LiveView.sampleRows(7));
         side.add(sp);
         side.add(Ui.row(against));
         side.add(Ui.row(registered));

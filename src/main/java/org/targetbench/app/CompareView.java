@@ -42,12 +42,8 @@ final class CompareView extends JPanel implements Session.Listener {
         @Override public boolean isCellEditable(int r, int c) { return false; }
     };
     /** Ranking headers, each with its unit on a second line (two lines on every column, so the header is two lines tall). */
-    static final String[] HEADERS = {head("Rank", "#"), head("Detector", ""), head("Repeatability", "0..1"), head("Worst", "0..1"),
-            head("Frames", "n"), head("Points", "per frame"), head("Loc. RMS", "px"), head("Found", "%"), head("Coverage", "%")};
-
-    private static String head(String name, String unit) {
-        return "<html><center>" + name + "<br>" + (unit.isEmpty() ? "&nbsp;" : unit) + "</center></html>";
-    }
+    static final String[] HEADERS = {Ui.head("Rank", "#"), Ui.head("Detector", ""), Ui.head("Repeatability", "0..1"), Ui.head("Worst", "0..1"),
+            Ui.head("Frames", "n"), Ui.head("Points", "per frame"), Ui.head("Loc. RMS", "px"), Ui.head("Found", "%"), Ui.head("Coverage", "%")};
 
     private final JProgressBar progress = Ui.named(new JProgressBar(), "compare.progress", null);
     private final JButton runAll;

@@ -99,10 +99,11 @@ final class DesignsView extends JPanel {
                 "The measured or computed figure, with its unit", "The limit it is held against, with its unit",
                 "Where the threshold comes from: a published source, derived, or common practice");
         JScrollPane ts = new JScrollPane(t);
-        ts.setPreferredSize(new Dimension(800, 140));
+        ts.setPreferredSize(new Dimension(800, 180));
+        Ui.fitColumns(ts, 2); // Check and Result whole; Measured, Threshold and Basis in full in the detail pane beside
         bottom.add(ts, BorderLayout.CENTER);
         DetailPane detail = new DetailPane("designs.detail", "Select a check line to read it in full.", t);
-        detail.setPreferredSize(new Dimension(380, 140));
+        detail.setPreferredSize(new Dimension(440, 180)); // the longest check line, wrapped, in view whole
         bottom.add(detail, BorderLayout.EAST);
         add(bottom, BorderLayout.SOUTH);
         updateCameraLabel();

@@ -33,6 +33,7 @@ final class DetailPane extends JScrollPane {
         setBorder(BorderFactory.createTitledBorder("Selected row in full"));
         setPreferredSize(new Dimension(300, 110));
         for (JTable table : tables) {
+            table.putClientProperty(DetailPane.class, this); // this pane shows the table's selected row in full
             table.getSelectionModel().addListSelectionListener(e -> {
                 if (!e.getValueIsAdjusting()) show(table);
             });
@@ -59,7 +60,7 @@ final class DetailPane extends JScrollPane {
         int r = t.getSelectedRow();
         if (r < 0) return;
         List<String> lines = new ArrayList<>();
-        for (int c = 0; c < t.getColumnCount(); c++) lines.add(t.getColumnName(c) + ": " + t.getValueAt(r, c));
+        for (int c = 0; c < t.getColumnCount(); c++) lines.add(Ui.plain(t.getColumnName(c)) + ": " + t.getValueAt(r, c));
         text.setText(String.join("\n", lines));
         text.setCaretPosition(0);
     }

@@ -49,7 +49,8 @@ final class LiveView extends JPanel implements Session.Listener {
     private final JSlider degradeLevel = Ui.named(new JSlider(0, SLIDER_STEPS, 0), "live.degrade.level",
             "Strength of the condition, from none (left) to the harshest of its default range (right)");
     private final JLabel degradeLabel = new JLabel("off");
-    private final DefaultTableModel scores = new DefaultTableModel(new Object[]{"Detector", "Points", "Repeatability", "Coverage", "Loc. RMS"}, 0) {
+    private final DefaultTableModel scores = new DefaultTableModel(new Object[]{Ui.head("Detector", ""), Ui.head("Points", "n"),
+            Ui.head("Repeatability", "0..1"), Ui.head("Coverage", "%"), Ui.head("Loc. RMS", "px")}, 0) {
         @Override public boolean isCellEditable(int r, int c) { return false; }
     };
     private boolean updating;
@@ -116,13 +117,27 @@ final class LiveView extends JPanel implements Session.Listener {
         side.add(Ui.row(degradeLabel, Ui.button("live.degrade.reset", "Reset", "Back to the frame as captured", () -> degradeLevel.setValue(0))));
         side.add(Ui.heading("This frame"));
         JTable table = Ui.named(new JTable(scores), "live.scores", null);
-        table.getTableHeader().setToolTipText("Points: " + Ui.TIP_COUNT + "  Repeatability: " + Ui.TIP_REPEATABILITY
-                + "  Coverage: " + Ui.TIP_COVERAGE + "  Loc. RMS: " + Ui.TIP_LOCALISATION);
+        DetailPane.columnTips(table, "Detector, with its default settings or those edited under Settings.",
+                "Points, a count: " + Ui.TIP_COUNT, "Repeatability, 0..1 (no unit), against the first frame: " + Ui.TIP_REPEATABILITY
+                        + " The 1.5 px radius is the command line's --epsilon default.",
+                "Coverage, percent: " + Ui.TIP_COVERAGE, "Localisation RMS, px: " + Ui.TIP_LOCALISATION + " The 3 px radius is the scoring default.");
         JScrollPane sp = new JScrollPane(table);
-        sp.setPreferredSize(new Dimension(380, 130));
+        sp.setPreferredSize(new Dimension(380, 150));
+        Ui.fitColumns(sp, LiveView.sampleRows(5));
         side.add(sp);
         side.add(Box.createVerticalGlue());
         return side;
+    }
+
+    /** The widest rows the score tables will hold (every detector's label, figures at their widest), {@code n} columns. */
+    static Object[][] sampleRows(int n) {
+        Object[] widest = {"", 99999, "0.000", "100%", "00.000", "100%", "000.0"};
+        Object[][] rows = new Object[DetectorType.values().length][];
+        for (int i = 0; i < rows.length; i++) {
+            rows[i] = java.util.Arrays.copyOf(widest, n);
+            rows[i][0] = DetectorType.values()[i].label();
+        }
+        return rows;
     }
 
     private void applyDegrade() {

@@ -54,11 +54,12 @@ final class RehearseView extends JPanel implements Session.Listener {
             "Pixel noise standard deviation, px (--noise)");
     private final JSpinner seed = Ui.named(new JSpinner(new SpinnerNumberModel(1, 0, 999_999, 1)), "rehearse.seed", "Random seed of the start poses and noise (--seed)");
     /** One row per rehearsal of this session, side by side: what was run and its headline figures. */
-    private final DefaultTableModel runs = new DefaultTableModel(new Object[]{"Run", "Set", "Law", "Lambda 1/s", "Depth", "Noise px",
-            "Envelope mm, deg", "Converged", "Median time s", "Median final error px", "Largest retreat mm"}, 0) {
+    private final DefaultTableModel runs = new DefaultTableModel(new Object[]{Ui.head("Run", "#"), Ui.head("Set", "points, cond"),
+            Ui.head("Law", ""), Ui.head("Lambda", "1/s"), Ui.head("Depth", "Z*"), Ui.head("Noise", "px"), Ui.head("Envelope", "+-mm, +-deg xy/z"),
+            Ui.head("Converged", "of starts"), Ui.head("Median time", "s"), Ui.head("Median final error", "px RMS"), Ui.head("Largest retreat", "mm")}, 0) {
         @Override public boolean isCellEditable(int r, int c) { return false; }
     };
-    private final JPanel charts = new JPanel(new GridLayout(0, 1, 4, 4));
+    private final JPanel charts = new Ui.WidthPanel(new GridLayout(0, 1, 4, 4)); // as wide as the room beside the figures
     private final JLabel warnings = Ui.named(new JLabel(" "), "rehearse.warnings", null);
     private final JButton run;
 
@@ -96,13 +97,19 @@ final class RehearseView extends JPanel implements Session.Listener {
                 "Runs that converged below the threshold (0.5 px RMS by default)", "Median time to converge, s",
                 "Median final image error, px RMS over points", "Largest retreat along the optical axis, mm");
         JScrollPane runsPane = new JScrollPane(runsTable);
-        runsPane.setPreferredSize(new Dimension(600, 120));
+        runsPane.setPreferredSize(new Dimension(600, 130));
+        Ui.fitColumns(runsPane, new Object[]{"99", "12 points, cond 999.9", "reference", "0.50", "scaled x1.20", "measured", "100, 20/30",
+                "1000 of 1000", "10.00", "0.000", "100.0"});
         runsPane.setBorder(javax.swing.BorderFactory.createTitledBorder("Runs of this session, side by side"));
         add(runsPane, BorderLayout.SOUTH);
         JPanel left = new JPanel(new BorderLayout());
         JTable t = Ui.named(new JTable(table), "rehearse.table", null);
+        DetailPane.columnTips(t, "What was measured over the rehearsal's runs (one run per start pose drawn in the envelope, --starts).",
+                "The figure with its unit. Converged: final image error below the threshold (0.5 px RMS by default) within the time limit (20 s by default); "
+                        + "the warnings under the table say which figures crossed their limits.");
         JScrollPane sp = new JScrollPane(t);
         sp.setPreferredSize(new Dimension(420, 260));
+        Ui.fitColumns(sp, new Object[]{"", "1000 of 1000 (100.0 %)"}, new Object[]{"", "999.9 mm (9.99 x reference distance)"});
         left.add(sp, BorderLayout.CENTER);
         JPanel under = new JPanel(new BorderLayout());
         under.add(warnings, BorderLayout.NORTH);

@@ -84,7 +84,8 @@ final class ServoView extends JPanel implements Session.Listener {
         figs.add(findings);
         right.add(figs, BorderLayout.NORTH);
         JTable ct = Ui.named(new JTable(chosen), "servo.chosen", null), rt = Ui.named(new JTable(rejected), "servo.rejected", null);
-        JSplitPane tables = new JSplitPane(JSplitPane.VERTICAL_SPLIT, new JScrollPane(ct), new JScrollPane(rt));
+        // ids and positions whole; the reasons take the room left and read in full in the detail pane below
+        JSplitPane tables = new JSplitPane(JSplitPane.VERTICAL_SPLIT, Ui.fitColumns(new JScrollPane(ct), 4), Ui.fitColumns(new JScrollPane(rt), 3));
         tables.setResizeWeight(0.4);
         right.add(tables, BorderLayout.CENTER);
         DetailPane.columnTips(ct, "Candidate id (index of the detection in the reference frame)", "Image column, px (pixel-centre convention)",
@@ -92,7 +93,7 @@ final class ServoView extends JPanel implements Session.Listener {
         DetailPane.columnTips(rt, "Candidate id", "Image column, px", "Image row, px",
                 "Why the candidate is not in the set: the filter it failed (limits from the selection settings) or how it lost to the chosen points");
         detail = new DetailPane("servo.detail", "Select a row to read its reason in full.", ct, rt);
-        detail.setPreferredSize(new Dimension(520, 130));
+        detail.setPreferredSize(new Dimension(520, 170)); // a chosen point's reason, wrapped, in view whole
         right.add(detail, BorderLayout.SOUTH);
         right.setPreferredSize(new Dimension(520, 400));
         JSplitPane split = new JSplitPane(JSplitPane.HORIZONTAL_SPLIT, canvas, right);

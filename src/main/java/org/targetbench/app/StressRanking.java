@@ -47,7 +47,7 @@ final class StressRanking extends JPanel {
         table.setAutoCreateRowSorter(false);
         table.setFillsViewportHeight(true);
         add(Ui.row(Ui.heading("Ranking"), note), BorderLayout.NORTH);
-        add(new JScrollPane(table), BorderLayout.CENTER);
+        add(Ui.fitColumns(new JScrollPane(table)), BorderLayout.CENTER);
         clear("No sweep yet: the ranking appears when a sweep has run every cell.");
     }
 
