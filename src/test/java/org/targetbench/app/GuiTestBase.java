@@ -130,4 +130,12 @@ abstract class GuiTestBase {
             chooser.approveSelection();
         });
     }
+
+    /** Runs the stress sweep as set up in the stress view and cancels it once two of its cells are done. */
+    static void runSweepThenCancel() {
+        window.button("stress.run").click();
+        waitFor("some cells done", () -> window.progressBar("stress.progress").target().getValue() >= 2);
+        window.button("stress.cancel").click();
+        waitFor("sweep stopped", () -> window.button("stress.run").target().isEnabled());
+    }
 }

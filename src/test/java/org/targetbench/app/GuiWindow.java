@@ -21,8 +21,9 @@ import static org.assertj.swing.timing.Timeout.timeout;
 import static org.junit.jupiter.api.Assumptions.assumeFalse;
 
 /**
- * One workbench window under the (virtual) display for a GUI test class, set up as {@link WorkbenchGuiTest} sets up
- * its own: fresh preferences, a robot of its own, the demo loaded and scored before the tests start.
+ * One workbench window under the (virtual) display for a GUI test class: fresh preferences, a robot of its own, and
+ * with {@link #open} the demo loaded and scored before the tests start. {@link GuiTestBase} keeps one for each class
+ * that extends it.
  */
 final class GuiWindow implements AutoCloseable {
     /** Longest wait for background work in the window, milliseconds. */

@@ -267,10 +267,7 @@ class StressViewGuiTest extends GuiTestBase {
         window.spinner("stress.levels").enterTextAndCommit("8");
         window.spinner("stress.views").enterTextAndCommit("4");
         window.spinner("stress.trackFrames").enterTextAndCommit("0");
-        window.button("stress.run").click();
-        waitFor("some cells done", () -> window.progressBar("stress.progress").target().getValue() >= 2);
-        window.button("stress.cancel").click();
-        waitFor("sweep stopped", () -> window.button("stress.run").target().isEnabled());
+        runSweepThenCancel();
         String verdict = GuiActionRunner.execute(() -> window.label("stress.verdict").target().getText());
         var m = java.util.regex.Pattern.compile("Stopped: incomplete: (\\d+) of (\\d+) cells; no ranking from an incomplete sweep\\..*").matcher(verdict);
         assertTrue(m.matches(), verdict);

@@ -105,10 +105,7 @@ class WorkbenchGuiTest extends GuiTestBase {
         window.list("nav").selectItem("Stress");
         window.spinner("stress.levels").enterTextAndCommit("8");
         window.spinner("stress.views").enterTextAndCommit("4");
-        window.button("stress.run").click();
-        waitFor("some cells done", () -> window.progressBar("stress.progress").target().getValue() >= 2);
-        window.button("stress.cancel").click();
-        waitFor("sweep stopped", () -> window.button("stress.run").target().isEnabled());
+        runSweepThenCancel();
         JLabel verdict = window.label("stress.verdict").target();
         String text = GuiActionRunner.execute(verdict::getText);
         // no verdict from an incomplete sweep; the conditions that never ran say so on their charts
