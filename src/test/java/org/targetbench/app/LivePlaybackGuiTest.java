@@ -1,58 +1,22 @@
 package org.targetbench.app;
 
-import org.assertj.swing.core.BasicRobot;
-import org.assertj.swing.core.Robot;
 import org.assertj.swing.edt.GuiActionRunner;
-import org.assertj.swing.fixture.FrameFixture;
-import org.assertj.swing.timing.Condition;
-import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 
-import java.awt.GraphicsEnvironment;
-import java.util.function.Supplier;
-import java.util.prefs.Preferences;
-
-import static org.assertj.swing.timing.Pause.pause;
-import static org.assertj.swing.timing.Timeout.timeout;
 import static org.junit.jupiter.api.Assertions.*;
-import static org.junit.jupiter.api.Assumptions.assumeFalse;
 
 /**
  * Playback in the live view: while it plays, the frame counter, the frame index and the detections drawn always name
  * the same frame, and the dropped count is shown; pausing scores the shown frame with every detector again. No timing
  * is asserted (speed is the benchmark's business); the pacing itself is tested on a fake clock in PlaybackTest.
  */
-class LivePlaybackGuiTest {
+class LivePlaybackGuiTest extends GuiTestBase {
     static final long WAIT_MS = 120_000;
-    static Robot robot;
-    static FrameFixture window;
-    static Workbench workbench;
-    static Preferences prefs;
 
     @BeforeAll
     static void open() throws Exception {
-        assumeFalse(GraphicsEnvironment.isHeadless(), "no display: GUI tests need one (CI runs them under Xvfb)");
-        prefs = Preferences.userRoot().node("org/targetbench/playback-gui-test-" + ProcessHandle.current().pid());
-        robot = BasicRobot.robotWithNewAwtHierarchy();
-        workbench = WorkbenchApp.open(prefs);
-        window = new FrameFixture(robot, workbench);
-    }
-
-    @AfterAll
-    static void close() throws Exception {
-        if (window != null) {
-            GuiActionRunner.execute(() -> workbench.dispose());
-            robot.waitForIdle();
-            window.cleanUp();
-        }
-        if (prefs != null) prefs.removeNode();
-    }
-
-    static void waitFor(String what, Supplier<Boolean> test) {
-        pause(new Condition(what) {
-            @Override public boolean test() { return GuiActionRunner.execute(test::get); }
-        }, timeout(WAIT_MS));
+        start(WAIT_MS);
     }
 
     /** On the event-dispatch thread: the label's "k/n", the session's frame and the detections' frame agree. */

@@ -1,10 +1,6 @@
 package org.targetbench.app;
 
-import org.assertj.swing.core.BasicRobot;
-import org.assertj.swing.core.Robot;
 import org.assertj.swing.edt.GuiActionRunner;
-import org.assertj.swing.fixture.FrameFixture;
-import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.MethodOrderer;
 import org.junit.jupiter.api.Order;
@@ -20,7 +16,6 @@ import org.targetbench.servo.ServoPoint;
 import org.targetbench.servo.ServoSet;
 import org.targetbench.target.FeatureKind;
 
-import java.awt.GraphicsEnvironment;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -28,12 +23,9 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.TreeMap;
-import java.util.prefs.Preferences;
 import java.util.regex.Pattern;
 
-import static org.assertj.swing.timing.Timeout.timeout;
 import static org.junit.jupiter.api.Assertions.*;
-import static org.junit.jupiter.api.Assumptions.assumeFalse;
 
 /**
  * The servo set view on the demo, as a commissioning engineer checks it: the automatic choice takes the board's outer
@@ -44,41 +36,15 @@ import static org.junit.jupiter.api.Assumptions.assumeFalse;
  * {@link WorkbenchGuiTest}; skipped only where no display exists.
  */
 @TestMethodOrder(MethodOrderer.OrderAnnotation.class)
-class ServoSetGuiTest {
+class ServoSetGuiTest extends GuiTestBase {
     /** cond(L*) of the four outer board corners at the demo reference pose, and its tolerance (see DemoExhaustiveConditionTest). */
     static final double OUTER_CORNERS_COND = 37.96, COND_TOL = 0.01;
 
-    static Robot robot;
-    static FrameFixture window;
-    static Workbench workbench;
-    static Preferences prefs;
-
     @BeforeAll
     static void open() throws Exception {
-        assumeFalse(GraphicsEnvironment.isHeadless(), "no display: GUI tests need one (CI runs them under Xvfb)");
-        prefs = Preferences.userRoot().node("org/targetbench/gui-servo-test-" + ProcessHandle.current().pid());
-        robot = BasicRobot.robotWithNewAwtHierarchy();
-        workbench = WorkbenchApp.open(prefs);
-        window = new FrameFixture(robot, workbench);
-        GuiActionRunner.execute(() -> {
-            workbench.setSize(1280, 800);
-            workbench.validate();
-        });
-        WorkbenchGuiTest.waitFor("demo loaded", () -> workbench.session().hasFrames() && workbench.session().scene().isPresent());
-    }
-
-    @AfterAll
-    static void close() {
-        if (window != null) {
-            GuiActionRunner.execute(() -> workbench.dispose());
-            robot.waitForIdle();
-            window.cleanUp();
-        }
-        try {
-            if (prefs != null) prefs.removeNode();
-        } catch (java.util.prefs.BackingStoreException e) {
-            throw new AssertionError(e);
-        }
+        start(WAIT_MS);
+        size(1280, 800);
+        waitFor("demo loaded", () -> workbench.session().hasFrames() && workbench.session().scene().isPresent());
     }
 
     static void choose(String detector) {
@@ -86,7 +52,7 @@ class ServoSetGuiTest {
         GuiActionRunner.execute(() -> window.comboBox("servo.detector").target().setSelectedItem(detector));
         window.comboBox("servo.detector").requireSelection(detector);
         window.button("servo.choose").click();
-        WorkbenchGuiTest.waitFor("set chosen with " + detector, () -> workbench.session().pick() != null
+        waitFor("set chosen with " + detector, () -> workbench.session().pick() != null
                 && workbench.session().pick().detector().equals(detector) && workbench.session().servoSet() != null);
     }
 
@@ -161,7 +127,7 @@ class ServoSetGuiTest {
         Selection.Rejected first = pick.selection().rejected().stream().filter(r -> r.why().isFilter()).findFirst().orElseThrow();
         java.awt.Point at = GuiActionRunner.execute(() -> workbench.servo().canvas().toScreen(first.candidate().u(), first.candidate().v()));
         robot.moveMouse(workbench.servo().canvas(), at);
-        WorkbenchGuiTest.waitFor("tool tip shown", () -> {
+        waitFor("tool tip shown", () -> {
             for (java.awt.Window w : java.awt.Window.getWindows())
                 for (javax.swing.JToolTip t : findAll(w, javax.swing.JToolTip.class))
                     if (t.isShowing() && t.getTipText() != null && t.getTipText().contains(Reasons.rejected(first))) return true;
@@ -185,7 +151,7 @@ class ServoSetGuiTest {
         int id = failed.candidate().id();
         window.spinner("servo.count").requireValue(4);
         GuiActionRunner.execute(() -> workbench.servo().toggle(id));
-        WorkbenchGuiTest.waitFor("added by hand", () -> workbench.session().servoSet().points().size() == 5);
+        waitFor("added by hand", () -> workbench.session().servoSet().points().size() == 5);
         window.spinner("servo.count").requireValue(5);
         window.label("servo.findings").requireText(Pattern.compile(".*WARN: point #" + id + " was added by hand and failed a filter: "
                 + Pattern.quote(Reasons.rejected(failed)) + ".*"));
@@ -197,13 +163,13 @@ class ServoSetGuiTest {
         ServoPoint out = GuiActionRunner.execute(() -> workbench.session().servoSet().points().get(0));
         java.awt.Point at = GuiActionRunner.execute(() -> workbench.servo().canvas().toScreen(out.u(), out.v()));
         robot.click(workbench.servo().canvas(), at);
-        WorkbenchGuiTest.waitFor("taken out", () -> workbench.session().servoSet().points().size() == 4);
+        waitFor("taken out", () -> workbench.session().servoSet().points().size() == 4);
         window.spinner("servo.count").requireValue(4);
         window.button("servo.undo").click();
-        WorkbenchGuiTest.waitFor("back", () -> workbench.session().servoSet().points().size() == 5);
+        waitFor("back", () -> workbench.session().servoSet().points().size() == 5);
         window.spinner("servo.count").requireValue(5);
         window.button("servo.redo").click();
-        WorkbenchGuiTest.waitFor("out again", () -> workbench.session().servoSet().points().size() == 4);
+        waitFor("out again", () -> workbench.session().servoSet().points().size() == 4);
         window.spinner("servo.count").requireValue(4);
     }
 
@@ -236,7 +202,7 @@ class ServoSetGuiTest {
         // the same set read back from its file (no choice behind it) re-exported over the folder: the old selection
         // rows do not linger beside it
         assertTrue(GuiActionRunner.execute(() -> workbench.rehearseView().loadSet(dir.resolve("servo-set.json"))));
-        WorkbenchGuiTest.waitFor("loaded", () -> workbench.session().pick() == null && workbench.session().servoSet() != null);
+        waitFor("loaded", () -> workbench.session().pick() == null && workbench.session().servoSet() != null);
         export(dir, false);
         Map<Integer, String[]> again = selectionRows(dir.resolve("servo-set-selection.csv"));
         assertEquals(inSet.keySet(), again.keySet(), "only the set's points");
@@ -266,24 +232,8 @@ class ServoSetGuiTest {
         window.button("export.write").click();
         if (first) answerOk(SAFETY_TITLE);
         answerOk(ExportView.UNREHEARSED_TITLE);
-        var chooser = window.fileChooser(timeout(WorkbenchGuiTest.WAIT_MS)).target();
-        GuiActionRunner.execute(() -> {
-            chooser.setCurrentDirectory(dir.getParent().toFile());
-            chooser.setSelectedFile(dir.toFile());
-            chooser.approveSelection();
-        });
-        WorkbenchGuiTest.waitFor("exported", () -> window.label("status").target().getText().startsWith("Exported"));
-    }
-
-    /** Saves the window as target/screenshots/{name}.png for review. */
-    static void shot(String name) throws Exception {
-        java.awt.image.BufferedImage img = GuiActionRunner.execute(() -> {
-            var b = new java.awt.image.BufferedImage(workbench.getWidth(), workbench.getHeight(), java.awt.image.BufferedImage.TYPE_INT_RGB);
-            workbench.getRootPane().paint(b.getGraphics());
-            return b;
-        });
-        Files.createDirectories(WorkbenchGuiTest.SHOTS);
-        javax.imageio.ImageIO.write(img, "png", WorkbenchGuiTest.SHOTS.resolve(name + ".png").toFile());
+        chooseFolder(dir);
+        waitFor("exported", () -> window.label("status").target().getText().startsWith("Exported"));
     }
 
     /** Title of the safety notice shown before the first export of a session. */
@@ -291,9 +241,9 @@ class ServoSetGuiTest {
 
     /** Waits for the option pane titled {@code title} and answers OK (what its OK button does). */
     static void answerOk(String title) {
-        WorkbenchGuiTest.waitFor("dialog '" + title + "'", () -> pane(title) != null);
+        waitFor("dialog '" + title + "'", () -> pane(title) != null);
         GuiActionRunner.execute(() -> pane(title).setValue(javax.swing.JOptionPane.OK_OPTION));
-        WorkbenchGuiTest.waitFor("dialog '" + title + "' closed", () -> pane(title) == null);
+        waitFor("dialog '" + title + "' closed", () -> pane(title) == null);
     }
 
     private static javax.swing.JOptionPane pane(String title) {

@@ -2,12 +2,7 @@ package org.targetbench.app;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import org.assertj.swing.core.BasicRobot;
-import org.assertj.swing.core.Robot;
 import org.assertj.swing.edt.GuiActionRunner;
-import org.assertj.swing.fixture.FrameFixture;
-import org.assertj.swing.timing.Condition;
-import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.MethodOrderer;
 import org.junit.jupiter.api.Order;
@@ -18,17 +13,11 @@ import org.targetbench.detect.DetectorConfig;
 import org.targetbench.detect.DetectorType;
 import org.targetbench.formats.ConfigJson;
 
-import java.awt.GraphicsEnvironment;
 import java.nio.file.Path;
 import java.util.LinkedHashMap;
 import java.util.Map;
-import java.util.function.Supplier;
-import java.util.prefs.Preferences;
 
-import static org.assertj.swing.timing.Pause.pause;
-import static org.assertj.swing.timing.Timeout.timeout;
 import static org.junit.jupiter.api.Assertions.*;
-import static org.junit.jupiter.api.Assumptions.assumeFalse;
 
 /**
  * A session saved and reopened gives the same state, compared field by field: source, registration, frame, every
@@ -37,42 +26,14 @@ import static org.junit.jupiter.api.Assumptions.assumeFalse;
  * Skipped only where no display exists; CI runs it under Xvfb.
  */
 @TestMethodOrder(MethodOrderer.OrderAnnotation.class)
-class SessionGuiTest {
+class SessionGuiTest extends GuiTestBase {
     /** Longest wait for background work in the window, milliseconds. */
     static final long WAIT_MS = 120_000;
 
-    static Robot robot;
-    static FrameFixture window;
-    static Workbench workbench;
-    static Preferences prefs;
-
     @BeforeAll
     static void open() throws Exception {
-        assumeFalse(GraphicsEnvironment.isHeadless(), "no display: GUI tests need one (CI runs them under Xvfb)");
-        prefs = Preferences.userRoot().node("org/targetbench/session-gui-test-" + ProcessHandle.current().pid());
-        robot = BasicRobot.robotWithNewAwtHierarchy();
-        workbench = WorkbenchApp.open(prefs);
-        window = new FrameFixture(robot, workbench);
-        GuiActionRunner.execute(() -> {
-            workbench.setSize(1280, 800);
-            workbench.validate();
-        });
-    }
-
-    @AfterAll
-    static void close() throws Exception {
-        if (window != null) {
-            GuiActionRunner.execute(() -> workbench.dispose());
-            robot.waitForIdle();
-            window.cleanUp();
-        }
-        if (prefs != null) prefs.removeNode();
-    }
-
-    static void waitFor(String what, Supplier<Boolean> test) {
-        pause(new Condition(what) {
-            @Override public boolean test() { return GuiActionRunner.execute(test::get); }
-        }, timeout(WAIT_MS));
+        start(WAIT_MS);
+        size(1280, 800);
     }
 
     /** Everything a session keeps, by name, as values with equals (records, lists, JSON text). */
@@ -236,7 +197,7 @@ class SessionGuiTest {
         String before = GuiActionRunner.execute(() -> workbench.session().sourceName());
         GuiActionRunner.execute(() -> workbench.sessions().open(file));
         var pane = window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).requireTitle("Could not load the source");
-        GuiActionRunner.execute(() -> pane.okButton().target().doClick());
+        press(pane.okButton());
         waitFor("no longer restoring", () -> !workbench.sessions().restoring());
         assertEquals(before, GuiActionRunner.execute(() -> workbench.session().sourceName()), "the loaded source stays");
         // a later version is refused in one line before anything changes
@@ -245,7 +206,7 @@ class SessionGuiTest {
         var refused = window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).requireTitle("Could not open the session");
         String said = GuiActionRunner.execute(() -> ((javax.swing.JOptionPane) refused.target()).getMessage().toString());
         assertTrue(said.contains("session version 9 is not readable") && said.split("\\R").length == 1, said);
-        GuiActionRunner.execute(() -> refused.okButton().target().doClick());
+        press(refused.okButton());
         assertFalse(GuiActionRunner.execute(() -> workbench.sessions().restoring()));
     }
 }

@@ -1,11 +1,7 @@
 package org.targetbench.app;
 
 import boofcv.struct.image.GrayF32;
-import org.assertj.swing.core.BasicRobot;
-import org.assertj.swing.core.Robot;
 import org.assertj.swing.edt.GuiActionRunner;
-import org.assertj.swing.fixture.FrameFixture;
-import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.MethodOrderer;
 import org.junit.jupiter.api.Order;
@@ -18,12 +14,9 @@ import org.targetbench.detect.DetectorType;
 import org.targetbench.source.CameraFiles;
 import org.targetbench.source.ImageFiles;
 
-import javax.imageio.ImageIO;
 import javax.swing.JTable;
 import java.awt.Color;
 import java.awt.Component;
-import java.awt.GraphicsEnvironment;
-import java.awt.image.BufferedImage;
 import java.io.PrintWriter;
 import java.io.StringWriter;
 import java.nio.file.Files;
@@ -31,12 +24,9 @@ import java.nio.file.Path;
 import java.util.HashSet;
 import java.util.List;
 import java.util.Set;
-import java.util.prefs.Preferences;
 
 import static org.junit.jupiter.api.Assertions.*;
-import static org.junit.jupiter.api.Assumptions.assumeFalse;
 import static org.targetbench.app.WorkbenchGuiTest.assertAllRowsFit;
-import static org.targetbench.app.WorkbenchGuiTest.waitFor;
 
 /**
  * The shoot-out and calibration views as a person uses them, under a real (virtual) display, on small inputs: five
@@ -46,47 +36,16 @@ import static org.targetbench.app.WorkbenchGuiTest.waitFor;
  * target/screenshots/.
  */
 @TestMethodOrder(MethodOrderer.OrderAnnotation.class)
-class ShootoutCalibrationGuiTest {
+class ShootoutCalibrationGuiTest extends GuiTestBase {
     static final Path PHOTOS = Path.of("src/test/resources/reference/calibration");
     static final Path CAMERA = Path.of("target-designs/flange-camera.json");
 
-    static Robot robot;
-    static FrameFixture window;
-    static Workbench workbench;
-    static Preferences prefs;
     @TempDir static Path tmp;
 
     @BeforeAll
     static void open() throws Exception {
-        assumeFalse(GraphicsEnvironment.isHeadless(), "no display: GUI tests need one (CI runs them under Xvfb)");
-        prefs = Preferences.userRoot().node("org/targetbench/gui-test-sc-" + ProcessHandle.current().pid());
-        robot = BasicRobot.robotWithNewAwtHierarchy();
-        workbench = WorkbenchApp.open(prefs);
-        window = new FrameFixture(robot, workbench);
-        GuiActionRunner.execute(() -> {
-            workbench.setSize(1280, 800); // the smallest screen the views are laid out for; screenshots at this size
-            workbench.validate();
-        });
-        Files.createDirectories(WorkbenchGuiTest.SHOTS);
-    }
-
-    @AfterAll
-    static void close() throws Exception {
-        if (window != null) {
-            GuiActionRunner.execute(() -> workbench.dispose());
-            robot.waitForIdle();
-            window.cleanUp();
-        }
-        if (prefs != null) prefs.removeNode();
-    }
-
-    static void shot(String name) throws Exception {
-        BufferedImage img = GuiActionRunner.execute(() -> {
-            BufferedImage b = new BufferedImage(workbench.getWidth(), workbench.getHeight(), BufferedImage.TYPE_INT_RGB);
-            workbench.getRootPane().paint(b.getGraphics());
-            return b;
-        });
-        ImageIO.write(img, "png", WorkbenchGuiTest.SHOTS.resolve(name + ".png").toFile());
+        start(WAIT_MS);
+        size(1280, 800); // the smallest screen the views are laid out for; screenshots at this size
     }
 
     /** The command line, in-process; its exit code (what it prints is kept out of the test's output). */

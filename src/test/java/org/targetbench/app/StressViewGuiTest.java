@@ -1,14 +1,10 @@
 package org.targetbench.app;
 
-import org.assertj.swing.core.BasicRobot;
-import org.assertj.swing.core.Robot;
 import org.assertj.swing.edt.GuiActionRunner;
-import org.assertj.swing.fixture.FrameFixture;
 import org.jfree.chart.ChartPanel;
 import org.jfree.chart.plot.XYPlot;
 import org.jfree.chart.renderer.xy.XYLineAndShapeRenderer;
 import org.jfree.data.xy.XYDataset;
-import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.MethodOrderer;
 import org.junit.jupiter.api.Order;
@@ -25,7 +21,6 @@ import javax.swing.JTable;
 import javax.swing.SwingUtilities;
 import java.awt.Component;
 import java.awt.Container;
-import java.awt.GraphicsEnvironment;
 import java.awt.Rectangle;
 import java.io.PrintWriter;
 import java.io.StringWriter;
@@ -35,11 +30,9 @@ import java.util.ArrayList;
 import java.util.HashSet;
 import java.util.List;
 import java.util.Set;
-import java.util.prefs.Preferences;
 import java.util.stream.Stream;
 
 import static org.junit.jupiter.api.Assertions.*;
-import static org.junit.jupiter.api.Assumptions.assumeFalse;
 
 /**
  * The stress view as a person uses it, under a real (virtual) display: every control fits at 1280 x 800 and
@@ -48,61 +41,17 @@ import static org.junit.jupiter.api.Assumptions.assumeFalse;
  * conditions, and a cancelled sweep gives no ranking, only how far it got. Screenshots go to target/screenshots/.
  */
 @TestMethodOrder(MethodOrderer.OrderAnnotation.class)
-class StressViewGuiTest {
-    static Robot robot;
-    static FrameFixture window;
-    static Workbench workbench;
-    static Preferences prefs;
+class StressViewGuiTest extends GuiTestBase {
     static StressView view;
 
     @BeforeAll
     static void open() throws Exception {
-        assumeFalse(GraphicsEnvironment.isHeadless(), "no display: GUI tests need one (CI runs them under Xvfb)");
-        prefs = Preferences.userRoot().node("org/targetbench/stress-gui-test-" + ProcessHandle.current().pid());
-        prefs.put("view", "Stress");
-        robot = BasicRobot.robotWithNewAwtHierarchy();
-        workbench = WorkbenchApp.open(prefs);
-        window = new FrameFixture(robot, workbench);
+        start(WAIT_MS, prefs -> prefs.put("view", "Stress"));
         size(1280, 800);
-        Files.createDirectories(WorkbenchGuiTest.SHOTS);
         view = GuiActionRunner.execute(() -> workbench.stressView());
         waitFor("demo loaded", () -> workbench.session().hasFrames() && workbench.session().scene().isPresent());
         window.list("nav").selectItem("Stress");
         waitFor("stress view showing", () -> window.panel("view.stress").target().isShowing());
-    }
-
-    @AfterAll
-    static void close() throws Exception {
-        if (window != null) {
-            GuiActionRunner.execute(() -> workbench.dispose());
-            robot.waitForIdle();
-            window.cleanUp();
-        }
-        if (prefs != null) prefs.removeNode();
-    }
-
-    static void waitFor(String what, java.util.function.Supplier<Boolean> test) {
-        org.assertj.swing.timing.Pause.pause(new org.assertj.swing.timing.Condition(what) {
-            @Override public boolean test() { return GuiActionRunner.execute(test::get); }
-        }, org.assertj.swing.timing.Timeout.timeout(WorkbenchGuiTest.WAIT_MS));
-    }
-
-    /** The window as it is drawn, at its current size, as target/screenshots/NAME.png (as the workbench test takes them). */
-    static void shot(String name) throws Exception {
-        java.awt.image.BufferedImage img = GuiActionRunner.execute(() -> {
-            var b = new java.awt.image.BufferedImage(workbench.getWidth(), workbench.getHeight(), java.awt.image.BufferedImage.TYPE_INT_RGB);
-            workbench.getRootPane().paint(b.getGraphics());
-            return b;
-        });
-        javax.imageio.ImageIO.write(img, "png", WorkbenchGuiTest.SHOTS.resolve(name + ".png").toFile());
-    }
-
-    static void size(int w, int h) {
-        GuiActionRunner.execute(() -> {
-            workbench.setSize(w, h);
-            workbench.validate();
-        });
-        robot.waitForIdle();
     }
 
     @Test
@@ -318,10 +267,7 @@ class StressViewGuiTest {
         window.spinner("stress.levels").enterTextAndCommit("8");
         window.spinner("stress.views").enterTextAndCommit("4");
         window.spinner("stress.trackFrames").enterTextAndCommit("0");
-        window.button("stress.run").click();
-        waitFor("some cells done", () -> window.progressBar("stress.progress").target().getValue() >= 2);
-        window.button("stress.cancel").click();
-        waitFor("sweep stopped", () -> window.button("stress.run").target().isEnabled());
+        runSweepThenCancel();
         String verdict = GuiActionRunner.execute(() -> window.label("stress.verdict").target().getText());
         var m = java.util.regex.Pattern.compile("Stopped: incomplete: (\\d+) of (\\d+) cells; no ranking from an incomplete sweep\\..*").matcher(verdict);
         assertTrue(m.matches(), verdict);

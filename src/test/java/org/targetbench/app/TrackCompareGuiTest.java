@@ -65,6 +65,12 @@ class TrackCompareGuiTest {
         return (TrackView) gui.robot.finder().findByName(gui.workbench.panelName("Track"), javax.swing.JPanel.class, false);
     }
 
+    /** Shows plot tab {@code plot} of the track view and saves the window as target/screenshots/NAME.png. */
+    private static void shotOfPlot(TrackView v, int plot, String name) throws Exception {
+        GuiActionRunner.execute(() -> v.plots().setSelectedIndex(plot));
+        gui.shot(name);
+    }
+
     private static CompareView compareView() { return gui.workbench.compareView(); }
 
     private static void track(String source, int frames) {
@@ -118,8 +124,7 @@ class TrackCompareGuiTest {
             String value = GuiActionRunner.execute(() -> figures.getValueAt(row, 1).toString());
             assertTrue(value.matches(".*(px|%|frames|tracks|ms per frame|by the user|source ended|frame limit was reached|longer than the run|no truth|no still stretch|not reached \\(ended at \\d+\\))"), value);
         }
-        GuiActionRunner.execute(() -> v.plots().setSelectedIndex(1));
-        gui.shot("track-scrubbed-drift");
+        shotOfPlot(v, 1, "track-scrubbed-drift");
 
         // saved, the run is what the command line's track writes for the same source and settings
         Path app = tmp.resolve("app"), cli = tmp.resolve("cli");
@@ -142,8 +147,7 @@ class TrackCompareGuiTest {
         assertEquals(5, jitter.getItemCount(0), "p50, p90, p95, p99 and the worst segment");
         double worst = jitter.getYValue(0, 4);
         assertEquals(GuiActionRunner.execute(() -> v.history().result().score().jitter().max()), worst, 0);
-        GuiActionRunner.execute(() -> v.plots().setSelectedIndex(2));
-        gui.shot("track-still-jitter");
+        shotOfPlot(v, 2, "track-still-jitter");
     }
 
     @Test
@@ -168,8 +172,7 @@ class TrackCompareGuiTest {
         Path out = tmp.resolve("saved");
         assertTrue(GuiActionRunner.execute(() -> v.saveTo(out)));
         assertEquals(Set.of("tracks.csv", "survival.csv", "summary.json"), files(out), "no drift.csv without truth");
-        GuiActionRunner.execute(() -> v.plots().setSelectedIndex(1));
-        gui.shot("track-no-truth");
+        shotOfPlot(v, 1, "track-no-truth");
     }
 
     @Test

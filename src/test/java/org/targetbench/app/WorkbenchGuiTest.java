@@ -1,33 +1,20 @@
 package org.targetbench.app;
 
 import org.targetbench.formats.ServoSetReader;
-import org.assertj.swing.core.BasicRobot;
-import org.assertj.swing.core.Robot;
 import org.assertj.swing.edt.GuiActionRunner;
-import org.assertj.swing.fixture.FrameFixture;
-import org.assertj.swing.timing.Condition;
-import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.TestMethodOrder;
 import org.junit.jupiter.api.MethodOrderer;
 import org.junit.jupiter.api.Order;
 
-import javax.imageio.ImageIO;
 import javax.swing.JLabel;
 import javax.swing.JTable;
-import java.awt.GraphicsEnvironment;
-import java.awt.image.BufferedImage;
-import java.io.File;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.function.Supplier;
-import java.util.prefs.Preferences;
 
 import static org.assertj.swing.timing.Pause.pause;
-import static org.assertj.swing.timing.Timeout.timeout;
 import static org.junit.jupiter.api.Assertions.*;
-import static org.junit.jupiter.api.Assumptions.assumeFalse;
 
 /**
  * The workbench as a person uses it, under a real (virtual) display: it opens on the demo with points and scores,
@@ -35,92 +22,16 @@ import static org.junit.jupiter.api.Assumptions.assumeFalse;
  * Screenshots of each view are saved under target/screenshots/ for review.
  */
 @TestMethodOrder(MethodOrderer.OrderAnnotation.class)
-class WorkbenchGuiTest {
-    /** Longest wait for background work in the window, milliseconds. */
-    static final long WAIT_MS = 60_000;
-    static final Path SHOTS = Path.of("target/screenshots");
-
-    static Robot robot;
-    static FrameFixture window;
-    static Workbench workbench;
-    static Preferences prefs;
-
+class WorkbenchGuiTest extends GuiTestBase {
     @BeforeAll
     static void open() throws Exception {
-        assumeFalse(GraphicsEnvironment.isHeadless(), "no display: GUI tests need one (CI runs them under Xvfb)");
-        prefs = Preferences.userRoot().node("org/targetbench/gui-test-" + ProcessHandle.current().pid());
-        robot = BasicRobot.robotWithNewAwtHierarchy();
-        workbench = WorkbenchApp.open(prefs);
-        window = new FrameFixture(robot, workbench);
-        GuiActionRunner.execute(() -> {
-            workbench.setSize(1280, 800); // the smallest screen the views are laid out for; screenshots at this size
-            workbench.validate();
-        });
-        Files.createDirectories(SHOTS);
+        start(WAIT_MS);
+        size(1280, 800); // the smallest screen the views are laid out for; screenshots at this size
     }
 
-    @AfterAll
-    static void close() throws Exception {
-        if (window != null) {
-            GuiActionRunner.execute(() -> workbench.dispose());
-            robot.waitForIdle();
-            window.cleanUp();
-        }
-        if (prefs != null) prefs.removeNode();
-    }
-
-    static void waitFor(String what, Supplier<Boolean> test) {
-        pause(new Condition(what) {
-            @Override public boolean test() { return GuiActionRunner.execute(test::get); }
-        }, timeout(WAIT_MS));
-    }
-
-    /** True when no dialog of the workbench is on screen (a closed one may take a moment to go). */
-    static boolean noDialogShowing() {
-        return showingDialogs().isEmpty();
-    }
-
-    /**
-     * Waits until no dialog shows. A click on a dialog that is still being realised can be lost on a loaded machine;
-     * after a few seconds the option panes still up are answered with OK directly (what their OK button does).
-     */
-    static void awaitDialogsClosed() {
-        try {
-            pause(new Condition("dialogs closed") {
-                @Override public boolean test() { return GuiActionRunner.execute(WorkbenchGuiTest::noDialogShowing); }
-            }, timeout(5_000));
-        } catch (org.assertj.swing.exception.WaitTimedOutError e) {
-            GuiActionRunner.execute(() -> {
-                for (java.awt.Window w : java.awt.Window.getWindows())
-                    if (w instanceof javax.swing.JDialog d && d.isShowing())
-                        for (javax.swing.JOptionPane p : org.assertj.swing.core.BasicComponentFinder.finderWithCurrentAwtHierarchy()
-                                .findAll(d, new org.assertj.swing.core.GenericTypeMatcher<javax.swing.JOptionPane>(javax.swing.JOptionPane.class) {
-                                    @Override protected boolean isMatching(javax.swing.JOptionPane c) { return true; }
-                                }))
-                            p.setValue(javax.swing.JOptionPane.OK_OPTION);
-            });
-            try {
-                waitFor("dialogs closed", WorkbenchGuiTest::noDialogShowing);
-            } catch (org.assertj.swing.exception.WaitTimedOutError e2) {
-                throw new AssertionError("still showing: " + GuiActionRunner.execute(WorkbenchGuiTest::showingDialogs), e2);
-            }
-        }
-    }
-
-    static java.util.List<String> showingDialogs() {
-        java.util.List<String> out = new java.util.ArrayList<>();
-        for (java.awt.Window w : java.awt.Window.getWindows())
-            if (w instanceof java.awt.Dialog d && d.isShowing()) out.add(d.getClass().getName() + " '" + d.getTitle() + "' owner " + d.getOwner());
-        return out;
-    }
-
-    /**
-     * Presses a dialog button the way its mnemonic or the keyboard would (doClick on the event-dispatch thread):
-     * mouse clicks on a dialog that a window-manager-less virtual display is still placing can be lost.
-     */
-    static void press(org.assertj.swing.fixture.JButtonFixture b) {
-        GuiActionRunner.execute(() -> b.target().doClick());
-    }
+    // Dialog buttons are pressed on the event-dispatch thread (press, in GuiTestBase), the way a mnemonic or the
+    // keyboard would press them: mouse clicks on a dialog that a window-manager-less virtual display is still placing
+    // can be lost. awaitDialogsClosed answers option panes still up after such a lost click.
 
     /**
      * Every visual row of a wrapping text area fits its width, measured with the area's font metrics, and the rows
@@ -149,15 +60,6 @@ class WorkbenchGuiTest {
             assertEquals(text, seen.toString());
             return null;
         });
-    }
-
-    static void shot(String name) throws Exception {
-        BufferedImage img = GuiActionRunner.execute(() -> {
-            BufferedImage b = new BufferedImage(workbench.getWidth(), workbench.getHeight(), BufferedImage.TYPE_INT_RGB);
-            workbench.getRootPane().paint(b.getGraphics());
-            return b;
-        });
-        ImageIO.write(img, "png", new File(SHOTS.toFile(), name + ".png"));
     }
 
     @Test
@@ -203,10 +105,7 @@ class WorkbenchGuiTest {
         window.list("nav").selectItem("Stress");
         window.spinner("stress.levels").enterTextAndCommit("8");
         window.spinner("stress.views").enterTextAndCommit("4");
-        window.button("stress.run").click();
-        waitFor("some cells done", () -> window.progressBar("stress.progress").target().getValue() >= 2);
-        window.button("stress.cancel").click();
-        waitFor("sweep stopped", () -> window.button("stress.run").target().isEnabled());
+        runSweepThenCancel();
         JLabel verdict = window.label("stress.verdict").target();
         String text = GuiActionRunner.execute(verdict::getText);
         // no verdict from an incomplete sweep; the conditions that never ran say so on their charts
@@ -327,12 +226,7 @@ class WorkbenchGuiTest {
         Files.createDirectories(dir);
         window.button("export.write").click();
         press(window.optionPane().okButton());
-        var chooser = window.fileChooser(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).target();
-        GuiActionRunner.execute(() -> {
-            chooser.setCurrentDirectory(tmp.toFile());
-            chooser.setSelectedFile(dir.toFile());
-            chooser.approveSelection();
-        });
+        chooseFolder(dir);
         waitFor("exported", () -> Files.exists(dir.resolve("servo-set.json")));
         var current = GuiActionRunner.execute(() -> workbench.session().servoSet());
         // what the app wrote, read back by the command line's importer, is the same set
@@ -369,12 +263,7 @@ class WorkbenchGuiTest {
                 .filter(w -> w instanceof javax.swing.JDialog && w.isShowing()).count()), "no file chooser after cancelling");
         window.button("export.write").click();
         press(window.optionPane(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).requireTitle(ExportView.UNREHEARSED_TITLE).okButton());
-        var chooser2 = window.fileChooser(org.assertj.swing.timing.Timeout.timeout(WAIT_MS)).target();
-        GuiActionRunner.execute(() -> {
-            chooser2.setCurrentDirectory(tmp.toFile());
-            chooser2.setSelectedFile(dir2.toFile());
-            chooser2.approveSelection();
-        });
+        chooseFolder(dir2);
         waitFor("exported unrehearsed", () -> Files.exists(dir2.resolve("servo-set.json")));
         assertEquals(org.targetbench.export.ServoSetJson.NOT_REHEARSED,
                 new com.fasterxml.jackson.databind.ObjectMapper().readTree(dir2.resolve("servo-set.json").toFile()).get("rehearsal").asText());
