@@ -1,13 +1,10 @@
 package org.targetbench.app;
 
-import boofcv.struct.image.GrayF32;
 import org.targetbench.detect.Detection;
 import org.targetbench.detect.DetectorType;
-import org.targetbench.export.VideoWriter;
 import org.targetbench.pipeline.LiveScoring;
 import org.targetbench.source.FrameSource;
 import org.targetbench.source.SourceException;
-import org.targetbench.source.SourceFrame;
 import org.targetbench.source.Webcams;
 
 import javax.swing.BorderFactory;
@@ -20,7 +17,6 @@ import javax.swing.JLabel;
 import javax.swing.JPanel;
 import javax.swing.JScrollPane;
 import javax.swing.JTable;
-import javax.swing.SwingUtilities;
 import javax.swing.SwingWorker;
 import javax.swing.table.DefaultTableModel;
 import java.awt.BorderLayout;
@@ -35,7 +31,6 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
 import java.util.concurrent.atomic.AtomicInteger;
-import java.util.concurrent.atomic.AtomicReference;
 
 /**
  * The camera, live. One thread takes every image the camera delivers (and writes it to the recording, when one is
@@ -58,14 +53,8 @@ final class CameraView extends JPanel {
     }
 
     static final Opener WEBCAMS = (index, size) -> Webcams.open(index, size, Webcams.DISCOVERY_TIMEOUT);
-    /** Quality of recordings, JPEG scale (MP4: the H.264 quantiser derived from it). */
-    static final int RECORD_QUALITY = 90;
-    /** Frame rate written into a recording when the camera's own has not been measured yet. */
-    static final double DEFAULT_FPS = 30;
     /** Longest size offered by default: the largest at most this wide and high. */
     static final int DEFAULT_MAX_W = 640, DEFAULT_MAX_H = 480;
-    /** Window over which the achieved rates are measured, seconds. */
-    static final double RATE_WINDOW_S = 1.0;
 
     private final AppContext ctx;
     private final FrameCanvas canvas = new FrameCanvas("camera.canvas");
@@ -87,8 +76,16 @@ final class CameraView extends JPanel {
     private volatile java.util.function.Supplier<LiveScoring.Registration> registrations = () -> LiveScoring.NO_REGISTRATION;
     /** The chosen design's name and camera file, for the label; null without a target. */
     private volatile String targetLabel;
-    private final AtomicInteger registeredFrames = new AtomicInteger(), triedFrames = new AtomicInteger();
-    private Stream stream;
+    /** The running stream, null when stopped; {@code last} is the latest one, running or not. */
+    private CameraStream stream, last;
+    private final CameraStream.Listener listener = new CameraStream.Listener() {
+        @Override public void scored(CameraStream from, LiveScoring.Scored s) { show(from, s); }
+        @Override public void recordingFailed(String sentence) {
+            say(sentence);
+            updateButtons();
+        }
+        @Override public void ended(CameraStream from, String why, String kept) { CameraView.this.ended(from, why, kept); }
+    };
 
     CameraView(AppContext ctx) {
         super(new BorderLayout(6, 6));
@@ -192,7 +189,7 @@ final class CameraView extends JPanel {
     }
 
     /** Frames registered to the target, and frames tried, in the current or last stream. */
-    int[] registeredOfTried() { return new int[]{registeredFrames.get(), triedFrames.get()}; }
+    int[] registeredOfTried() { return last == null ? new int[]{0, 0} : new int[]{last.registeredFrames.get(), last.triedFrames.get()}; }
 
     private void find() {
         say("Looking for cameras...");
@@ -265,7 +262,9 @@ final class CameraView extends JPanel {
                 startStop.setEnabled(true);
                 try {
                     FrameSource s = get();
-                    stream = new Stream(s);
+                    stream = new CameraStream(s, ctx, () -> registrations.get(), listener);
+                    last = stream;
+                    shown.set(0);
                     say("Live: " + s.description());
                     stream.begin();
                 } catch (java.util.concurrent.ExecutionException e) {
@@ -292,7 +291,9 @@ final class CameraView extends JPanel {
     private void toggleRecord() {
         if (stream == null) return;
         if (stream.recording() != null) {
-            stream.stopRecording();
+            String note = stream.finishRecording();
+            if (note != null) say(Character.toUpperCase(note.charAt(0)) + note.substring(1) + ".");
+            updateButtons();
             return;
         }
         JFileChooser fc = new JFileChooser(ctx.prefs().get("lastRecordFolder", System.getProperty("user.dir")));
@@ -335,227 +336,36 @@ final class CameraView extends JPanel {
 
     private final AtomicInteger shown = new AtomicInteger();
 
-    /** Counts events and gives their rate over the last {@link #RATE_WINDOW_S} s. */
-    private static final class Rate {
-        private final long[] times = new long[512];
-        private int n, head;
-
-        synchronized void tick() {
-            times[head] = System.nanoTime();
-            head = (head + 1) % times.length;
-            n = Math.min(n + 1, times.length);
+    private void show(CameraStream from, LiveScoring.Scored s) {
+        if (stream != from || from.frozen) return;
+        shown.incrementAndGet();
+        canvas.setFrame(s.frame());
+        Map<DetectorType, List<Detection>> pts = new LinkedHashMap<>();
+        for (var e : s.points().entrySet()) if (ctx.session().shown().contains(e.getKey())) pts.put(e.getKey(), e.getValue());
+        canvas.setOverlay(pts, s.truth().map(org.targetbench.source.FrameTruth::features).orElse(List.of()));
+        scores.setRowCount(0);
+        for (var e : s.figures().entrySet()) {
+            var f = e.getValue();
+            scores.addRow(new Object[]{e.getKey().label(), f.points(), Ui.fmt(f.repeatability(), 3), Ui.pct(f.coverage()),
+                    Ui.fmt(f.localisationPx(), 3), Double.isNaN(f.foundShare()) ? "" : Ui.pct(f.foundShare()), Ui.fmt(f.detectMs(), 1)});
         }
-
-        synchronized double perSecond() {
-            long now = System.nanoTime(), window = (long) (RATE_WINDOW_S * 1e9);
-            int count = 0;
-            for (int k = 0; k < n; k++) {
-                long t = times[(head - 1 - k + times.length) % times.length];
-                if (now - t > window) break;
-                count++;
-            }
-            return count / RATE_WINDOW_S;
-        }
-    }
-
-    /** One run of the camera: the grabbing thread, the scoring thread and the recording. */
-    private final class Stream {
-        final FrameSource source;
-        final AtomicReference<GrayF32> newest = new AtomicReference<>();
-        final Rate cameraRate = new Rate(), shownRate = new Rate();
-        final AtomicInteger delivered = new AtomicInteger(), dropped = new AtomicInteger();
-        final Object recordLock = new Object();
-        final Thread grabber, scorer;
-        volatile boolean frozen, halted;
-        private VideoWriter writer;
-        private Path recording;
-        private int recorded;
-
-        Stream(FrameSource source) {
-            this.source = source;
-            grabber = new Thread(this::grabLoop, "targetbench-camera-grab");
-            scorer = new Thread(this::scoreLoop, "targetbench-camera-score");
-            grabber.setDaemon(true);
-            scorer.setDaemon(true);
-        }
-
-        void begin() {
-            shown.set(0);
-            registeredFrames.set(0);
-            triedFrames.set(0);
-            grabber.start();
-            scorer.start();
-        }
-
-        Path recording() {
-            synchronized (recordLock) {
-                return recording;
-            }
-        }
-
-        void startRecording(Path file) throws IOException {
-            double fps = cameraRate.perSecond();
-            synchronized (recordLock) {
-                if (writer != null) return;
-                writer = VideoWriter.open(file, RECORD_QUALITY, fps >= 1 ? fps : DEFAULT_FPS);
-                recording = file;
-                recorded = 0;
-            }
-        }
-
-        /** Finishes the recording; returns a sentence saying what was kept, or null when none was running. */
-        String finishRecording() {
-            synchronized (recordLock) {
-                if (writer == null) return null;
-                String note;
-                try {
-                    writer.close();
-                    note = recorded + " frames recorded to " + recording + " and kept";
-                } catch (IOException e) {
-                    note = "the recording " + recording + " could not be finished: " + e.getMessage();
-                }
-                writer = null;
-                recording = null;
-                return note;
-            }
-        }
-
-        void stopRecording() {
-            String note = finishRecording();
-            if (note != null) say(Character.toUpperCase(note.charAt(0)) + note.substring(1) + ".");
-            updateButtons();
-        }
-
-        private void grabLoop() {
-            String end = null;
-            try {
-                while (!halted) {
-                    Optional<SourceFrame> f;
-                    try {
-                        f = source.next();
-                    } catch (SourceException e) {
-                        end = e.getMessage();
-                        break;
-                    }
-                    if (f.isEmpty()) {
-                        if (!halted) end = source.endNote().orElse("the camera stopped delivering images");
-                        break;
-                    }
-                    GrayF32 img = f.get().image();
-                    delivered.incrementAndGet();
-                    cameraRate.tick();
-                    synchronized (recordLock) {
-                        if (writer != null) {
-                            try {
-                                writer.write(img);
-                                recorded++;
-                            } catch (IOException | IllegalArgumentException e) {
-                                String failed = "recording stopped: " + e.getMessage();
-                                try {
-                                    writer.close();
-                                } catch (IOException ignored) {
-                                    // already failing; the message says so
-                                }
-                                writer = null;
-                                recording = null;
-                                SwingUtilities.invokeLater(() -> {
-                                    say(failed);
-                                    updateButtons();
-                                });
-                            }
-                        }
-                    }
-                    if (frozen) continue;
-                    if (newest.getAndSet(img) != null) dropped.incrementAndGet();
-                    synchronized (newest) {
-                        newest.notifyAll();
-                    }
-                }
-            } finally {
-                source.close();
-                if (end != null) halt(end);
-            }
-        }
-
-        private void scoreLoop() {
-            int version = ctx.session().configVersion();
-            LiveScoring.Registration registration = registrations.get();
-            LiveScoring scoring = new LiveScoring(ctx.session().configs(), registration);
-            while (!halted) {
-                GrayF32 img;
-                synchronized (newest) {
-                    while ((img = newest.getAndSet(null)) == null && !halted) {
-                        try {
-                            newest.wait(100);
-                        } catch (InterruptedException e) {
-                            return;
-                        }
-                    }
-                }
-                if (img == null) return;
-                if (ctx.session().configVersion() != version) {
-                    version = ctx.session().configVersion();
-                    scoring = new LiveScoring(ctx.session().configs(), registration);
-                }
-                LiveScoring.Scored s = scoring.score(img);
-                if (s.registration() != LiveScoring.RegistrationState.NONE) triedFrames.incrementAndGet();
-                if (s.registration() == LiveScoring.RegistrationState.REGISTERED) registeredFrames.incrementAndGet();
-                shownRate.tick();
-                SwingUtilities.invokeLater(() -> show(s));
-            }
-        }
-
-        /** Ends the stream; {@code why} is the camera's reason when it ended on its own, null when the user stopped it. */
-        void halt(String why) {
-            if (halted) return;
-            halted = true;
-            grabber.interrupt();
-            synchronized (newest) {
-                newest.notifyAll();
-            }
-            new Thread(() -> {
-                try {
-                    grabber.join();
-                    scorer.join();
-                } catch (InterruptedException e) {
-                    Thread.currentThread().interrupt();
-                }
-                String kept = finishRecording();
-                SwingUtilities.invokeLater(() -> ended(this, why, kept));
-            }, "targetbench-camera-stop").start();
-        }
-
-        private void show(LiveScoring.Scored s) {
-            if (stream != this || frozen) return;
-            shown.incrementAndGet();
-            canvas.setFrame(s.frame());
-            Map<DetectorType, List<Detection>> pts = new LinkedHashMap<>();
-            for (var e : s.points().entrySet()) if (ctx.session().shown().contains(e.getKey())) pts.put(e.getKey(), e.getValue());
-            canvas.setOverlay(pts, s.truth().map(org.targetbench.source.FrameTruth::features).orElse(List.of()));
-            scores.setRowCount(0);
-            for (var e : s.figures().entrySet()) {
-                var f = e.getValue();
-                scores.addRow(new Object[]{e.getKey().label(), f.points(), Ui.fmt(f.repeatability(), 3), Ui.pct(f.coverage()),
-                        Ui.fmt(f.localisationPx(), 3), Double.isNaN(f.foundShare()) ? "" : Ui.pct(f.foundShare()), Ui.fmt(f.detectMs(), 1)});
-            }
-            against.setText(switch (s.against()) {
-                case NOTHING -> "Repeatability: first frame, nothing to compare with yet";
-                case PREVIOUS_FRAME -> "Repeatability: against the previous shown frame, as if nothing moved (hold still)";
-                case REGISTERED_REFERENCE -> "Repeatability: against the first registered frame, through the target";
-            });
-            if (s.against() == LiveScoring.Against.NOTHING && s.registration() != LiveScoring.RegistrationState.NONE
-                    && s.registration() != LiveScoring.RegistrationState.REGISTERED)
-                against.setText("Repeatability: none, this frame did not register");
-            registered.setText(registrationText(s));
-            rates.setText(String.format(Locale.ROOT, "%.1f frames/s scored and shown of the camera's %.1f frames/s; %d of %d images dropped%s",
-                    shownRate.perSecond(), cameraRate.perSecond(), dropped.get(), delivered.get(),
-                    recording() == null ? "" : "; recording to " + recording().getFileName()));
-        }
+        against.setText(switch (s.against()) {
+            case NOTHING -> "Repeatability: first frame, nothing to compare with yet";
+            case PREVIOUS_FRAME -> "Repeatability: against the previous shown frame, as if nothing moved (hold still)";
+            case REGISTERED_REFERENCE -> "Repeatability: against the first registered frame, through the target";
+        });
+        if (s.against() == LiveScoring.Against.NOTHING && s.registration() != LiveScoring.RegistrationState.NONE
+                && s.registration() != LiveScoring.RegistrationState.REGISTERED)
+            against.setText("Repeatability: none, this frame did not register");
+        registered.setText(registrationText(from, s));
+        rates.setText(String.format(Locale.ROOT, "%.1f frames/s scored and shown of the camera's %.1f frames/s; %d of %d images dropped%s",
+                from.shownRate.perSecond(), from.cameraRate.perSecond(), from.dropped.get(), from.delivered.get(),
+                from.recording() == null ? "" : "; recording to " + from.recording().getFileName()));
     }
 
     /** The registration line under the table: the target, how this frame fared, and the count so far. */
-    private String registrationText(LiveScoring.Scored s) {
-        String count = String.format(Locale.ROOT, " (%d of %d frames registered)", registeredFrames.get(), triedFrames.get());
+    private String registrationText(CameraStream from, LiveScoring.Scored s) {
+        String count = String.format(Locale.ROOT, " (%d of %d frames registered)", from.registeredFrames.get(), from.triedFrames.get());
         return switch (s.registration()) {
             case NONE -> "Target: none (choose one for scores against it)";
             case REGISTERED -> "Target " + targetLabel + ": this frame registered" + count;
@@ -567,7 +377,7 @@ final class CameraView extends JPanel {
     }
 
     /** On the event-dispatch thread once a stream has fully stopped. */
-    private void ended(Stream s, String why, String kept) {
+    private void ended(CameraStream s, String why, String kept) {
         if (stream != s) return;
         stream = null;
         String text = why == null ? "Camera stopped." : "The camera stream ended: " + why + ".";
