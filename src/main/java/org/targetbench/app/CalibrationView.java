@@ -117,12 +117,11 @@ final class CalibrationView extends JPanel {
                 String.format(Locale.ROOT, "OK, or WARN when the view's RMS error is more than %.1f x the median view's (a rule of thumb, common "
                         + "practice, no source): check it for blur or a bent board.", config.outlierFactor));
         widths(paramTable, 95, 95, 115);
-        widths(viewTable, 135, 85, 65, 80, 80, 100);
         paramTable.setAutoResizeMode(JTable.AUTO_RESIZE_LAST_COLUMN);
-        viewTable.setAutoResizeMode(JTable.AUTO_RESIZE_LAST_COLUMN);
         JScrollPane ps = new JScrollPane(paramTable);
         ps.setPreferredSize(new Dimension(310, 190));
-        JScrollPane vs = new JScrollPane(viewTable);
+        // every column but the flag fits its widest text; the flag's sentence is read in full in the detail pane
+        JScrollPane vs = Ui.fitColumns(new JScrollPane(viewTable), 5, new Object[]{"left01.jpg", "NOT FOUND", "54", "0.000 px", "0.000 px", "OK"});
         vs.setPreferredSize(new Dimension(420, 190));
         JScrollPane cs = new JScrollPane(coverage);
         cs.setBorder(BorderFactory.createTitledBorder("Where the corners fell"));
