@@ -256,15 +256,20 @@ final class StressControls extends JPanel {
         return String.join("; ", parts);
     }
 
-    /** With no design scene (frames from files or a camera) only the loaded frames can be the base. */
-    void sceneAvailable(boolean yes) {
-        if (!yes) base.setSelectedItem(LOADED);
-        else if (!sceneKnown) base.setSelectedItem(RENDERED);
+    /**
+     * With no design scene (frames from files or a camera) only the loaded frames can be the base. Footage registered
+     * to its design has a scene too, but the user's own frames are what they came to degrade, so they are the default
+     * there; rendered views of the design stay a choice.
+     */
+    void sceneAvailable(boolean yes, boolean registeredFootage) {
+        if (!yes || registeredFootage) base.setSelectedItem(LOADED);
+        else if (!sceneKnown || footage) base.setSelectedItem(RENDERED);
         sceneKnown = yes;
+        footage = registeredFootage;
         base.setEnabled(yes && levels.isEnabled());
     }
 
-    private boolean sceneKnown = true;
+    private boolean sceneKnown = true, footage;
 
     /** True to render base views of the design scene (when there is one), false to degrade the loaded frames. */
     boolean renderBase() { return RENDERED.equals(base.getSelectedItem()); }

@@ -91,9 +91,9 @@ final class StressView extends JPanel {
         ranking.setPreferredSize(new java.awt.Dimension(400, 190));
         add(split, BorderLayout.CENTER);
         ctx.session().addListener(c -> {
-            if (c == Session.Change.SOURCE) controls.sceneAvailable(ctx.session().scene().isPresent());
+            if (c == Session.Change.SOURCE) controls.sceneAvailable(ctx.session().scene().isPresent(), ctx.session().registration() != null);
         });
-        controls.sceneAvailable(ctx.session().scene().isPresent());
+        controls.sceneAvailable(ctx.session().scene().isPresent(), ctx.session().registration() != null);
         charts.add(new JLabel("<html><body style='width:380px'>Choose detectors and conditions above, then Run sweep: a chart per condition fills in as cells finish,"
                 + " and the ranking appears below when every cell has run.</html>"));
     }

@@ -392,6 +392,10 @@ class WorkbenchGuiTest extends GuiTestBase {
         GuiActionRunner.execute(() -> workbench.session().setFrameIndex(3));
         waitFor("frame label says so", () -> GuiActionRunner.execute(() -> window.label("play.label").target().getText()).contains("NOT REGISTERED"));
         shot("live-registered");
+        // the Stress view degrades the registered footage itself by default; rendered views of its design stay a choice
+        window.list("nav").selectItem("Stress");
+        window.comboBox("stress.base").requireSelection("loaded frames").requireEnabled();
+        window.list("nav").selectItem("Live");
     }
 
     @Test
