@@ -37,13 +37,13 @@ class CameraGuiTest extends GuiTestBase {
         window.list("nav").selectItem("Camera");
         window.label("camera.message").requireText(java.util.regex.Pattern.compile("No camera found: no video devices.*"));
         window.button("camera.start").requireDisabled();
-        // a simulated camera behind the Camera interface: 400 images, one every 10 ms (4 s, long enough to record and
-        // freeze while it runs on a loaded machine), then unplugged
+        // a simulated camera behind the Camera interface: 1500 images, one every 10 ms (15 s, long enough to record and
+        // freeze while it runs even when this class is the first in a cold JVM on a loaded machine), then unplugged
         java.util.concurrent.atomic.AtomicReference<String> opened = new java.util.concurrent.atomic.AtomicReference<>();
         CameraView.Opener simulated = (index, size) -> {
             opened.set(size);
             String[] wh = size.split("x");
-            return new org.targetbench.source.WebcamSource(new org.targetbench.source.FakeCamera(Integer.parseInt(wh[0]), Integer.parseInt(wh[1]), 400, false, 10),
+            return new org.targetbench.source.WebcamSource(new org.targetbench.source.FakeCamera(Integer.parseInt(wh[0]), Integer.parseInt(wh[1]), 1500, false, 10),
                     "simulated camera at " + size);
         };
         GuiActionRunner.execute(() -> cv.offer(new org.targetbench.source.Webcams.Discovery(java.util.List.of(
@@ -66,7 +66,7 @@ class CameraGuiTest extends GuiTestBase {
         // the camera goes away mid-stream: a plain message, and the recording is kept and reads back
         waitFor("the stream ended with the camera", () -> !cv.running());
         window.label("camera.message").requireText(java.util.regex.Pattern.compile(
-                "The camera stream ended: simulated camera stopped delivering images after 400 frames.*\\d+ frames recorded to .*live\\.avi and kept\\."));
+                "The camera stream ended: simulated camera stopped delivering images after 1500 frames.*\\d+ frames recorded to .*live\\.avi and kept\\."));
         var m = java.util.regex.Pattern.compile("([0-9.]+) frames/s scored and shown of the camera's ([0-9.]+) frames/s; (\\d+) of (\\d+) images dropped.*")
                 .matcher(window.label("camera.rates").text());
         assertTrue(m.matches(), window.label("camera.rates").text());
