@@ -159,9 +159,7 @@ final class CalibrationView extends JPanel {
     }
 
     private void chooseFolder() {
-        java.util.Optional<java.nio.file.Path> chosen = Folders.choose(ctx, "lastCalibrationFrames", "Folder of chessboard photos", Folders.Use.OPEN);
-        if (chosen.isEmpty()) return;
-        setFolder(chosen.get());
+        Folders.choose(ctx, "lastCalibrationFrames", "Folder of chessboard photos", Folders.Use.OPEN).ifPresent(this::setFolder);
         ctx.prefs().put("lastCalibrationFrames", folder.toString());
     }
 

@@ -263,9 +263,7 @@ final class CompareView extends JPanel implements Session.Listener {
 
     private void save() {
         if (last == null) return;
-        java.util.Optional<java.nio.file.Path> chosen = Folders.choose(ctx, "lastCompareFolder", "Folder for the comparison results", Folders.Use.SAVE);
-        if (chosen.isEmpty()) return;
-        saveTo(chosen.get());
+        Folders.choose(ctx, "lastCompareFolder", "Folder for the comparison results", Folders.Use.SAVE).ifPresent(this::saveTo);
     }
 
     /** Writes the last comparison into {@code dir} as the command line's compare does; says so in the status bar. */

@@ -86,9 +86,7 @@ final class ExportView extends JPanel implements Session.Listener {
 
     void chooseAndExport() {
         if (session.servoSet() == null || !acknowledgeSafety() || !confirmUnrehearsed()) return;
-        java.util.Optional<java.nio.file.Path> chosen = Folders.choose(ctx, "lastExportFolder", "Folder for the servo set", Folders.Use.SAVE);
-        if (chosen.isEmpty()) return;
-        exportTo(chosen.get());
+        Folders.choose(ctx, "lastExportFolder", "Folder for the servo set", Folders.Use.SAVE).ifPresent(this::exportTo);
     }
 
     /** Writes the set into {@code dir}; the safety notice must have been acknowledged. */

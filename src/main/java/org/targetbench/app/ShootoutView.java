@@ -344,9 +344,7 @@ final class ShootoutView extends JPanel {
 
     private void save() {
         if (last == null) return;
-        java.util.Optional<java.nio.file.Path> chosen = Folders.choose(ctx, "lastReportFolder", "Folder for shootout.csv and shootout.html", Folders.Use.SAVE);
-        if (chosen.isEmpty()) return;
-        saveTo(chosen.get());
+        Folders.choose(ctx, "lastReportFolder", "Folder for shootout.csv and shootout.html", Folders.Use.SAVE).ifPresent(this::saveTo);
     }
 
     /** Writes the files the command line writes, atomically; says where, or why not. */

@@ -243,9 +243,7 @@ final class StressView extends JPanel {
 
     private void save() {
         if (last == null) return;
-        java.util.Optional<java.nio.file.Path> chosen = Folders.choose(ctx, "lastReportFolder", "Folder for the sweep report", Folders.Use.SAVE);
-        if (chosen.isEmpty()) return;
-        saveTo(chosen.get());
+        Folders.choose(ctx, "lastReportFolder", "Folder for the sweep report", Folders.Use.SAVE).ifPresent(this::saveTo);
     }
 
     /** Writes the files of the command line's sweep for the latest run, with the envelope it ran with. */

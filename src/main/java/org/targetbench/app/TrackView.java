@@ -317,9 +317,7 @@ final class TrackView extends JPanel {
 
     private void save() {
         if (history == null || history.result() == null) return;
-        java.util.Optional<java.nio.file.Path> chosen = Folders.choose(ctx, "lastTrackFolder", "Folder for the tracking results", Folders.Use.SAVE);
-        if (chosen.isEmpty()) return;
-        saveTo(chosen.get());
+        Folders.choose(ctx, "lastTrackFolder", "Folder for the tracking results", Folders.Use.SAVE).ifPresent(this::saveTo);
     }
 
     /** Writes the finished run into {@code dir}; says in the status bar what was written, or why not. */

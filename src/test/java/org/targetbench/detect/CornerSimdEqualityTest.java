@@ -84,7 +84,8 @@ class CornerSimdEqualityTest {
         }
     }
 
-    private static List<CornerConfig> configs() {
+    /** Default Harris and Shi-Tomasi, and both with window, suppression and count at unusual values. */
+    static List<CornerConfig> configs() {
         List<CornerConfig> out = new ArrayList<>();
         out.add(new HarrisConfig());
         out.add(new ShiTomasiConfig());

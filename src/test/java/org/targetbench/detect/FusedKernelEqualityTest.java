@@ -94,16 +94,9 @@ class FusedKernelEqualityTest {
             }
     }
 
+    /** The settings both paths of the corner kernels are checked with, plus the box window. */
     private static List<CornerConfig> cornerConfigs() {
-        List<CornerConfig> out = new ArrayList<>();
-        out.add(new HarrisConfig());
-        out.add(new ShiTomasiConfig());
-        HarrisConfig h = new HarrisConfig();
-        h.windowRadius = 3; h.nmsRadius = 5; h.maxFeatures = 100;
-        out.add(h);
-        ShiTomasiConfig s = new ShiTomasiConfig();
-        s.windowRadius = 1; s.nmsRadius = 1; s.maxFeatures = 2000; s.threshold = 0.001;
-        out.add(s);
+        List<CornerConfig> out = CornerSimdEqualityTest.configs();
         ShiTomasiConfig box = new ShiTomasiConfig();
         box.weighted = false;
         out.add(box);
